@@ -1,0 +1,129 @@
+import type { Command } from 'commander';
+import {
+  binomial,
+  findIon,
+  freeIonTerms,
+  halfIntegerText,
+  hundGround,
+  InputError,
+  jLevels,
+  microstateTable,
+  parseConfiguration,
+  termsOf,
+  unicodeTerm,
+} from '../../src/index.js';
+import { fixed, jsonText, table } from '../format.js';
+import type { Io } from '../io.js';
+import { numberOption } from '../options.js';
+
+interface TermsOptions {
+  B?: string;
+  C?: string;
+  ion?: string;
+  json?: boolean;
+}
+
+/** `termsplit terms <config>`: microstates, terms, Hund ground level, J levels, free-ion energies. */
+export function registerTerms(program: Command, io: Io): void {
+  program
+    .command('terms')
+    .description('microstates, Russell–Saunders terms, Hund ground level and J levels of a configuration')
+    .argument('[config]', 'configuration such as p2, d3, 3d8, f2 (optional with --ion)')
+    .option('--B <cm-1>', 'Racah B, for free-ion term energies of a d configuration')
+    .option('--C <cm-1>', 'Racah C, with --B')
+    .option('--ion <name>', 'take n, B and C of a free ion from the built-in table, e.g. Cr3+')
+    .option('--json', 'print one JSON object on stdout')
+    .action((configText: string | undefined, opts: TermsOptions) => {
+      io.out(termsCommand(configText, opts));
+    });
+}
+
+/** Builds the command's output text (the action only writes it, so errors leave stdout empty). */
+export function termsCommand(configText: string | undefined, opts: TermsOptions): string {
+  const ion = opts.ion === undefined ? undefined : findIon(opts.ion);
+  if (configText === undefined && !ion) throw new InputError('give a configuration such as d3, or --ion');
+  const config = parseConfiguration(configText ?? `d${ion?.n}`);
+  if (ion && (config.l !== 2 || config.n !== ion.n)) {
+    throw new InputError(`configuration ${config.text} disagrees with --ion ${ion.ion}, which is d${ion.n}`);
+  }
+  let B = numberOption('--B', opts.B, { min: 0, what: 'a non-negative number of cm⁻¹' });
+  let C = numberOption('--C', opts.C, { min: 0, what: 'a non-negative number of cm⁻¹' });
+  if ((B === undefined) !== (C === undefined))
+    throw new InputError('free-ion energies need both --B and --C');
+  if (ion && B === undefined) {
+    B = ion.B;
+    C = ion.C;
+  }
+  if (B !== undefined && config.l !== 2) {
+    throw new InputError(`free-ion energies from Racah B and C are for d configurations, not ${config.text}`);
+  }
+  const { l, n } = config;
+  const tableOf = microstateTable(l, n);
+  const terms = termsOf(l, n);
+  const ground = hundGround(l, n);
+  const total = binomial(2 * (2 * l + 1), n);
+  const energies = B !== undefined && C !== undefined ? freeIonTerms(n, B, C) : undefined;
+  const result = {
+    config: config.text,
+    l,
+    n,
+    microstates: total,
+    table: tableOf,
+    terms: terms.map((t) => ({ term: t.symbol, S: t.S, L: t.L, count: t.count, J: jLevels(t.S, t.L) })),
+    ground: ground.symbol,
+    groundJ: ground.J,
+    ...(ion ? { ion: ion.ion, source: ion.source } : {}),
+    ...(energies
+      ? {
+          B,
+          C,
+          energies: energies.map((e) => ({
+            term: e.term,
+            name: e.name,
+            energy: e.energy,
+            degeneracy: e.degeneracy,
+          })),
+        }
+      : {}),
+  };
+  if (opts.json) return jsonText(result);
+
+  const lines: string[] = [];
+  lines.push(`${config.text}: ${total} microstates`);
+  lines.push('');
+  lines.push('Microstate counts N(M_L, M_S), M_L ≥ 0, M_S ≥ 0:');
+  lines.push(
+    table(
+      ['M_L', ...tableOf.MS.map((s) => `M_S=${halfIntegerText(s)}`)],
+      tableOf.ML.map((m, i) => [String(m), ...(tableOf.counts[i] ?? []).map(String)]),
+    ),
+  );
+  lines.push('');
+  lines.push(
+    `Terms: ${terms.map((t) => `${unicodeTerm(t.symbol)}${t.count > 1 ? ` (×${t.count})` : ''}`).join(', ')}`,
+  );
+  lines.push(`Ground level (Hund's rules): ${unicodeTerm(ground.symbol)}`);
+  lines.push('');
+  lines.push('J levels:');
+  for (const t of terms)
+    lines.push(`  ${unicodeTerm(t.symbol)}: J = ${jLevels(t.S, t.L).map(halfIntegerText).join(', ')}`);
+  if (energies && B !== undefined && C !== undefined) {
+    lines.push('');
+    lines.push(
+      `Free-ion term energies, B = ${fixed(B)} cm⁻¹, C = ${fixed(C)} cm⁻¹ (C/B = ${fixed(C / Math.max(B, 1e-12), 2)})` +
+        `${ion ? `, ${ion.ion} (${ion.source})` : ''}:`,
+    );
+    lines.push(
+      table(
+        ['term', 'energy / cm⁻¹', 'E/B', 'degeneracy'],
+        energies.map((e) => [
+          unicodeTerm(e.name),
+          fixed(e.energy, 0),
+          B > 0 ? fixed(e.energy / B, 2) : '—',
+          String(e.degeneracy),
+        ]),
+      ),
+    );
+  }
+  return `${lines.join('\n')}\n`;
+}

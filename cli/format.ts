@@ -1,0 +1,44 @@
+/** Plain-text tables and number formats for human output. */
+
+/** Right-aligns numeric-looking cells, left-aligns the rest; columns separated by two spaces. */
+export function table(headers: readonly string[], rows: readonly (readonly string[])[]): string {
+  const widths = headers.map((h, i) => Math.max(width(h), ...rows.map((r) => width(r[i] ?? ''))));
+  const numeric = headers.map(
+    (_, i) => rows.length > 0 && rows.every((r) => /^[-+−]?[\d.,]+%?$|^—$|^$/.test(r[i] ?? '')),
+  );
+  const line = (cells: readonly string[]) =>
+    cells
+      .map((c, i) => {
+        const pad = ' '.repeat(Math.max(0, (widths[i] ?? 0) - width(c)));
+        return numeric[i] ? pad + c : c + pad;
+      })
+      .join('  ')
+      .trimEnd();
+  return [line(headers), line(widths.map((w) => '─'.repeat(w))), ...rows.map(line)].join('\n');
+}
+
+/** Display width, counting combining characters as nothing. */
+function width(s: string): number {
+  return [...s.normalize('NFC')].filter((c) => !/\p{M}/u.test(c)).length;
+}
+
+/** A number with a fixed number of decimals. */
+export function fixed(x: number, digits = 0): string {
+  return Number.isFinite(x) ? x.toFixed(digits) : '—';
+}
+
+/** Rounds every number in a JSON-bound value to `digits` decimals, to drop floating-point noise. */
+export function roundForJson(value: unknown, digits = 6): unknown {
+  const f = 10 ** digits;
+  if (typeof value === 'number') return Number.isFinite(value) ? Math.round(value * f) / f : null;
+  if (Array.isArray(value)) return value.map((v) => roundForJson(v, digits));
+  if (value && typeof value === 'object') {
+    return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, roundForJson(v, digits)]));
+  }
+  return value;
+}
+
+/** JSON text of a value with numbers rounded, ending in a newline. */
+export function jsonText(value: unknown): string {
+  return `${JSON.stringify(roundForJson(value), null, 2)}\n`;
+}

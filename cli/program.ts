@@ -1,0 +1,61 @@
+import { Command, CommanderError } from 'commander';
+import { InputError } from '../src/index.js';
+import { registerDemo } from './commands/demo.js';
+import { registerIons } from './commands/ions.js';
+import { registerLevels } from './commands/levels.js';
+import { registerTerms } from './commands/terms.js';
+import type { Io } from './io.js';
+
+/** Exit codes: 0 success, 1 an internal failure, 2 bad input. */
+export const EXIT_OK = 0;
+export const EXIT_INTERNAL = 1;
+export const EXIT_INPUT = 2;
+
+/** The command-line program, with every command registered, writing to `io`. */
+export function buildProgram(io: Io): Command {
+  const program = new Command('termsplit')
+    .description(
+      'Ligand-field analysis of transition-metal ions: terms, cubic levels, diagrams, fits, spin state.',
+    )
+    .version(VERSION)
+    .showHelpAfterError('(run with --help for usage)')
+    .configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) })
+    .exitOverride();
+  for (const register of [registerTerms, registerLevels, registerIons, registerDemo]) register(program, io);
+  for (const c of program.commands)
+    c.exitOverride().configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) });
+  return program;
+}
+
+const VERSION = '0.1.0';
+
+/**
+ * Runs the program on `argv` (the words after `termsplit`) and returns the exit code. Input
+ * errors print one line on stderr; nothing is written to stdout then.
+ */
+export async function run(argv: readonly string[], io: Io): Promise<number> {
+  const program = buildProgram(io);
+  try {
+    await program.parseAsync([...argv], { from: 'user' });
+    return EXIT_OK;
+  } catch (e) {
+    if (e instanceof CommanderError) {
+      if (
+        e.code === 'commander.helpDisplayed' ||
+        e.code === 'commander.version' ||
+        e.code === 'commander.help'
+      ) {
+        return EXIT_OK;
+      }
+      return EXIT_INPUT;
+    }
+    if (e instanceof InputError) {
+      io.err(`termsplit: ${e.message}\n`);
+      return EXIT_INPUT;
+    }
+    const message = e instanceof Error ? e.message : String(e);
+    io.err(`termsplit: internal error: ${message}\n`);
+    if (process.env.TERMSPLIT_DEBUG && e instanceof Error && e.stack) io.err(`${e.stack}\n`);
+    return EXIT_INTERNAL;
+  }
+}

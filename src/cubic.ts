@@ -1,0 +1,320 @@
+import { bilinear, clusterSorted, resolveSubspace, symmetricEigen } from './eigen.js';
+import { ensure } from './errors.js';
+import { type FreeIonTerm, freeIonTerms } from './freeIon.js';
+import { assemble, cubicBlocks, type HamiltonianBlock } from './hamiltonian.js';
+import { configurationText, type Geometry, irrepName, stateSymbol } from './labels.js';
+import {
+  branchTerm,
+  C2P_EULER,
+  C3_EULER,
+  CUBIC_IRREPS,
+  type CubicIrrep,
+  decomposeCubic,
+  IRREP_DIMENSION,
+  rotationBlock,
+  rotationOfShell,
+} from './symmetry.js';
+
+/** Input of {@link solveCubic}. Energies in cm⁻¹. */
+export interface CubicInput {
+  /** Number of d electrons, 1…9. */
+  readonly n: number;
+  /** Octahedral or tetrahedral field. @default 'oct' */
+  readonly geometry?: Geometry;
+  /** Dq ≥ 0 (10Dq = Δo in Oh, Δt in Td). */
+  readonly dq: number;
+  /** Racah B ≥ 0. */
+  readonly B: number;
+  /** Racah C ≥ 0. */
+  readonly C: number;
+}
+
+/** Weight of one strong-field configuration t₂ᵃeᵇ in a level. */
+export interface ConfigurationWeight {
+  /** Electrons in the t₂ (t₂g) set. */
+  readonly t2: number;
+  /** Electrons in the e (e_g) set. */
+  readonly e: number;
+  /** Plain text, e.g. `t2g^2 eg^1`. */
+  readonly text: string;
+  /** Fraction of the level's eigenvector, 0…1. */
+  readonly weight: number;
+}
+
+/** One level of dⁿ in a cubic field, degenerate components merged. */
+export interface CubicLevel {
+  /**
+   * Unique label: the state symbol, followed by its parent term in parentheses wherever the
+   * symbol occurs more than once (e.g. `4T1g(F)`, `4T1g(P)`), and by an ordinal where even that
+   * repeats (`3T1g(H,1)`, `3T1g(H,2)`).
+   */
+  readonly label: string;
+  /** ²ˢ⁺¹Γ, e.g. `4T1g`. */
+  readonly symbol: string;
+  readonly S: number;
+  /** Irrep with parity in Oh (`T1g`), without in Td (`T1`). */
+  readonly irrep: string;
+  /** The irrep of the rotation group O. */
+  readonly cubicIrrep: CubicIrrep;
+  /** Energy above the ground state, cm⁻¹. */
+  readonly energy: number;
+  /** (2S+1) × dim Γ. */
+  readonly degeneracy: number;
+  /**
+   * The free-ion term this level goes to as Dq → 0 (name as in {@link FreeIonTerm.name}).
+   * Levels of one symbol never cross as Dq changes, so the i-th lowest level of a symbol comes
+   * from the i-th lowest free-ion term containing that irrep.
+   */
+  readonly parent: string;
+  /** Strong-field make-up, largest weight first. */
+  readonly configurations: readonly ConfigurationWeight[];
+  /** The largest-weight configuration's text. */
+  readonly configuration: string;
+  /** Same total spin as the ground state (the spin selection rule). */
+  readonly spinAllowed: boolean;
+}
+
+/** Levels of dⁿ in a cubic field. */
+export interface CubicResult {
+  readonly n: number;
+  readonly geometry: Geometry;
+  readonly dq: number;
+  readonly B: number;
+  readonly C: number;
+  /** The lowest level. */
+  readonly ground: CubicLevel;
+  /** All levels, by energy. */
+  readonly levels: readonly CubicLevel[];
+}
+
+/**
+ * Levels of dⁿ in an octahedral or tetrahedral field by exact diagonalisation of electron
+ * repulsion plus crystal field, each labelled ²ˢ⁺¹Γ with parent term and strong-field make-up.
+ * @throws InputError for n outside 1…9 or a negative or non-finite Dq, B or C.
+ */
+export function solveCubic(input: CubicInput): CubicResult {
+  const { n, geometry = 'oct', dq, B, C } = input;
+  ensure(
+    Number.isInteger(n) && n >= 1 && n <= 9,
+    `d-electron count ${n}: expected a whole number from 1 to 9`,
+  );
+  ensure(geometry === 'oct' || geometry === 'tet', `geometry "${geometry}": expected oct or tet`);
+  ensure(Number.isFinite(dq) && dq >= 0, `Dq = ${dq}: expected a non-negative number of cm⁻¹`);
+  ensure(Number.isFinite(B) && B >= 0, `Racah B = ${B}: expected a non-negative number of cm⁻¹`);
+  ensure(Number.isFinite(C) && C >= 0, `Racah C = ${C}: expected a non-negative number of cm⁻¹`);
+  return cubicLevels(n, geometry === 'oct' ? dq : -dq, B, C, geometry);
+}
+
+interface BlockExtras {
+  readonly c2p: Float64Array | null;
+  readonly c3: Float64Array;
+  /** Eigenvectors of the field operator (column-wise) and the e-set count of each. */
+  readonly configVectors: Float64Array;
+  readonly configE: readonly number[];
+}
+
+const extrasCache = new WeakMap<HamiltonianBlock, BlockExtras>();
+
+function extrasOf(block: HamiltonianBlock, n: number): BlockExtras {
+  const cached = extrasCache.get(block);
+  if (cached) return cached;
+  const size = block.masks.length;
+  const field = symmetricEigen(block.partDq, size);
+  // Per unit Dq a t₂ᵃeᵇ determinant sits at −4a + 6b = −4n + 10b.
+  const configE = Array.from(field.values, (v) => Math.round((v + 4 * n) / 10));
+  const extras = {
+    c2p: block.k % 2 === 0 ? rotationBlock(2, block, rotationOfShell(2, C2P_EULER)) : null,
+    c3: rotationBlock(2, block, rotationOfShell(2, C3_EULER)),
+    configVectors: field.vectors,
+    configE,
+  };
+  extrasCache.set(block, extras);
+  return extras;
+}
+
+interface RawLevel {
+  S: number;
+  irrep: CubicIrrep;
+  energy: number;
+  weights: number[];
+}
+
+let parentMemo: { key: string; terms: FreeIonTerm[] } | undefined;
+
+function freeIonOrder(n: number, B: number, C: number): FreeIonTerm[] {
+  const key = `${n}:${B}:${C}`;
+  if (parentMemo?.key !== key) parentMemo = { key, terms: freeIonTerms(n, B, C) };
+  return parentMemo.terms;
+}
+
+function spinOf(s2: number): number {
+  return Math.round(((-1 + Math.sqrt(1 + 4 * Math.max(0, s2))) / 2) * 2) / 2;
+}
+
+/**
+ * The levels for a signed, octahedral-convention Dq (a tetrahedral field is a negative one),
+ * named for `geometry`. The blocked path: M_S = lowest, one block per M_L mod 4.
+ */
+export function cubicLevels(n: number, dqOct: number, B: number, C: number, geometry: Geometry): CubicResult {
+  const blocks = cubicBlocks(n);
+  const pool: { k: number; j: number; value: number }[] = [];
+  const eigs = blocks.map((block, k) => {
+    const eig = symmetricEigen(assemble(block, dqOct, B, C), block.masks.length);
+    eig.values.forEach((value, j) => {
+      pool.push({ k, j, value });
+    });
+    return eig;
+  });
+  pool.sort((a, b) => a.value - b.value);
+  const values = pool.map((p) => p.value);
+  const tol = 1e-8 * (1 + Math.max(...values.map(Math.abs)));
+  const raw: RawLevel[] = [];
+  for (const run of clusterSorted(values, tol)) {
+    const energy = run.reduce((s, i) => s + (values[i] ?? 0), 0) / run.length;
+    const perBlock: Float64Array[][] = blocks.map(() => []);
+    for (const i of run) {
+      const item = pool[i];
+      const eig = item && eigs[item.k];
+      if (!item || !eig) continue;
+      const size = eig.size;
+      const v = new Float64Array(size);
+      for (let r = 0; r < size; r++) v[r] = eig.vectors[r * size + item.j] ?? 0;
+      perBlock[item.k]?.push(v);
+    }
+    // Split the degenerate space by S within each block, then label each spin's part.
+    const bySpin = new Map<number, Float64Array[][]>();
+    perBlock.forEach((vectors, k) => {
+      const block = blocks[k];
+      if (!block) return;
+      for (const group of resolveSubspace(vectors, block.spinSquared, 1e-6)) {
+        const S = spinOf(group.value);
+        const slot = bySpin.get(S) ?? blocks.map(() => []);
+        slot[k]?.push(...group.vectors);
+        bySpin.set(S, slot);
+      }
+    });
+    for (const [S, vectorsByBlock] of bySpin) {
+      const counts = vectorsByBlock.map((v) => v.length) as [number, number, number, number];
+      const character = (pick: (x: BlockExtras) => Float64Array | null) => () => {
+        let chi = 0;
+        vectorsByBlock.forEach((vectors, k) => {
+          const block = blocks[k];
+          if (!block) return;
+          const op = pick(extrasOf(block, n));
+          if (!op) return;
+          for (const v of vectors) chi += bilinear(v, op, v);
+        });
+        return chi;
+      };
+      const decomposition = decomposeCubic(
+        counts,
+        character((x) => x.c2p),
+        character((x) => x.c3),
+      );
+      const weights = configurationWeights(n, blocks, vectorsByBlock);
+      for (const irrep of CUBIC_IRREPS) {
+        for (let c = 0; c < decomposition[irrep]; c++) raw.push({ S, irrep, energy, weights });
+      }
+    }
+  }
+  return finish(n, dqOct, B, C, geometry, raw);
+}
+
+/** Mean weight of each e-set count b = 0…min(n, 4) over the vectors of a degenerate set. */
+function configurationWeights(
+  n: number,
+  blocks: HamiltonianBlock[],
+  vectorsByBlock: Float64Array[][],
+): number[] {
+  const weights = new Array<number>(5).fill(0);
+  let count = 0;
+  vectorsByBlock.forEach((vectors, k) => {
+    const block = blocks[k];
+    if (!block) return;
+    const { configVectors, configE } = extrasOf(block, n);
+    const size = block.masks.length;
+    for (const v of vectors) {
+      count += 1;
+      for (let c = 0; c < size; c++) {
+        let dot = 0;
+        for (let r = 0; r < size; r++) dot += (configVectors[r * size + c] ?? 0) * (v[r] ?? 0);
+        const b = configE[c] ?? 0;
+        weights[b] = (weights[b] ?? 0) + dot * dot;
+      }
+    }
+  });
+  return weights.map((w) => (count > 0 ? w / count : 0));
+}
+
+function finish(
+  n: number,
+  dqOct: number,
+  B: number,
+  C: number,
+  geometry: Geometry,
+  raw: RawLevel[],
+): CubicResult {
+  raw.sort((a, b) => a.energy - b.energy);
+  const groundRaw = raw[0];
+  if (!groundRaw) throw new Error(`no levels for d${n}`);
+  const terms = freeIonOrder(n, B, C);
+  // Parents: the i-th lowest level of a symbol ↔ the i-th lowest free-ion component of it.
+  const parentsOf = new Map<string, string[]>();
+  for (const term of terms) {
+    const branches = branchTerm(term.L);
+    for (const irrep of CUBIC_IRREPS) {
+      const key = `${term.S}:${irrep}`;
+      const list = parentsOf.get(key) ?? [];
+      for (let c = 0; c < branches[irrep]; c++) list.push(term.name);
+      parentsOf.set(key, list);
+    }
+  }
+  const used = new Map<string, number>();
+  const partial = raw.map((r) => {
+    const key = `${r.S}:${r.irrep}`;
+    const i = used.get(key) ?? 0;
+    used.set(key, i + 1);
+    const parent = parentsOf.get(key)?.[i] ?? '?';
+    return { ...r, parent, symbol: stateSymbol(r.S, r.irrep, geometry) };
+  });
+  const symbolCount = countBy(partial.map((p) => p.symbol));
+  const withParent = partial.map((p) =>
+    (symbolCount.get(p.symbol) ?? 0) > 1 ? `${p.symbol}(${p.parent.replace(/\d+/, '')})` : p.symbol,
+  );
+  const labelCount = countBy(withParent);
+  const ordinal = new Map<string, number>();
+  const levels: CubicLevel[] = partial.map((p, i) => {
+    let label = withParent[i] ?? p.symbol;
+    if ((labelCount.get(label) ?? 0) > 1) {
+      const k = (ordinal.get(label) ?? 0) + 1;
+      ordinal.set(label, k);
+      label = `${label.slice(0, -1)},${k})`;
+    }
+    const configurations = p.weights
+      .map((weight, e) => ({ t2: n - e, e, text: configurationText(n - e, e, geometry), weight }))
+      .filter((c) => c.t2 >= 0 && c.t2 <= 6 && c.weight > 1e-12)
+      .sort((a, b) => b.weight - a.weight);
+    return {
+      label,
+      symbol: p.symbol,
+      S: p.S,
+      irrep: irrepName(p.irrep, geometry),
+      cubicIrrep: p.irrep,
+      energy: p.energy - groundRaw.energy,
+      degeneracy: Math.round((2 * p.S + 1) * IRREP_DIMENSION[p.irrep]),
+      parent: p.parent,
+      configurations,
+      configuration: configurations[0]?.text ?? '',
+      spinAllowed: p.S === groundRaw.S,
+    };
+  });
+  const ground = levels[0];
+  if (!ground) throw new Error(`no levels for d${n}`);
+  return { n, geometry, dq: Math.abs(dqOct), B, C, ground, levels };
+}
+
+function countBy(items: readonly string[]): Map<string, number> {
+  const m = new Map<string, number>();
+  for (const x of items) m.set(x, (m.get(x) ?? 0) + 1);
+  return m;
+}

@@ -1,0 +1,55 @@
+/**
+ * termsplit: ligand-field analysis of transition-metal ions. The public surface of the library;
+ * every name here is documented where it is defined.
+ */
+export { type Complex, gaunt, threeJ, wignerD, wignerSmallD } from './angular.js';
+export { type Caution, CHARGE_TRANSFER_ONSET, cubicCautions } from './cautions.js';
+export { octahedralFieldMatrix } from './crystalField.js';
+export {
+  type ConfigurationWeight,
+  type CubicInput,
+  type CubicLevel,
+  type CubicResult,
+  solveCubic,
+} from './cubic.js';
+export { InputError } from './errors.js';
+export { type FreeIonTerm, freeIonTerms, freeIonTermsSlater } from './freeIon.js';
+export { DEFAULT_C_OVER_B, FREE_IONS, type FreeIon, findIon, freeIonRatio } from './ions.js';
+export {
+  configurationText,
+  type Geometry,
+  irrepName,
+  type LabelParts,
+  parseStateLabel,
+  stateSymbol,
+  unicodeConfiguration,
+  unicodeLabel,
+  unicodeTerm,
+} from './labels.js';
+export { binomial, type Microstate, microstates } from './microstates.js';
+export { type DSlaterIntegrals, slaterFromRacah } from './repulsion.js';
+export { branchTerm, CHARACTERS, CUBIC_IRREPS, type CubicIrrep, IRREP_DIMENSION } from './symmetry.js';
+export {
+  type Configuration,
+  type GroundLevel,
+  halfIntegerText,
+  hundGround,
+  jLevels,
+  type MicrostateTable,
+  microstateTable,
+  parseConfiguration,
+  type Term,
+  termSymbol,
+  termsOf,
+} from './terms.js';
+export {
+  CM_PER_EV,
+  cmToEv,
+  cmToNm,
+  type EnergyUnit,
+  type ParsedEnergy,
+  parseEnergy,
+  parseEnergyList,
+  parseUnit,
+  toWavenumber,
+} from './units.js';

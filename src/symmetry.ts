@@ -1,0 +1,163 @@
+import { type Complex, wignerD } from './angular.js';
+import { mlOf, twoMsOf } from './microstates.js';
+import type { BasisBlock } from './operators.js';
+import { parity } from './operators.js';
+
+/**
+ * The octahedral rotation group O: its irreducible representations, character table,
+ * the branching of free-ion terms into cubic components, and the decomposition of a
+ * degenerate eigenspace into irreps from a few characters.
+ */
+
+/** Irreducible representations of O (and, with the same names, of Td and without g of Oh). */
+export type CubicIrrep = 'A1' | 'A2' | 'E' | 'T1' | 'T2';
+
+/** The irreps in the conventional order. */
+export const CUBIC_IRREPS: readonly CubicIrrep[] = ['A1', 'A2', 'E', 'T1', 'T2'];
+
+/** Dimension of each irrep. */
+export const IRREP_DIMENSION: Readonly<Record<CubicIrrep, number>> = { A1: 1, A2: 1, E: 2, T1: 3, T2: 3 };
+
+/** Rotation angle and class size of the five classes E, 8C3, 3C2, 6C4, 6C2′. */
+const CLASSES = [
+  { size: 1, angle: 0 },
+  { size: 8, angle: (2 * Math.PI) / 3 },
+  { size: 3, angle: Math.PI },
+  { size: 6, angle: Math.PI / 2 },
+  { size: 6, angle: Math.PI },
+] as const;
+
+/** Character table of O over the classes E, 8C3, 3C2 (= C4²), 6C4, 6C2′ (any group-theory text). */
+export const CHARACTERS: Readonly<Record<CubicIrrep, readonly number[]>> = {
+  A1: [1, 1, 1, 1, 1],
+  A2: [1, 1, 1, -1, -1],
+  E: [2, -1, 2, 0, 0],
+  T1: [3, 0, -1, 1, -1],
+  T2: [3, 0, -1, -1, 1],
+};
+
+/** Character of a rotation by θ in the (2L+1)-dimensional representation: Σ_m e^{imθ}. */
+export function rotationCharacter(L: number, angle: number): number {
+  let sum = 1;
+  for (let m = 1; m <= L; m++) sum += 2 * Math.cos(m * angle);
+  return sum;
+}
+
+/**
+ * How often each cubic irrep occurs in a free-ion term of orbital angular momentum L, by the
+ * reduction formula n(Γ) = (1/24) Σ_classes N_c χ_Γ(c) χ_L(θ_c) (Bethe, Ann. Phys. 3, 133, 1929).
+ */
+export function branchTerm(L: number): Record<CubicIrrep, number> {
+  const out = { A1: 0, A2: 0, E: 0, T1: 0, T2: 0 };
+  for (const irrep of CUBIC_IRREPS) {
+    let sum = 0;
+    CLASSES.forEach((c, i) => {
+      sum += c.size * (CHARACTERS[irrep][i] ?? 0) * rotationCharacter(L, c.angle);
+    });
+    out[irrep] = Math.round(sum / 24);
+  }
+  return out;
+}
+
+/**
+ * Decomposes a degenerate eigenspace of fixed S into irreps of O.
+ *
+ * `counts[k]` is the number of its basis vectors with M_L ≡ k (mod 4), i.e. the multiplicities
+ * of the C₄(z) eigenvalues e^{−iπk/2}. A1 spans k = 0; A2, k = 2; E, k = 0 and 2; T1, k = 0, 1, 3;
+ * T2, k = 2, 1, 3. These counts settle a single irrep except E against A1 + A2; where they leave a
+ * choice the characters of C₂′ and C₃ settle it, and are only then computed.
+ * @throws Error when the numbers fit no decomposition (a numerical failure).
+ */
+export function decomposeCubic(
+  counts: readonly [number, number, number, number],
+  chiC2p: () => number,
+  chiC3: () => number,
+): Record<CubicIrrep, number> {
+  const [n0, n1, n2, n3] = counts;
+  if (n1 !== n3) throw new Error(`cubic labelling: M_L classes 1 and 3 differ (${n1} vs ${n3})`);
+  let t1: number;
+  const t1Min = Math.max(0, n1 - n2);
+  const t1Max = Math.min(n1, n0);
+  if (t1Min > t1Max) throw new Error(`cubic labelling: no decomposition of counts ${counts.join(',')}`);
+  if (t1Min === t1Max) {
+    t1 = t1Min;
+  } else {
+    // χ(C₂′) = a1 − a2 − t1 + t2 = n0 − n2 + 2n1 − 4t1.
+    t1 = integral((n0 - n2 + 2 * n1 - chiC2p()) / 4, 'C2′');
+  }
+  const t2 = n1 - t1;
+  const x = n0 - t1;
+  const y = n2 - t2;
+  let e = 0;
+  if (Math.min(x, y) > 0) {
+    // χ(C₃) = a1 + a2 − e = x + y − 3e.
+    e = integral((x + y - chiC3()) / 3, 'C3');
+  }
+  const out = { A1: x - e, A2: y - e, E: e, T1: t1, T2: t2 };
+  for (const v of Object.values(out)) {
+    if (v < 0) throw new Error(`cubic labelling: negative irrep count from counts ${counts.join(',')}`);
+  }
+  return out;
+}
+
+function integral(x: number, what: string): number {
+  const r = Math.round(x);
+  if (Math.abs(x - r) > 0.05)
+    throw new Error(`cubic labelling: character of ${what} gives ${x}, not an integer`);
+  return r;
+}
+
+/**
+ * Euler angles (z-y-z, active) of the two rotations used for characters: C₃ about [111]
+ * (x → y → z → x) and C₂′ about [110]. Both are checked in the tests by leaving the cubic
+ * crystal-field operator invariant.
+ */
+export const C3_EULER = [0, Math.PI / 2, Math.PI / 2] as const;
+export const C2P_EULER = [-Math.PI / 2, Math.PI, 0] as const;
+
+/**
+ * Real part of ⟨D′|R|D⟩ within a block, for a spatial rotation R given by its one-electron
+ * matrix `U[m′+l][m+l]` (spin untouched). R|D⟩ is expanded electron by electron, applying the
+ * rotated creation operators in the order that builds the determinant, so the fermion signs
+ * come out of the algebra. Entries outside the block are dropped: only the diagonal block is
+ * needed for characters of eigenspaces that lie in it.
+ */
+export function rotationBlock(l: number, block: BasisBlock, U: Complex[][]): Float64Array {
+  const n = block.masks.length;
+  const out = new Float64Array(n * n);
+  const width = 2 * (2 * l + 1);
+  block.masks.forEach((mask, col) => {
+    let vec = new Map<number, Complex>([[0, { re: 1, im: 0 }]]);
+    for (let p = width - 1; p >= 0; p--) {
+      if (!(mask & (1 << p))) continue;
+      const m = mlOf(l, p);
+      const alpha = twoMsOf(l, p) > 0;
+      const next = new Map<number, Complex>();
+      for (const [partial, c] of vec) {
+        for (let mp = -l; mp <= l; mp++) {
+          const u = U[mp + l]?.[m + l];
+          if (!u || (u.re === 0 && u.im === 0)) continue;
+          const q = mp + l + (alpha ? 0 : 2 * l + 1);
+          if (partial & (1 << q)) continue;
+          const sign = parity(partial, q);
+          const target = partial | (1 << q);
+          const acc = next.get(target) ?? { re: 0, im: 0 };
+          acc.re += sign * (c.re * u.re - c.im * u.im);
+          acc.im += sign * (c.re * u.im + c.im * u.re);
+          next.set(target, acc);
+        }
+      }
+      vec = next;
+    }
+    for (const [target, c] of vec) {
+      const row = block.index.get(target);
+      if (row !== undefined) out[row * n + col] = c.re;
+    }
+  });
+  return out;
+}
+
+/** One-electron rotation matrix from Euler angles. */
+export function rotationOfShell(l: number, euler: readonly [number, number, number]): Complex[][] {
+  return wignerD(l, euler[0], euler[1], euler[2]);
+}
