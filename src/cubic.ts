@@ -1,19 +1,9 @@
-import { bilinear, clusterSorted, resolveSubspace, symmetricEigen } from './eigen.js';
+import { adaptedBlocks } from './cubicBasis.js';
+import { bilinear, clusterSorted, column, symmetricEigen } from './eigen.js';
 import { ensure } from './errors.js';
 import { type FreeIonTerm, freeIonTerms } from './freeIon.js';
-import { assemble, cubicBlocks, type HamiltonianBlock } from './hamiltonian.js';
 import { configurationText, type Geometry, irrepName, stateSymbol } from './labels.js';
-import {
-  branchTerm,
-  C2P_EULER,
-  C3_EULER,
-  CUBIC_IRREPS,
-  type CubicIrrep,
-  decomposeCubic,
-  IRREP_DIMENSION,
-  rotationBlock,
-  rotationOfShell,
-} from './symmetry.js';
+import { branchTerm, CUBIC_IRREPS, type CubicIrrep, decomposeCubic, IRREP_DIMENSION } from './symmetry.js';
 
 /** Input of {@link solveCubic}. Energies in cm⁻¹. */
 export interface CubicInput {
@@ -105,33 +95,6 @@ export function solveCubic(input: CubicInput): CubicResult {
   return cubicLevels(n, geometry === 'oct' ? dq : -dq, B, C, geometry);
 }
 
-interface BlockExtras {
-  readonly c2p: Float64Array | null;
-  readonly c3: Float64Array;
-  /** Eigenvectors of the field operator (column-wise) and the e-set count of each. */
-  readonly configVectors: Float64Array;
-  readonly configE: readonly number[];
-}
-
-const extrasCache = new WeakMap<HamiltonianBlock, BlockExtras>();
-
-function extrasOf(block: HamiltonianBlock, n: number): BlockExtras {
-  const cached = extrasCache.get(block);
-  if (cached) return cached;
-  const size = block.masks.length;
-  const field = symmetricEigen(block.partDq, size);
-  // Per unit Dq a t₂ᵃeᵇ determinant sits at −4a + 6b = −4n + 10b.
-  const configE = Array.from(field.values, (v) => Math.round((v + 4 * n) / 10));
-  const extras = {
-    c2p: block.k % 2 === 0 ? rotationBlock(2, block, rotationOfShell(2, C2P_EULER)) : null,
-    c3: rotationBlock(2, block, rotationOfShell(2, C3_EULER)),
-    configVectors: field.vectors,
-    configE,
-  };
-  extrasCache.set(block, extras);
-  return extras;
-}
-
 interface RawLevel {
   S: number;
   irrep: CubicIrrep;
@@ -147,103 +110,86 @@ function freeIonOrder(n: number, B: number, C: number): FreeIonTerm[] {
   return parentMemo.terms;
 }
 
-function spinOf(s2: number): number {
-  return Math.round(((-1 + Math.sqrt(1 + 4 * Math.max(0, s2))) / 2) * 2) / 2;
-}
-
 /**
  * The levels for a signed, octahedral-convention Dq (a tetrahedral field is a negative one),
- * named for `geometry`. The blocked path: M_S = lowest, one block per M_L mod 4.
+ * named for `geometry`: each symmetry-adapted block (k, S, C₂′ parity) is diagonalised, equal
+ * eigenvalues across blocks are gathered into degenerate levels, and each level's irrep is read
+ * from how its components fall into the blocks.
  */
 export function cubicLevels(n: number, dqOct: number, B: number, C: number, geometry: Geometry): CubicResult {
-  const blocks = cubicBlocks(n);
-  const pool: { k: number; j: number; value: number }[] = [];
-  const eigs = blocks.map((block, k) => {
-    const eig = symmetricEigen(assemble(block, dqOct, B, C), block.masks.length);
+  const blocks = adaptedBlocks(n);
+  const pool: { block: number; j: number; value: number }[] = [];
+  const eigs = blocks.map((block, bi) => {
+    const m = block.size;
+    const h = new Float64Array(m * m);
+    const { partB, partC, fieldDiagonal } = block;
+    // Hot loop: typed-array reads are in range by construction.
+    for (let i = 0; i < h.length; i++) h[i] = B * (partB[i] as number) + C * (partC[i] as number);
+    for (let i = 0; i < m; i++)
+      h[i * m + i] = (h[i * m + i] as number) + dqOct * (fieldDiagonal[i] as number);
+    const eig = symmetricEigen(h, m);
     eig.values.forEach((value, j) => {
-      pool.push({ k, j, value });
+      pool.push({ block: bi, j, value });
     });
     return eig;
   });
   pool.sort((a, b) => a.value - b.value);
   const values = pool.map((p) => p.value);
-  const tol = 1e-8 * (1 + Math.max(...values.map(Math.abs)));
+  let scale = 1;
+  for (const v of values) scale = Math.max(scale, Math.abs(v));
+  const tol = 1e-8 * scale;
   const raw: RawLevel[] = [];
   for (const run of clusterSorted(values, tol)) {
     const energy = run.reduce((s, i) => s + (values[i] ?? 0), 0) / run.length;
-    const perBlock: Float64Array[][] = blocks.map(() => []);
+    const bySpin = new Map<number, { block: number; j: number }[]>();
     for (const i of run) {
       const item = pool[i];
-      const eig = item && eigs[item.k];
-      if (!item || !eig) continue;
-      const size = eig.size;
-      const v = new Float64Array(size);
-      for (let r = 0; r < size; r++) v[r] = eig.vectors[r * size + item.j] ?? 0;
-      perBlock[item.k]?.push(v);
+      const block = item && blocks[item.block];
+      if (!item || !block) continue;
+      const list = bySpin.get(block.S) ?? [];
+      list.push(item);
+      bySpin.set(block.S, list);
     }
-    // Split the degenerate space by S within each block, then label each spin's part.
-    const bySpin = new Map<number, Float64Array[][]>();
-    perBlock.forEach((vectors, k) => {
-      const block = blocks[k];
-      if (!block) return;
-      for (const group of resolveSubspace(vectors, block.spinSquared, 1e-6)) {
-        const S = spinOf(group.value);
-        const slot = bySpin.get(S) ?? blocks.map(() => []);
-        slot[k]?.push(...group.vectors);
-        bySpin.set(S, slot);
+    for (const [S, items] of bySpin) {
+      const perClass = [0, 0, 0];
+      for (const it of items) {
+        const k = blocks[it.block]?.k ?? 0;
+        perClass[k] = (perClass[k] ?? 0) + 1;
       }
-    });
-    for (const [S, vectorsByBlock] of bySpin) {
-      const counts = vectorsByBlock.map((v) => v.length) as [number, number, number, number];
-      const character = (pick: (x: BlockExtras) => Float64Array | null) => () => {
-        let chi = 0;
-        vectorsByBlock.forEach((vectors, k) => {
-          const block = blocks[k];
-          if (!block) return;
-          const op = pick(extrasOf(block, n));
-          if (!op) return;
-          for (const v of vectors) chi += bilinear(v, op, v);
-        });
-        return chi;
-      };
+      const counts: [number, number, number] = [perClass[0] ?? 0, perClass[1] ?? 0, perClass[2] ?? 0];
       const decomposition = decomposeCubic(
         counts,
-        character((x) => x.c2p),
-        character((x) => x.c3),
+        () => items.reduce((sum, it) => sum + (blocks[it.block]?.parity ?? 0), 0),
+        () => {
+          let trace = 0;
+          for (const it of items) {
+            const block = blocks[it.block];
+            const eig = eigs[it.block];
+            if (!block?.c3Sum || !eig) continue;
+            const v = column(eig.vectors, eig.size, it.j);
+            trace += bilinear(v, block.c3Sum, v);
+          }
+          return trace;
+        },
       );
-      const weights = configurationWeights(n, blocks, vectorsByBlock);
+      const weights = [0, 0, 0, 0, 0];
+      for (const it of items) {
+        const block = blocks[it.block];
+        const eig = eigs[it.block];
+        if (!block || !eig) continue;
+        const m = eig.size;
+        for (let r = 0; r < m; r++) {
+          const x = eig.vectors[r * m + it.j] ?? 0;
+          const b = block.eCount[r] ?? 0;
+          weights[b] = (weights[b] ?? 0) + (x * x) / items.length;
+        }
+      }
       for (const irrep of CUBIC_IRREPS) {
         for (let c = 0; c < decomposition[irrep]; c++) raw.push({ S, irrep, energy, weights });
       }
     }
   }
   return finish(n, dqOct, B, C, geometry, raw);
-}
-
-/** Mean weight of each e-set count b = 0…min(n, 4) over the vectors of a degenerate set. */
-function configurationWeights(
-  n: number,
-  blocks: HamiltonianBlock[],
-  vectorsByBlock: Float64Array[][],
-): number[] {
-  const weights = new Array<number>(5).fill(0);
-  let count = 0;
-  vectorsByBlock.forEach((vectors, k) => {
-    const block = blocks[k];
-    if (!block) return;
-    const { configVectors, configE } = extrasOf(block, n);
-    const size = block.masks.length;
-    for (const v of vectors) {
-      count += 1;
-      for (let c = 0; c < size; c++) {
-        let dot = 0;
-        for (let r = 0; r < size; r++) dot += (configVectors[r * size + c] ?? 0) * (v[r] ?? 0);
-        const b = configE[c] ?? 0;
-        weights[b] = (weights[b] ?? 0) + dot * dot;
-      }
-    }
-  });
-  return weights.map((w) => (count > 0 ? w / count : 0));
 }
 
 function finish(

@@ -1,4 +1,4 @@
-import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+import { EigenvalueDecomposition } from 'ml-matrix';
 
 /** Eigenvalues (ascending) and orthonormal eigenvectors of a real symmetric matrix. */
 export interface SymmetricEigen {
@@ -10,24 +10,47 @@ export interface SymmetricEigen {
 
 /**
  * Diagonalises a real symmetric row-major matrix with ml-matrix's Householder
- * tridiagonalisation and QL iteration, and returns the pairs sorted by eigenvalue.
+ * tridiagonalisation and QL iteration (tred2/tql2), which return the pairs sorted by eigenvalue.
  */
 export function symmetricEigen(a: Float64Array, n: number): SymmetricEigen {
   if (n === 0) return { size: 0, values: new Float64Array(0), vectors: new Float64Array(0) };
   if (n === 1) return { size: 1, values: Float64Array.of(a[0] ?? 0), vectors: Float64Array.of(1) };
-  const rows: number[][] = [];
-  for (let i = 0; i < n; i++) rows.push(Array.from(a.subarray(i * n, (i + 1) * n)));
-  const evd = new EigenvalueDecomposition(new Matrix(rows), { assumeSymmetric: true });
-  const raw = evd.realEigenvalues;
-  const vecs = evd.eigenvectorMatrix;
-  const order = raw.map((_, i) => i).sort((i, j) => (raw[i] ?? 0) - (raw[j] ?? 0));
-  const values = new Float64Array(n);
+  // Row views, not copies: ml-matrix wraps a 2-D array-like without copying it.
+  const rows: Float64Array[] = [];
+  for (let i = 0; i < n; i++) rows.push(a.subarray(i * n, (i + 1) * n));
+  const evd = new EigenvalueDecomposition(rows, { assumeSymmetric: true });
+  // tql2 returns the eigenvalues sorted ascending, with their vectors.
+  const values = Float64Array.from(evd.realEigenvalues);
+  const V = evd.eigenvectorMatrix;
   const vectors = new Float64Array(n * n);
-  order.forEach((src, dst) => {
-    values[dst] = raw[src] ?? 0;
-    for (let i = 0; i < n; i++) vectors[i * n + dst] = vecs.get(i, src);
-  });
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) vectors[i * n + j] = V.get(i, j);
+  }
   return { size: n, values, vectors };
+}
+
+/**
+ * Wᵀ X W: the operator X (row-major n×n) carried into the basis of W's m orthonormal columns
+ * (W row-major n×m). Returns m×m.
+ */
+export function congruence(w: Float64Array, x: Float64Array, n: number, m = n): Float64Array {
+  const xw = new Float64Array(n * m);
+  for (let i = 0; i < n; i++) {
+    for (let k = 0; k < n; k++) {
+      const xik = x[i * n + k] ?? 0;
+      if (xik === 0) continue;
+      for (let j = 0; j < m; j++) xw[i * m + j] = (xw[i * m + j] ?? 0) + xik * (w[k * m + j] ?? 0);
+    }
+  }
+  const out = new Float64Array(m * m);
+  for (let k = 0; k < n; k++) {
+    for (let i = 0; i < m; i++) {
+      const wki = w[k * m + i] ?? 0;
+      if (wki === 0) continue;
+      for (let j = 0; j < m; j++) out[i * m + j] = (out[i * m + j] ?? 0) + wki * (xw[k * m + j] ?? 0);
+    }
+  }
+  return out;
 }
 
 /** Column j of a row-major n×n matrix. */

@@ -6,16 +6,11 @@ import { repulsionMatrices } from './repulsion.js';
 /**
  * The dⁿ Hamiltonian H = B·H_B + C·H_C + Dq·V in the determinant basis: electron repulsion in
  * Racah's B and C (from the Slater–Condon matrices with F² = 49B + 7C, F⁴ = 441C/35) and the
- * cubic crystal field V per unit Dq (octahedral sign). The parts are built once per n and
- * cached, so one point costs an element-wise sum and a diagonalisation.
+ * cubic crystal field V per unit Dq (octahedral sign).
  */
 
-/** One symmetry block with the parts of the Hamiltonian and the spin Casimir. */
-export interface HamiltonianBlock extends BasisBlock {
-  /** M_L mod 4 of the block (the C₄(z) class); or M_L itself for a free-ion block. */
-  readonly k: number;
-  /** Twice M_S of the block. */
-  readonly twoMS: number;
+/** The parts of the Hamiltonian and the spin Casimir over a set of determinants. */
+export interface DeterminantBlock extends BasisBlock {
   /** ∂H/∂B, row-major. */
   readonly partB: Float64Array;
   /** ∂H/∂C, row-major. */
@@ -34,7 +29,11 @@ function twoMsOfMask(mask: number): number {
   return a;
 }
 
-function buildBlock(masks: number[], k: number, twoMS: number): HamiltonianBlock {
+/**
+ * Builds the parts over `masks`, which must be closed under H and S² (a block of fixed M_S and
+ * M_L mod 4, or all determinants).
+ */
+export function determinantBlock(masks: readonly number[]): DeterminantBlock {
   const block = basisBlock(masks);
   const [f2, f4] = repulsionMatrices(D, block);
   const size = masks.length * masks.length;
@@ -48,8 +47,6 @@ function buildBlock(masks: number[], k: number, twoMS: number): HamiltonianBlock
   }
   return {
     ...block,
-    k,
-    twoMS,
     partB,
     partC,
     partDq: oneBodyMatrix(block, octahedralFieldTerms()),
@@ -57,41 +54,26 @@ function buildBlock(masks: number[], k: number, twoMS: number): HamiltonianBlock
   };
 }
 
-const cubicCache = new Map<number, HamiltonianBlock[]>();
-
 /**
- * The four cubic blocks of dⁿ at the lowest M_S (0 or ½), one per M_L mod 4. That M_S holds one
- * component of every spin multiplet, so these blocks give every level; the crystal field
- * couples m_l = ±2 and so conserves M_L only mod 4. Cached per n.
+ * Determinants of dⁿ at the lowest M_S (0 or ½) grouped by M_L mod 4, for k = 0, 1, 2. That M_S
+ * holds one component of every spin multiplet; the crystal field couples m_l = ±2 and so
+ * conserves M_L only mod 4. The class k = 3 is the mirror image (m_l → −m_l, a symmetry of H)
+ * of k = 1 and has the same eigenvalues, so it is not needed.
  */
-export function cubicBlocks(n: number): HamiltonianBlock[] {
-  const cached = cubicCache.get(n);
-  if (cached) return cached;
+export function determinantClasses(n: number): number[][] {
   const twoMS = n % 2;
-  const byClass: number[][] = [[], [], [], []];
+  const byClass: number[][] = [[], [], []];
   for (const s of microstates(D, n)) {
     if (s.twoMS !== twoMS) continue;
     byClass[((s.ML % 4) + 4) % 4]?.push(s.mask);
   }
-  const blocks = byClass.map((masks, k) => buildBlock(masks, k, twoMS));
-  cubicCache.set(n, blocks);
-  return blocks;
-}
-
-/** H = B·H_B + C·H_C + Dq·V of one block, with `dq` the octahedral-sign Dq. */
-export function assemble(block: HamiltonianBlock, dq: number, B: number, C: number): Float64Array {
-  const size = block.partB.length;
-  const out = new Float64Array(size);
-  const { partB, partC, partDq } = block;
-  for (let i = 0; i < size; i++) {
-    out[i] = B * (partB[i] as number) + C * (partC[i] as number) + dq * (partDq[i] as number);
-  }
-  return out;
+  return byClass;
 }
 
 /**
- * The whole dⁿ Hamiltonian over all C(10, n) determinants with no use of symmetry: the slow,
- * obvious path that tests and the benchmark hold the blocked one against.
+ * H = B·H_B + C·H_C + Dq·V of the whole dⁿ over all C(10, n) determinants, with no use of
+ * symmetry: the slow, obvious path that tests and the benchmark hold the blocked one against.
+ * `dq` has the octahedral sign.
  */
 export function fullHamiltonian(
   n: number,
@@ -99,12 +81,16 @@ export function fullHamiltonian(
   B: number,
   C: number,
 ): { size: number; matrix: Float64Array } {
-  const masks = microstates(D, n).map((s) => s.mask);
-  const block = buildBlock(masks, -1, 0);
-  return { size: masks.length, matrix: assemble(block, dq, B, C) };
+  const block = determinantBlock(microstates(D, n).map((s) => s.mask));
+  const size = block.masks.length;
+  const matrix = new Float64Array(size * size);
+  for (let i = 0; i < matrix.length; i++) {
+    matrix[i] = B * (block.partB[i] ?? 0) + C * (block.partC[i] ?? 0) + dq * (block.partDq[i] ?? 0);
+  }
+  return { size, matrix };
 }
 
-/** The free-ion block of dⁿ (or any lⁿ through `l`) with M_L = 0 and the lowest M_S. */
+/** The free-ion block of lⁿ with M_L = 0 and the lowest M_S. */
 export function freeIonBlock(l: number, n: number): BasisBlock & { readonly twoMS: number } {
   const twoMS = n % 2;
   const masks = microstates(l, n)

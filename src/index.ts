@@ -14,6 +14,12 @@ export {
 } from './cubic.js';
 export { InputError } from './errors.js';
 export { type FreeIonTerm, freeIonTerms, freeIonTermsSlater } from './freeIon.js';
+export {
+  CROSSING_DEFAULTS,
+  type CrossingInput,
+  type GroundCrossing,
+  groundStateCrossings,
+} from './groundState.js';
 export { DEFAULT_C_OVER_B, FREE_IONS, type FreeIon, findIon, freeIonRatio } from './ions.js';
 export {
   configurationText,
@@ -28,6 +34,7 @@ export {
 } from './labels.js';
 export { binomial, type Microstate, microstates } from './microstates.js';
 export { type DSlaterIntegrals, slaterFromRacah } from './repulsion.js';
+export { brentRoot, DEFAULT_ROOT_TOLERANCE, type RootOptions } from './roots.js';
 export { branchTerm, CHARACTERS, CUBIC_IRREPS, type CubicIrrep, IRREP_DIMENSION } from './symmetry.js';
 export {
   type Configuration,

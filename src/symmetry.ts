@@ -62,19 +62,20 @@ export function branchTerm(L: number): Record<CubicIrrep, number> {
 /**
  * Decomposes a degenerate eigenspace of fixed S into irreps of O.
  *
- * `counts[k]` is the number of its basis vectors with M_L ≡ k (mod 4), i.e. the multiplicities
- * of the C₄(z) eigenvalues e^{−iπk/2}. A1 spans k = 0; A2, k = 2; E, k = 0 and 2; T1, k = 0, 1, 3;
- * T2, k = 2, 1, 3. These counts settle a single irrep except E against A1 + A2; where they leave a
- * choice the characters of C₂′ and C₃ settle it, and are only then computed.
+ * `counts[k]` (k = 0, 1, 2) is the number of its basis vectors with M_L ≡ k (mod 4), i.e. the
+ * multiplicities of the C₄(z) eigenvalues e^{−iπk/2} (k = 3 mirrors k = 1). A1 spans k = 0;
+ * A2, k = 2; E, k = 0 and 2; T1, k = 0, 1, 3; T2, k = 2, 1, 3. These counts settle a single
+ * irrep except E against A1 + A2, and T1 + A2 against T2 + A1; where they leave a choice,
+ * `chiC2p` (the character of one C₂′ rotation on the space) and `c3SumK0` (the trace of the sum of
+ * the eight C₃ rotations over the space's k = 0 part) settle it. They are only called then.
  * @throws Error when the numbers fit no decomposition (a numerical failure).
  */
 export function decomposeCubic(
-  counts: readonly [number, number, number, number],
+  counts: readonly [number, number, number],
   chiC2p: () => number,
-  chiC3: () => number,
+  c3SumK0: () => number,
 ): Record<CubicIrrep, number> {
-  const [n0, n1, n2, n3] = counts;
-  if (n1 !== n3) throw new Error(`cubic labelling: M_L classes 1 and 3 differ (${n1} vs ${n3})`);
+  const [n0, n1, n2] = counts;
   let t1: number;
   const t1Min = Math.max(0, n1 - n2);
   const t1Max = Math.min(n1, n0);
@@ -90,8 +91,9 @@ export function decomposeCubic(
   const y = n2 - t2;
   let e = 0;
   if (Math.min(x, y) > 0) {
-    // χ(C₃) = a1 + a2 − e = x + y − 3e.
-    e = integral((x + y - chiC3()) / 3, 'C3');
+    // The C₃ class sum acts on an irrep Γ as 8χ_Γ(C₃)/dim Γ: 8 on A1, −4 on E, 0 on T1 (the k = 0
+    // parts), so its trace over the k = 0 part is 8(x − e) − 4e.
+    e = integral((8 * x - c3SumK0()) / 12, 'C3');
   }
   const out = { A1: x - e, A2: y - e, E: e, T1: t1, T2: t2 };
   for (const v of Object.values(out)) {
@@ -107,13 +109,59 @@ function integral(x: number, what: string): number {
   return r;
 }
 
+/** A proper rotation of the cube as a 3×3 matrix (row-major), with its class. */
+export interface CubicRotation {
+  readonly matrix: readonly number[];
+  readonly cls: 'E' | 'C3' | 'C2' | 'C4' | 'C2p';
+}
+
 /**
- * Euler angles (z-y-z, active) of the two rotations used for characters: C₃ about [111]
- * (x → y → z → x) and C₂′ about [110]. Both are checked in the tests by leaving the cubic
- * crystal-field operator invariant.
+ * The 24 rotations of O: the signed permutation matrices of determinant +1. The class follows
+ * from the trace (1 + 2 cos θ) and, for θ = π, from whether the axis is a coordinate axis.
  */
-export const C3_EULER = [0, Math.PI / 2, Math.PI / 2] as const;
-export const C2P_EULER = [-Math.PI / 2, Math.PI, 0] as const;
+export function cubicRotations(): CubicRotation[] {
+  const out: CubicRotation[] = [];
+  const perms = [
+    [0, 1, 2],
+    [0, 2, 1],
+    [1, 0, 2],
+    [1, 2, 0],
+    [2, 0, 1],
+    [2, 1, 0],
+  ];
+  for (const perm of perms) {
+    for (let signs = 0; signs < 8; signs++) {
+      const m = new Array<number>(9).fill(0);
+      perm.forEach((col, row) => {
+        m[row * 3 + col] = signs & (1 << row) ? -1 : 1;
+      });
+      if (Math.abs(det3(m) - 1) > 1e-12) continue;
+      const trace = (m[0] ?? 0) + (m[4] ?? 0) + (m[8] ?? 0);
+      const diagonal = perm[0] === 0 && perm[1] === 1 && perm[2] === 2;
+      const cls = trace === 3 ? 'E' : trace === 0 ? 'C3' : trace === 1 ? 'C4' : diagonal ? 'C2' : 'C2p';
+      out.push({ matrix: m, cls });
+    }
+  }
+  return out;
+}
+
+function det3(m: readonly number[]): number {
+  const [a = 0, b = 0, c = 0, d = 0, e = 0, f = 0, g = 0, h = 0, i = 0] = m;
+  return a * (e * i - f * h) - b * (d * i - f * g) + c * (d * h - e * g);
+}
+
+/**
+ * Euler angles (z-y-z, active: R = R_z(α) R_y(β) R_z(γ)) of a rotation matrix, with γ = 0 where
+ * β = 0 or π leaves only one of α, γ defined.
+ */
+export function eulerAngles(m: readonly number[]): [number, number, number] {
+  const r = (i: number, j: number) => m[(i - 1) * 3 + (j - 1)] ?? 0;
+  const beta = Math.acos(Math.max(-1, Math.min(1, r(3, 3))));
+  if (Math.abs(Math.sin(beta)) > 1e-12)
+    return [Math.atan2(r(2, 3), r(1, 3)), beta, Math.atan2(r(3, 2), -r(3, 1))];
+  if (r(3, 3) > 0) return [Math.atan2(r(2, 1), r(1, 1)), 0, 0];
+  return [Math.atan2(-r(2, 1), -r(1, 1)), Math.PI, 0];
+}
 
 /**
  * Real part of ⟨D′|R|D⟩ within a block, for a spatial rotation R given by its one-electron
@@ -157,7 +205,8 @@ export function rotationBlock(l: number, block: BasisBlock, U: Complex[][]): Flo
   return out;
 }
 
-/** One-electron rotation matrix from Euler angles. */
-export function rotationOfShell(l: number, euler: readonly [number, number, number]): Complex[][] {
-  return wignerD(l, euler[0], euler[1], euler[2]);
+/** One-electron rotation matrix D^l of a rotation given as a 3×3 matrix. */
+export function rotationOfShell(l: number, matrix: readonly number[]): Complex[][] {
+  const [alpha, beta, gamma] = eulerAngles(matrix);
+  return wignerD(l, alpha, beta, gamma);
 }
