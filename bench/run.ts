@@ -1,0 +1,11 @@
+import { benchSolver } from './solver.js';
+
+/** `npm run bench`: every benchmark of the project, printed. Timings depend on the machine. */
+const benches: [string, () => void | Promise<void>][] = [['solver', benchSolver]];
+
+console.log(`termsplit benchmark — Node ${process.version}, ${new Date().toISOString().slice(0, 10)}\n`);
+for (const [name, bench] of benches) {
+  console.log(`── ${name} ──`);
+  await bench();
+  console.log('');
+}
