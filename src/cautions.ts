@@ -1,4 +1,6 @@
 import type { CubicResult } from './cubic.js';
+import { unicodeLabel } from './labels.js';
+import { halfIntegerText } from './terms.js';
 
 /**
  * Where the cubic model is known to mislead, in words a report can carry. The thresholds are
@@ -22,14 +24,14 @@ export function cubicCautions(result: CubicResult): Caution[] {
     out.push({
       code: 'jahn-teller',
       message:
-        `ground state ${g.symbol} is orbitally degenerate (E): Jahn–Teller active; real complexes distort ` +
+        `ground state ${unicodeLabel(g.symbol)} is orbitally degenerate (E): Jahn–Teller active; real complexes distort ` +
         '(usually tetragonally) and bands split or broaden, so cubic positions are averages at best',
     });
   } else if (g.cubicIrrep === 'T1' || g.cubicIrrep === 'T2') {
     out.push({
       code: 'jahn-teller',
       message:
-        `ground state ${g.symbol} is orbitally degenerate (T): weakly Jahn–Teller active and split by spin–orbit ` +
+        `ground state ${unicodeLabel(g.symbol)} is orbitally degenerate (T): weakly Jahn–Teller active and split by spin–orbit ` +
         'coupling, which this model leaves out; expect broadened bands and magnetic moments off the spin-only value',
     });
   }
@@ -38,24 +40,26 @@ export function cubicCautions(result: CubicResult): Caution[] {
     out.push({
       code: 'excited-jahn-teller',
       message:
-        `the lowest spin-allowed band goes to ${firstBand.label} (an E state): excited-state Jahn–Teller ` +
+        `the lowest spin-allowed band goes to ${unicodeLabel(firstBand.label)} (an E state): excited-state Jahn–Teller ` +
         'splitting often gives it two components or a shoulder',
     });
   }
   const high = result.levels.filter((l) => l.spinAllowed && l !== g && l.energy > CHARGE_TRANSFER_ONSET);
   if (high.length > 0) {
+    const named = high.slice(0, 3).map((l) => unicodeLabel(l.label));
+    const more = high.length > 3 ? ` and ${high.length - 3} more` : '';
     out.push({
       code: 'charge-transfer',
       message:
-        `${high.map((l) => l.label).join(', ')} predicted above ${CHARGE_TRANSFER_ONSET} cm⁻¹, where charge-transfer ` +
-        'and ligand bands often hide d–d bands',
+        `spin-allowed band${high.length > 1 ? 's' : ''} ${named.join(', ')}${more} predicted above ` +
+        `${CHARGE_TRANSFER_ONSET} cm⁻¹, where charge-transfer and ligand bands often hide d–d bands`,
     });
   }
   if (result.n >= 4 && result.n <= 7) {
     out.push({
       code: 'spin-state',
       message:
-        `d${result.n}: the ground state here is ${g.symbol} (S = ${g.S}); which spin state a real compound adopts ` +
+        `d${result.n}: the ground state here is ${unicodeLabel(g.symbol)} (S = ${halfIntegerText(g.S)}); which spin state a real compound adopts ` +
         'depends also on temperature, lattice and entropy — magnetic or Mössbauer measurement decides',
     });
   }

@@ -15,6 +15,11 @@ import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 import { geometryOption, ionOrCount, numberOption, ratioChoice, requiredNumber } from '../options.js';
 
+/** Bands above this (cm⁻¹; 200 nm) are left out of the band list, though not out of the level table. */
+const BAND_TABLE_LIMIT = 50000;
+
+const SINGLE = 'B and C play no part for one d electron or hole';
+
 /** Options of `termsplit levels`. */
 export interface LevelsOptions {
   ion?: string;
@@ -65,7 +70,7 @@ export function levelsFromOptions(opts: LevelsOptions): {
   const result = solveCubic({ n: choice.n, geometry, dq, B, C });
   return {
     result,
-    cOrigin: single ? 'not used (one d electron or hole)' : ratio.origin,
+    cOrigin: single ? SINGLE : ratio.origin,
     ...(choice.ion ? { ion: choice.ion.ion } : {}),
   };
 }
@@ -113,7 +118,7 @@ function levelsText(opts: LevelsOptions): string {
   const geometryName = result.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
   lines.push(
     `${ion ? `${ion} ` : ''}d${result.n}, ${geometryName}: Dq = ${fixed(result.dq)} cm⁻¹ (10Dq = ${fixed(10 * result.dq)}), ` +
-      `B = ${fixed(result.B)} cm⁻¹, C = ${fixed(result.C)} cm⁻¹ (C/B ${cOrigin === 'not used (one d electron or hole)' ? cOrigin : `${fixed(result.C / result.B, 2)}, ${cOrigin}`})`,
+      `B = ${fixed(result.B)} cm⁻¹, C = ${fixed(result.C)} cm⁻¹ (${cOrigin === SINGLE ? cOrigin : `C/B ${fixed(result.C / result.B, 2)}, ${cOrigin}`})`,
   );
   lines.push(
     `Ground state: ${unicodeLabel(g.label)} (S = ${halfIntegerText(g.S)}), from ${unicodeTerm(g.parent)}, ` +
