@@ -49,7 +49,7 @@ const ROLE_NAMES: Readonly<Record<SpinRole, string>> = {
   high: 'high spin',
   intermediate: 'intermediate spin',
   low: 'low spin',
-  only: '',
+  only: 'no spin crossover',
 };
 
 /** One entry of the legend drawn under the plot. */

@@ -116,7 +116,7 @@ export function oneElectronStates(n: number, geometry: Geometry = 'oct'): OneEle
  * high-spin one, per extra pair — d⁴ 6B + 5C, d⁵ 7.5B + 5C, d⁶ 2.5B + 4C, d⁷ 4B + 4C (Griffith,
  * The Theory of Transition-Metal Ions, 1961; reproduced in inorganic texts such as Huheey,
  * Inorganic Chemistry; from memory). These are the strong-field limit of the full model without
- * configuration interaction (test/crossover.test.ts checks this limit with the solver). A
+ * configuration interaction (test/lfse.test.ts checks this limit with the solver). A
  * tetrahedral dⁿ is the octahedral d¹⁰⁻ⁿ with the field reversed (hole equivalence), so it takes
  * that formula.
  */

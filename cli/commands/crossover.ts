@@ -29,7 +29,7 @@ import {
   unicodeConfiguration,
   unicodeLabel,
 } from '../../src/index.js';
-import { writeFileAtomic } from '../files.js';
+import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import { type Io, progress } from '../io.js';
 import { geometryOption, ratioChoice } from '../options.js';
@@ -225,6 +225,7 @@ export function crossoverCommand(
 ): string {
   const input = resolveInput(configText, opts);
   const format: FigureFormat | undefined = opts.output === undefined ? undefined : formatOfPath(opts.output);
+  if (opts.output !== undefined) checkOutputDirectory(resolve(io.cwd, opts.output));
   const sampleDq = energyOption('--dq', opts.dq);
   const { n, geometry, B, C, ion } = input;
   const analysis = crossoverAnalysis({ n, geometry, B, C });
@@ -341,7 +342,7 @@ export function crossoverCommand(
     `${ion ? `${ion.ion} ` : ''}d${n}, ${where}` +
       (single
         ? ''
-        : `: B = ${fixed(B)} cm⁻¹${input.sigmaB !== undefined ? ` ± ${fixed(input.sigmaB)}` : ''} (${input.bOrigin}), ` +
+        : `: B = ${fixed(B)}${input.sigmaB !== undefined ? ` ± ${fixed(input.sigmaB)}` : ''} cm⁻¹ (${input.bOrigin}), ` +
           `C = ${fixed(C)} cm⁻¹ (C/B = ${fixed(C / B, 2)}, ${input.cOrigin})`),
   );
   if (input.bOrigin.startsWith('free-ion') && analysis.crossings.length > 0) {
