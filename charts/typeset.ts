@@ -48,9 +48,17 @@ export function runsWidth(ctx: TextContext, runs: readonly TextRun[], size: numb
   return w;
 }
 
+/** Options of {@link drawRuns}. */
+export interface RunOptions {
+  /** Start the text at x, or centre it on x. @default 'center' */
+  readonly align?: 'left' | 'center';
+  /** Bold face. @default false */
+  readonly bold?: boolean;
+}
+
 /**
- * Draws the runs with their vertical centre at `y`, starting at `x` (`align` 'left') or
- * centred on it. Leaves the context's font and alignment changed.
+ * Draws the runs with their vertical centre at `y`, starting at `x` or centred on it. Leaves the
+ * context's font and alignment changed.
  */
 export function drawRuns(
   ctx: TextContext,
@@ -58,7 +66,7 @@ export function drawRuns(
   x: number,
   y: number,
   size: number,
-  options: { align?: 'left' | 'center'; bold?: boolean } = {},
+  options: RunOptions = {},
 ): void {
   const bold = options.bold ?? false;
   let cursor = options.align === 'left' ? x : x - runsWidth(ctx, runs, size, bold) / 2;

@@ -122,13 +122,12 @@ export function crossoverAnalysis(input: CrossoverInput, options: CrossoverOptio
       `d${n}, ${where}: no spin crossover — the ground state keeps S = ${halfIntegerText(ground.S)} ` +
       `(${unicodeLabel(ground.symbol)}) for every Δ/B up to ${maxDeltaOverB}`;
   }
-  const far = geometry === 'tet' ? crossings.filter((c) => c.tenDq > TETRAHEDRAL_DELTA_CEILING) : [];
-  const farthest = far[0];
-  const outOfReach = farthest
-    ? `tetrahedral d${n} changes spin only at Δt = ${farthest.tenDq.toFixed(0)} cm⁻¹ (Δ/B = ` +
-      `${farthest.deltaOverB.toFixed(1)}); ordinary tetrahedral 3d complexes have Δt below about ` +
+  const beyond = geometry === 'tet' ? crossings.find((c) => c.tenDq > TETRAHEDRAL_DELTA_CEILING) : undefined;
+  const outOfReach = beyond
+    ? `tetrahedral d${n} changes spin only at Δt = ${beyond.tenDq.toFixed(0)} cm⁻¹ (Δ/B = ` +
+      `${beyond.deltaOverB.toFixed(1)}); ordinary tetrahedral 3d complexes have Δt below about ` +
       `${TETRAHEDRAL_DELTA_CEILING} cm⁻¹ (Δt ≈ 4/9 Δo, so this is like Δo ≈ ` +
-      `${(farthest.tenDq / TETRAHEDRAL_TO_OCTAHEDRAL).toFixed(0)} cm⁻¹ for the same ligands in an octahedron): ` +
+      `${(beyond.tenDq / TETRAHEDRAL_TO_OCTAHEDRAL).toFixed(0)} cm⁻¹ for the same ligands in an octahedron): ` +
       'real tetrahedral complexes of this ion are expected to be high-spin, low-spin ones being rare exceptions'
     : undefined;
   return {

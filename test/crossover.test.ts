@@ -81,9 +81,14 @@ describe('crossoverAnalysis', () => {
   });
 
   it('states that d3, d8, d1 and d9 have no crossover, without an error', () => {
-    for (const n of [2, 3, 8]) {
+    for (const [n, S] of [
+      [2, 1],
+      [3, 1.5],
+      [8, 1],
+    ]) {
       const a = crossoverAnalysis({ n, B, C: 4.5 * B });
       expect(a.crossings).toEqual([]);
+      expect(a.weakFieldS).toBe(S);
       expect(a.statement).toMatch(/no spin crossover/);
     }
     for (const n of [1, 9])

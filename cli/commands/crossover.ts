@@ -3,7 +3,9 @@ import type { Command } from 'commander';
 import { renderGroundMap } from '../../charts/groundMap.js';
 import { type FigureFormat, formatOfPath } from '../../charts/render.js';
 import {
+  type Crossover,
   type CrossoverAnalysis,
+  type CrossoverCaution,
   crossoverAnalysis,
   crossoverCautions,
   type FreeIon,
@@ -16,13 +18,16 @@ import {
   impliedPairingEnergy,
   type MomentEstimate,
   momentEstimate,
+  NEAR_CROSSOVER_PERCENT,
   type OneElectronState,
+  type OneElectronStates,
   oneElectronStates,
   pairingCoefficients,
   pairingEnergy,
   parseConfiguration,
   parseEnergy,
   type SampleVerdict,
+  SETTLED_SIGMAS,
   sampleVerdict,
   solveCubic,
   TETRAHEDRAL_DELTA_CEILING,
@@ -217,6 +222,24 @@ function momentStates(analysis: CrossoverAnalysis, verdict: SampleVerdict | unde
   return out;
 }
 
+/** Everything the command reports, computed before anything is printed. */
+interface Report {
+  readonly input: Resolved;
+  readonly sampleSigmaDq?: number;
+  readonly analysis: CrossoverAnalysis;
+  readonly verdict?: SampleVerdict;
+  readonly states: OneElectronStates;
+  /** The crossover from the high-spin to the low-spin arrangement of the one-electron picture. */
+  readonly hsToLs?: Crossover;
+  readonly implied?: number;
+  readonly classroom?: number;
+  readonly coefficients?: { readonly B: number; readonly C: number };
+  readonly moments: readonly MomentEstimate[];
+  readonly cautions: readonly CrossoverCaution[];
+  /** The output path as given, when the map was written. */
+  readonly map?: string;
+}
+
 /** Builds the command's output (text or JSON) and writes the map if asked; errors leave stdout empty. */
 export function crossoverCommand(
   configText: string | undefined,
@@ -227,7 +250,7 @@ export function crossoverCommand(
   const format: FigureFormat | undefined = opts.output === undefined ? undefined : formatOfPath(opts.output);
   if (opts.output !== undefined) checkOutputDirectory(resolve(io.cwd, opts.output));
   const sampleDq = energyOption('--dq', opts.dq);
-  const { n, geometry, B, C, ion } = input;
+  const { n, geometry, B, C } = input;
   const analysis = crossoverAnalysis({ n, geometry, B, C });
   const verdict = sampleDq
     ? sampleVerdict(analysis, {
@@ -241,187 +264,222 @@ export function crossoverCommand(
   const implied = hsToLs ? impliedPairingEnergy(states, hsToLs.dq) : undefined;
   const classroom = B > 0 ? pairingEnergy(n, geometry, B, C) : undefined;
   const coefficients = pairingCoefficients(n, geometry);
-  const moments = momentStates(analysis, verdict);
-  const cautions = crossoverCautions(analysis);
-
-  let mapPath: string | undefined;
   if (opts.output !== undefined && format) {
-    const range = mapRange(analysis, verdict);
-    const bar = progress(io, 'ground-state map');
-    const map = groundStateMap(n, { geometry, ...range, onRow: (done, total) => bar.update(done, total) });
-    bar.end();
-    const sigmaDeltaOverB = verdict?.sigmaDeltaOverB;
-    const bytes = renderGroundMap(
-      map,
-      { format },
-      {
-        ...(B > 0 ? { cOverB: analysis.cOverB } : {}),
-        ...(analysis.outOfReach
-          ? {
-              limit: {
-                deltaOverB: TETRAHEDRAL_DELTA_CEILING / B,
-                label: `usual upper limit of Δt, ${TETRAHEDRAL_DELTA_CEILING} cm⁻¹ (B = ${fixed(B)})`,
-              },
-            }
-          : {}),
-        ...(verdict && B > 0
-          ? {
-              sample: {
-                deltaOverB: verdict.deltaOverB,
-                cOverB: analysis.cOverB,
-                ...(sigmaDeltaOverB ? { sigmaDeltaOverB } : {}),
-              },
-            }
-          : {}),
-      },
-    );
-    mapPath = resolve(io.cwd, opts.output);
-    writeFileAtomic(mapPath, bytes);
+    writeFileAtomic(resolve(io.cwd, opts.output), mapBytes(analysis, verdict, format, io));
   }
+  const report: Report = {
+    input,
+    ...(sampleDq?.sigma !== undefined ? { sampleSigmaDq: sampleDq.sigma } : {}),
+    analysis,
+    ...(verdict ? { verdict } : {}),
+    states,
+    ...(hsToLs ? { hsToLs } : {}),
+    ...(implied !== undefined ? { implied } : {}),
+    ...(classroom !== undefined ? { classroom } : {}),
+    ...(coefficients ? { coefficients } : {}),
+    moments: momentStates(analysis, verdict),
+    cautions: crossoverCautions(analysis),
+    ...(opts.output !== undefined ? { map: opts.output } : {}),
+  };
+  return opts.json ? jsonText(reportJson(report)) : reportText(report);
+}
 
-  if (opts.json) {
-    return jsonText({
-      ...(ion ? { ion: ion.ion } : {}),
-      n,
-      geometry,
-      B,
-      bOrigin: input.bOrigin,
-      C,
-      cOverB: B > 0 ? C / B : null,
-      cOrigin: input.cOrigin,
-      statement: analysis.statement,
-      crossings: analysis.crossings.map((c) => ({
-        dq: c.dq,
-        tenDq: c.tenDq,
-        deltaOverB: c.deltaOverB,
-        from: c.from,
-        to: c.to,
-        fromSymbol: c.fromSymbol,
-        toSymbol: c.toSymbol,
-        fromS: c.fromS,
-        toS: c.toS,
-      })),
-      outOfReach: analysis.outOfReach ?? null,
-      sample: verdict
+/** The ground-state map of the analysis with the sample marked, as file bytes. */
+function mapBytes(
+  analysis: CrossoverAnalysis,
+  verdict: SampleVerdict | undefined,
+  format: FigureFormat,
+  io: Io,
+): Buffer {
+  const { n, geometry, B } = analysis;
+  const bar = progress(io, 'ground-state map');
+  const map = groundStateMap(n, {
+    geometry,
+    ...mapRange(analysis, verdict),
+    onRow: (done, total) => bar.update(done, total),
+  });
+  bar.end();
+  const sigmaDeltaOverB = verdict?.sigmaDeltaOverB;
+  return renderGroundMap(
+    map,
+    { format },
+    {
+      ...(B > 0 ? { cOverB: analysis.cOverB } : {}),
+      ...(analysis.outOfReach
         ? {
-            dq: verdict.dq,
-            tenDq: verdict.tenDq,
-            deltaOverB: verdict.deltaOverB,
-            sigmaDq: sampleDq?.sigma ?? null,
-            sigmaB: input.sigmaB ?? null,
-            ground: verdict.ground,
-            groundSymbol: verdict.groundSymbol,
-            S: verdict.S,
-            side: verdict.side,
-            margin: verdict.margin ?? null,
-            sigma: verdict.sigma ?? null,
-            sigmas: verdict.sigmas ?? null,
-            settled: verdict.settled ?? null,
-            near: verdict.near ?? null,
-            other: verdict.other ?? null,
-            gap: verdict.gap ?? null,
+            limit: {
+              deltaOverB: TETRAHEDRAL_DELTA_CEILING / B,
+              label: `usual upper limit of Δt, ${TETRAHEDRAL_DELTA_CEILING} cm⁻¹ (B = ${fixed(B)})`,
+            },
           }
-        : null,
-      oneElectron: {
-        highSpin: states.highSpin,
-        lowSpin: states.lowSpin ?? null,
-        pairingFormula: coefficients ?? null,
-        pairingEstimate: classroom ?? null,
-        impliedPairing: implied ?? null,
-      },
-      magnetism: moments,
-      map: mapPath ?? null,
-      cautions: cautions.map((c) => c.message),
-    });
-  }
-
-  const lines: string[] = [];
-  const where = geometry === 'oct' ? 'octahedral' : 'tetrahedral';
-  const single = n === 1 || n === 9;
-  lines.push(
-    `${ion ? `${ion.ion} ` : ''}d${n}, ${where}` +
-      (single
-        ? ''
-        : `: B = ${fixed(B)}${input.sigmaB !== undefined ? ` ± ${fixed(input.sigmaB)}` : ''} cm⁻¹ (${input.bOrigin}), ` +
-          `C = ${fixed(C)} cm⁻¹ (C/B = ${fixed(C / B, 2)}, ${input.cOrigin})`),
+        : {}),
+      ...(verdict && B > 0
+        ? {
+            sample: {
+              deltaOverB: verdict.deltaOverB,
+              cOverB: analysis.cOverB,
+              ...(sigmaDeltaOverB ? { sigmaDeltaOverB } : {}),
+            },
+          }
+        : {}),
+    },
   );
+}
+
+function reportJson(r: Report) {
+  const { input, analysis, verdict, states } = r;
+  return {
+    ...(input.ion ? { ion: input.ion.ion } : {}),
+    n: input.n,
+    geometry: input.geometry,
+    B: input.B,
+    bOrigin: input.bOrigin,
+    C: input.C,
+    cOverB: input.B > 0 ? input.C / input.B : null,
+    cOrigin: input.cOrigin,
+    statement: analysis.statement,
+    weakFieldS: analysis.weakFieldS,
+    crossings: analysis.crossings.map((c) => ({
+      dq: c.dq,
+      tenDq: c.tenDq,
+      deltaOverB: c.deltaOverB,
+      from: c.from,
+      to: c.to,
+      fromSymbol: c.fromSymbol,
+      toSymbol: c.toSymbol,
+      fromS: c.fromS,
+      toS: c.toS,
+    })),
+    outOfReach: analysis.outOfReach ?? null,
+    sample: verdict
+      ? {
+          dq: verdict.dq,
+          tenDq: verdict.tenDq,
+          deltaOverB: verdict.deltaOverB,
+          sigmaDq: r.sampleSigmaDq ?? null,
+          sigmaB: input.sigmaB ?? null,
+          ground: verdict.ground,
+          groundSymbol: verdict.groundSymbol,
+          S: verdict.S,
+          side: verdict.side,
+          margin: verdict.margin ?? null,
+          sigma: verdict.sigma ?? null,
+          sigmas: verdict.sigmas ?? null,
+          settled: verdict.settled ?? null,
+          near: verdict.near ?? null,
+          other: verdict.other ?? null,
+          gap: verdict.gap ?? null,
+        }
+      : null,
+    oneElectron: {
+      highSpin: states.highSpin,
+      lowSpin: states.lowSpin ?? null,
+      pairingFormula: r.coefficients ?? null,
+      pairingEstimate: r.classroom ?? null,
+      impliedPairing: r.implied ?? null,
+    },
+    magnetism: r.moments,
+    map: r.map ?? null,
+    cautions: r.cautions.map((c) => c.message),
+  };
+}
+
+/** Indents every line of a block by two spaces. */
+function indent(block: string): string {
+  return block
+    .split('\n')
+    .map((l) => `  ${l}`)
+    .join('\n');
+}
+
+function headerLines(r: Report): string[] {
+  const { input, analysis } = r;
+  const { n, ion, B, C } = input;
+  const where = input.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
+  const sigmaB = input.sigmaB !== undefined ? ` ± ${fixed(input.sigmaB)}` : '';
+  const lines = [
+    `${ion ? `${ion.ion} ` : ''}d${n}, ${where}` +
+      (n === 1 || n === 9
+        ? ''
+        : `: B = ${fixed(B)}${sigmaB} cm⁻¹ (${input.bOrigin}), C = ${fixed(C)} cm⁻¹ ` +
+          `(C/B = ${fixed(C / B, 2)}, ${input.cOrigin})`),
+  ];
   if (input.bOrigin.startsWith('free-ion') && analysis.crossings.length > 0) {
     lines.push(
       '  Note: B is the free-ion value. B of a complex is smaller (β = B/B₀ < 1), so the crossover Dq and 10Dq in cm⁻¹ ' +
         'below are too high by 1/β; Δc/B depends only on C/B and holds for any B. Give --B for the complex.',
     );
   }
-  lines.push('');
-  lines.push('Spin-state crossover (full dⁿ calculation, exact root):');
-  lines.push(`  ${analysis.statement}`);
-  if (analysis.crossings.length > 0) {
+  return lines;
+}
+
+function crossingLines(analysis: CrossoverAnalysis): string[] {
+  const lines = ['Spin-state crossover (full dⁿ calculation, exact root):', `  ${analysis.statement}`];
+  const first = analysis.crossings[0];
+  if (first) {
+    const rows = analysis.crossings.map((c) => [
+      `${unicodeLabel(c.from)} (S = ${halfIntegerText(c.fromS)})`,
+      `${unicodeLabel(c.to)} (S = ${halfIntegerText(c.toS)})`,
+      fixed(c.dq),
+      fixed(c.tenDq),
+      fixed(c.deltaOverB, 2),
+    ]);
+    lines.push(indent(table(['from', 'to', 'Dq / cm⁻¹', '10Dq / cm⁻¹', 'Δ/B'], rows)));
     lines.push(
-      table(
-        ['from', 'to', 'Dq / cm⁻¹', '10Dq / cm⁻¹', 'Δ/B'],
-        analysis.crossings.map((c) => [
-          `${unicodeLabel(c.from)} (S = ${halfIntegerText(c.fromS)})`,
-          `${unicodeLabel(c.to)} (S = ${halfIntegerText(c.toS)})`,
-          fixed(c.dq),
-          fixed(c.tenDq),
-          fixed(c.deltaOverB, 2),
-        ]),
-      )
-        .split('\n')
-        .map((l) => `  ${l}`)
-        .join('\n'),
-    );
-    lines.push(
-      `  Δc/B depends only on C/B: the crossover Dq scales linearly with B (Dq_c = ${fixed(
-        (analysis.crossings[0]?.deltaOverB ?? 0) / 10,
-        3,
-      )} × B here).`,
+      '  Δc/B depends only on C/B: the crossover Dq scales linearly with B ' +
+        `(Dq_c = ${fixed(first.deltaOverB / 10, 3)} × B here).`,
     );
   }
   if (analysis.outOfReach) lines.push(`  Out of reach: ${analysis.outOfReach}.`);
+  return lines;
+}
 
-  if (verdict) {
-    lines.push('');
-    const spread = sampleDq?.sigma !== undefined ? ` ± ${fixed(sampleDq.sigma)}` : '';
-    lines.push(
-      `Sample: Dq = ${fixed(verdict.dq)}${spread} cm⁻¹ (10Dq = ${fixed(verdict.tenDq)}` +
-        `${Number.isFinite(verdict.deltaOverB) ? `, Δ/B = ${fixed(verdict.deltaOverB, 2)}` : ''}): ground state ` +
-        `${unicodeLabel(verdict.ground)} (S = ${halfIntegerText(verdict.S)})`,
-    );
-    if (verdict.side === 'no-crossover' || !verdict.margin || !verdict.crossing) {
-      lines.push('  no crossover for this dⁿ: the spin state does not depend on Δ');
-    } else {
-      const m = verdict.margin;
-      lines.push(
-        `  ${verdict.side} side: ${signed(m.dq)} cm⁻¹ in Dq from the crossover (${signed(m.tenDq)} cm⁻¹ in 10Dq, ` +
-          `${signed(m.percent, 1)} % of Δc = ${fixed(verdict.crossing.tenDq)} cm⁻¹)`,
-      );
-      if (verdict.sigma) {
-        const s = verdict.sigma;
-        lines.push(
-          `  uncertainty of the margin: ± ${fixed(s.dq)} cm⁻¹ in Dq (± ${fixed(s.tenDq)} in 10Dq, ± ${fixed(s.percent, 1)} %), ` +
-            `i.e. ${fixed(verdict.sigmas ?? 0, 1)} σ from the crossover: ` +
-            (verdict.settled
-              ? 'the side is settled by these parameters'
-              : 'within 2σ — these parameters do not settle the side'),
-        );
-      }
-      if (verdict.other !== undefined && verdict.gap !== undefined) {
-        lines.push(
-          `  the lowest state of the other spin, ${unicodeLabel(verdict.other)}, lies ${fixed(verdict.gap)} cm⁻¹ above the ground state`,
-        );
-      }
-      if (verdict.near) {
-        lines.push(
-          '  close to the crossover (within 10 % of Δc, rule of thumb): a spin-crossover candidate at most — see the cautions',
-        );
-      }
-    }
+function sampleLines(r: Report, verdict: SampleVerdict): string[] {
+  const spread = r.sampleSigmaDq !== undefined ? ` ± ${fixed(r.sampleSigmaDq)}` : '';
+  const ratio = Number.isFinite(verdict.deltaOverB) ? `, Δ/B = ${fixed(verdict.deltaOverB, 2)}` : '';
+  const lines = [
+    `Sample: Dq = ${fixed(verdict.dq)}${spread} cm⁻¹ (10Dq = ${fixed(verdict.tenDq)}${ratio}): ground state ` +
+      `${unicodeLabel(verdict.ground)} (S = ${halfIntegerText(verdict.S)})`,
+  ];
+  const { margin: m, crossing, sigma: s } = verdict;
+  if (!m || !crossing) {
+    lines.push('  no crossover for this dⁿ: the spin state does not depend on Δ');
+    return lines;
   }
+  lines.push(
+    `  ${verdict.side} side: ${signed(m.dq)} cm⁻¹ in Dq from the crossover (${signed(m.tenDq)} cm⁻¹ in 10Dq, ` +
+      `${signed(m.percent, 1)} % of Δc = ${fixed(crossing.tenDq)} cm⁻¹)`,
+  );
+  if (s) {
+    lines.push(
+      `  uncertainty of the margin: ± ${fixed(s.dq)} cm⁻¹ in Dq (± ${fixed(s.tenDq)} in 10Dq, ± ${fixed(s.percent, 1)} %), ` +
+        `i.e. ${fixed(verdict.sigmas ?? 0, 1)} σ from the crossover: ` +
+        (verdict.settled
+          ? 'the side is settled by these parameters'
+          : `within ${SETTLED_SIGMAS}σ — these parameters do not settle the side`),
+    );
+  }
+  if (verdict.other !== undefined && verdict.gap !== undefined) {
+    lines.push(
+      `  the lowest state of the other spin, ${unicodeLabel(verdict.other)}, lies ${fixed(verdict.gap)} cm⁻¹ above the ground state`,
+    );
+  }
+  if (verdict.near) {
+    lines.push(
+      `  close to the crossover (within ${NEAR_CROSSOVER_PERCENT} % of Δc, rule of thumb): ` +
+        'a spin-crossover candidate at most — see the cautions',
+    );
+  }
+  return lines;
+}
 
-  lines.push('');
-  lines.push(`One-electron picture${states.lowSpin ? ' (the classroom rule: low spin when Δ > Π)' : ''}:`);
-  const rows = [states.highSpin, ...(states.lowSpin ? [states.lowSpin] : [])].map((s) => [
-    states.lowSpin ? spinName(s.spin) : 'only arrangement',
+function oneElectronLines(r: Report): string[] {
+  const { states, verdict, hsToLs, implied, classroom, coefficients } = r;
+  const { B, geometry, n } = r.input;
+  const ls = states.lowSpin;
+  const lines = [`One-electron picture${ls ? ' (the classroom rule: low spin when Δ > Π)' : ''}:`];
+  const rows = [states.highSpin, ...(ls ? [ls] : [])].map((s) => [
+    ls ? spinName(s.spin) : 'only arrangement',
     unicodeConfiguration(s.configuration),
     lfseText(s),
     lfseAt(s, verdict?.dq ?? hsToLs?.dq),
@@ -429,53 +487,53 @@ export function crossoverCommand(
     halfIntegerText(s.S),
   ]);
   const lfseHeader = verdict ? 'LFSE at sample / cm⁻¹' : hsToLs ? 'LFSE at Dq_c / cm⁻¹' : 'LFSE / cm⁻¹';
+  lines.push(indent(table(['state', 'configuration', 'LFSE', lfseHeader, 'unpaired', 'S'], rows)));
   lines.push(
-    table(['state', 'configuration', 'LFSE', lfseHeader, 'unpaired', 'S'], rows)
-      .split('\n')
-      .map((l) => `  ${l}`)
-      .join('\n'),
+    `  LFSE: ${geometry === 'oct' ? 't₂g −4Dq, e_g +6Dq' : 'e −6Dq, t₂ +4Dq (Dq of the tetrahedron)'}; ` +
+      'Π counts the pairs beyond the high-spin arrangement.',
   );
-  lines.push(
-    `  LFSE: ${geometry === 'oct' ? 't₂g −4Dq, e_g +6Dq' : 'e −6Dq, t₂ +4Dq (Dq of the tetrahedron)'}; Π counts the pairs beyond the high-spin arrangement.`,
-  );
-  if (states.lowSpin && implied !== undefined && hsToLs) {
+  if (!ls) {
+    lines.push(
+      `  d${n} ${geometry === 'oct' ? 'octahedral' : 'tetrahedral'}: one arrangement only, no choice of spin.`,
+    );
+    return lines;
+  }
+  if (implied !== undefined) {
     lines.push(
       `  Π implied by the full calculation at its crossover: Π = Δc = ${fixed(implied)} cm⁻¹ (${fixed(implied / B, 2)} B).`,
     );
   }
-  if (states.lowSpin && classroom !== undefined && coefficients) {
-    const gap =
+  if (classroom !== undefined && coefficients) {
+    const off =
       implied !== undefined
         ? ` — ${signed((100 * (classroom - implied)) / implied, 1)} % from the full result`
         : '';
     lines.push(
       `  Π from B and C, ${coefficients.B}B + ${coefficients.C}C (Griffith 1961): ${fixed(classroom)} cm⁻¹ ` +
-        `(${fixed(classroom / B, 2)} B), so the rule Δ > Π puts the crossover at Δ = ${fixed(classroom)} cm⁻¹${gap}; ` +
+        `(${fixed(classroom / B, 2)} B), so the rule Δ > Π puts the crossover at Δ = ${fixed(classroom)} cm⁻¹${off}; ` +
         'the full calculation also mixes configurations, which the rule leaves out.',
     );
   }
-  if (!states.lowSpin) lines.push(`  d${n} ${where}: one arrangement only, no choice of spin.`);
+  return lines;
+}
 
-  lines.push('');
-  lines.push('Spin-only moments, μ_so = √(4S(S+1)) μ_B:');
-  for (const m of moments) {
-    lines.push(
-      `  ${unicodeLabel(m.state)}  S = ${halfIntegerText(m.S)}  μ_so = ${fixed(m.spinOnly, 2)} μ_B — ${m.note}`,
-    );
-  }
-  if (mapPath) {
-    lines.push('');
-    lines.push(`Ground-state map written to ${opts.output}.`);
-  }
-  if (cautions.length > 0) {
-    lines.push('');
-    lines.push('Cautions:');
-    // The tetrahedral note is printed with the crossover already.
-    for (const c of cautions) if (c.code !== 'tetrahedral') lines.push(`  - ${c.message}`);
-  }
-  lines.push('');
-  lines.push(
+function reportText(r: Report): string {
+  const sections = [headerLines(r), crossingLines(r.analysis)];
+  if (r.verdict) sections.push(sampleLines(r, r.verdict));
+  sections.push(oneElectronLines(r));
+  sections.push([
+    'Spin-only moments, μ_so = √(4S(S+1)) μ_B:',
+    ...r.moments.map(
+      (m) =>
+        `  ${unicodeLabel(m.state)}  S = ${halfIntegerText(m.S)}  μ_so = ${fixed(m.spinOnly, 2)} μ_B — ${m.note}`,
+    ),
+  ]);
+  if (r.map !== undefined) sections.push([`Ground-state map written to ${r.map}.`]);
+  // The tetrahedral note is printed with the crossover already.
+  const cautions = r.cautions.filter((c) => c.code !== 'tetrahedral');
+  if (cautions.length > 0) sections.push(['Cautions:', ...cautions.map((c) => `  - ${c.message}`)]);
+  sections.push([
     'The model places the crossover; measurement (magnetometry, Mössbauer spectroscopy) decides the spin state.',
-  );
-  return `${lines.join('\n')}\n`;
+  ]);
+  return `${sections.map((lines) => lines.join('\n')).join('\n\n')}\n`;
 }
