@@ -18,8 +18,8 @@ export function writeFileAtomic(path: string, data: string | Uint8Array, makeDir
     } catch (e) {
       throw new InputError(`cannot create directory ${dir}: ${reason(e)}`);
     }
-  } else if (!existsSync(dir) || !statSync(dir).isDirectory()) {
-    throw new InputError(`cannot write ${path}: directory ${dir} does not exist`);
+  } else {
+    checkOutputDirectory(path);
   }
   const temp = `${path}.${randomBytes(4).toString('hex')}.tmp`;
   try {
@@ -28,6 +28,17 @@ export function writeFileAtomic(path: string, data: string | Uint8Array, makeDir
   } catch (e) {
     rmSync(temp, { force: true });
     throw new InputError(`cannot write ${path}: ${reason(e)}`);
+  }
+}
+
+/**
+ * Checks that the directory of an output path exists, so a command can refuse before long work.
+ * @throws InputError naming the path.
+ */
+export function checkOutputDirectory(path: string): void {
+  const dir = dirname(path);
+  if (!existsSync(dir) || !statSync(dir).isDirectory()) {
+    throw new InputError(`cannot write ${path}: directory ${dir} does not exist`);
   }
 }
 

@@ -1,5 +1,6 @@
 import { Command, CommanderError } from 'commander';
 import { InputError } from '../src/index.js';
+import { registerCrossover } from './commands/crossover.js';
 import { registerDemo } from './commands/demo.js';
 import { registerIons } from './commands/ions.js';
 import { registerLevels } from './commands/levels.js';
@@ -21,7 +22,8 @@ export function buildProgram(io: Io): Command {
     .showHelpAfterError('(run with --help for usage)')
     .configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) })
     .exitOverride();
-  for (const register of [registerTerms, registerLevels, registerIons, registerDemo]) register(program, io);
+  for (const register of [registerTerms, registerLevels, registerIons, registerDemo, registerCrossover])
+    register(program, io);
   for (const c of program.commands)
     c.exitOverride().configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) });
   return program;

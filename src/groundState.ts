@@ -17,8 +17,12 @@ export interface GroundCrossing {
   readonly deltaOverB: number;
   /** Ground-state label just below the change (smaller Dq), e.g. `5T2g`. */
   readonly from: string;
-  /** Ground-state label just above it, e.g. `1A1g`. */
+  /** Ground-state label just above it, e.g. `1A1g(I)`. */
   readonly to: string;
+  /** Plain ²ˢ⁺¹Γ of {@link from}, without the parent term, e.g. `5T2g`. */
+  readonly fromSymbol: string;
+  /** Plain ²ˢ⁺¹Γ of {@link to}, e.g. `1A1g`. */
+  readonly toSymbol: string;
   readonly fromS: number;
   readonly toS: number;
 }
@@ -92,6 +96,8 @@ export function groundStateCrossings(input: CrossingInput): GroundCrossing[] {
         deltaOverB: (10 * root) / B,
         from: prev.ground.label,
         to: cur.ground.label,
+        fromSymbol: prev.ground.symbol,
+        toSymbol: cur.ground.symbol,
         fromS: sLow,
         toS: sHigh,
       });

@@ -4,6 +4,25 @@
  */
 export { type Complex, gaunt, threeJ, wignerD, wignerSmallD } from './angular.js';
 export { type Caution, CHARGE_TRANSFER_ONSET, cubicCautions } from './cautions.js';
+export {
+  type Crossover,
+  type CrossoverAnalysis,
+  type CrossoverCaution,
+  type CrossoverInput,
+  type CrossoverOptions,
+  crossoverAnalysis,
+  crossoverCautions,
+  type Margin,
+  NEAR_CROSSOVER_PERCENT,
+  type SampleParameters,
+  type SampleVerdict,
+  SETTLED_SIGMAS,
+  type SpinSide,
+  sampleVerdict,
+  TETRAHEDRAL_DELTA_CEILING,
+  TETRAHEDRAL_TO_OCTAHEDRAL,
+  type VerdictOptions,
+} from './crossover.js';
 export { octahedralFieldMatrix } from './crystalField.js';
 export {
   type ConfigurationWeight,
@@ -14,6 +33,15 @@ export {
 } from './cubic.js';
 export { InputError } from './errors.js';
 export { type FreeIonTerm, freeIonTerms, freeIonTermsSlater } from './freeIon.js';
+export {
+  GROUND_MAP_DEFAULTS,
+  type GroundMapOptions,
+  type GroundStateMap,
+  groundStateMap,
+  MAP_B,
+  type MapRow,
+  type MapSegment,
+} from './groundMap.js';
 export {
   CROSSING_DEFAULTS,
   type CrossingInput,
@@ -32,6 +60,22 @@ export {
   unicodeLabel,
   unicodeTerm,
 } from './labels.js';
+export {
+  impliedPairingEnergy,
+  type OneElectronState,
+  type OneElectronStates,
+  ORBITAL_ENERGY_DQ,
+  oneElectronStates,
+  pairingCoefficients,
+  pairingEnergy,
+} from './lfse.js';
+export {
+  type MomentEstimate,
+  momentEstimate,
+  type OrbitalContribution,
+  SPIN_ONLY_G,
+  spinOnlyMoment,
+} from './magnetism.js';
 export { binomial, type Microstate, microstates } from './microstates.js';
 export { type DSlaterIntegrals, slaterFromRacah } from './repulsion.js';
 export { brentRoot, DEFAULT_ROOT_TOLERANCE, type RootOptions } from './roots.js';

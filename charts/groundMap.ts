@@ -1,0 +1,375 @@
+import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
+import { type GroundStateMap, type MapRow, type MapSegment, pairingCoefficients } from '../src/index.js';
+import { type FigureOptions, renderChart } from './render.js';
+import { drawRuns, runsWidth, stateLabelRuns } from './typeset.js';
+
+/**
+ * The ground-state map as a figure: regions of each spin state over Δ/B (x) and C/B (y), the
+ * exact crossover line, the one-electron rule Δ = Π for comparison, the C/B in use and the sample.
+ */
+
+/** What to mark on the map besides the regions. */
+export interface GroundMapMarks {
+  /** The sample, at its Δ/B and C/B; `sigmaDeltaOverB` draws a horizontal error bar. */
+  readonly sample?: {
+    readonly deltaOverB: number;
+    readonly cOverB: number;
+    readonly sigmaDeltaOverB?: number;
+    readonly label?: string;
+  };
+  /** A C/B to mark with a dashed line (the ratio the crossover was computed at). */
+  readonly cOverB?: number;
+  /** A Δ/B to mark with a vertical line and its legend text, e.g. the largest Δt of real tetrahedral complexes. */
+  readonly limit?: { readonly deltaOverB: number; readonly label: string };
+  /** Figure title. @default e.g. "d⁶, octahedral: lowest spin state" */
+  readonly title?: string;
+}
+
+/** Fill colours of the regions by spin role (light, and of different lightness so greyscale prints keep them apart). */
+export const REGION_COLOURS = {
+  high: '#f7c98f',
+  intermediate: '#c9e3bf',
+  low: '#a9c6ea',
+  only: '#e4e4e4',
+} as const;
+
+type SpinRole = keyof typeof REGION_COLOURS;
+
+const SUPERSCRIPT_DIGITS = '⁰¹²³⁴⁵⁶⁷⁸⁹';
+
+function roleOf(S: number, map: GroundStateMap): SpinRole {
+  const spins = map.states.map((s) => s.S);
+  if (spins.length < 2) return 'only';
+  if (S === Math.max(...spins)) return 'high';
+  if (S === Math.min(...spins)) return 'low';
+  return 'intermediate';
+}
+
+const ROLE_NAMES: Readonly<Record<SpinRole, string>> = {
+  high: 'high spin',
+  intermediate: 'intermediate spin',
+  low: 'low spin',
+  only: 'no spin crossover',
+};
+
+/** One entry of the legend drawn under the plot. */
+interface LegendEntry {
+  readonly text: string;
+  readonly kind: 'line' | 'point';
+  readonly colour: string;
+  readonly fill?: string;
+  readonly dash?: readonly number[];
+  readonly width: number;
+}
+
+const LEGEND_COLUMNS = 2;
+const LEGEND_ROW = 26;
+const LEGEND_FONT = 15;
+
+function spinText(S: number): string {
+  return Number.isInteger(S) ? String(S) : `${Math.round(2 * S)}/2`;
+}
+
+/** Rows with the same sequence of states can be joined by polygons; others by steps. */
+function sameStructure(a: MapRow, b: MapRow): boolean {
+  return (
+    a.segments.length === b.segments.length && a.segments.every((s, i) => s.symbol === b.segments[i]?.symbol)
+  );
+}
+
+/** The chart.js configuration of a ground-state map. */
+export function groundMapChart(map: GroundStateMap, marks: GroundMapMarks = {}): ChartConfiguration {
+  const rows = map.rows;
+  const first = rows[0];
+  const last = rows.at(-1);
+  if (!first || !last) throw new Error('a ground-state map has at least one row');
+  const yMin = first.cOverB;
+  const yMax = last.cOverB === first.cOverB ? first.cOverB + 1 : last.cOverB;
+  const colourOf = (S: number) => REGION_COLOURS[roleOf(S, map)];
+  const datasets: ChartDataset<'scatter'>[] = [];
+  const legend: LegendEntry[] = [];
+  const line = (
+    label: string,
+    data: { x: number; y: number }[],
+    colour: string,
+    width: number,
+    dash?: number[],
+  ) => {
+    datasets.push({
+      label,
+      data,
+      showLine: true,
+      borderColor: colour,
+      backgroundColor: colour,
+      borderWidth: width,
+      pointRadius: 0,
+      ...(dash ? { borderDash: dash } : {}),
+    });
+  };
+  const maxCrossings = Math.max(...rows.map((r) => r.crossings.length));
+  for (let k = 0; k < maxCrossings; k++) {
+    const data = rows.flatMap((r) => {
+      const c = r.crossings[k];
+      return c ? [{ x: c.deltaOverB, y: r.cOverB }] : [];
+    });
+    line('crossover', data, '#111111', 2.5);
+  }
+  if (maxCrossings > 0)
+    legend.push({ text: 'crossover, full calculation', kind: 'line', colour: '#111111', width: 2.5 });
+  const pairing = pairingCoefficients(map.n, map.geometry);
+  if (pairing && maxCrossings > 0) {
+    // Δc = Π = kB·B + kC·C, i.e. Δc/B = kB + kC·(C/B): a straight line on the map.
+    const dash = [9, 6];
+    line(
+      'one-electron rule',
+      [yMin, yMax].map((y) => ({ x: pairing.B + pairing.C * y, y })),
+      '#444444',
+      2,
+      dash,
+    );
+    legend.push({
+      text: `one-electron rule Δ = Π, Π = ${pairing.B}B + ${pairing.C}C`,
+      kind: 'line',
+      colour: '#444444',
+      width: 2,
+      dash,
+    });
+  }
+  if (marks.cOverB !== undefined) {
+    const dash = [2, 4];
+    line(
+      'C/B',
+      [
+        { x: 0, y: marks.cOverB },
+        { x: map.maxDeltaOverB, y: marks.cOverB },
+      ],
+      '#1f4e99',
+      2,
+      dash,
+    );
+    legend.push({
+      text: `C/B = ${marks.cOverB.toFixed(2)}`,
+      kind: 'line',
+      colour: '#1f4e99',
+      width: 2,
+      dash,
+    });
+  }
+  if (marks.limit) {
+    const dash = [12, 4, 2, 4];
+    line(
+      'limit',
+      [
+        { x: marks.limit.deltaOverB, y: yMin },
+        { x: marks.limit.deltaOverB, y: yMax },
+      ],
+      '#8b1a1a',
+      2,
+      dash,
+    );
+    legend.push({ text: marks.limit.label, kind: 'line', colour: '#8b1a1a', width: 2, dash });
+  }
+  const sample = marks.sample;
+  if (sample) {
+    datasets.push({
+      label: 'sample',
+      data: [{ x: sample.deltaOverB, y: sample.cOverB }],
+      pointStyle: 'circle',
+      pointRadius: 6,
+      pointBorderWidth: 2,
+      borderColor: '#000000',
+      backgroundColor: '#d62728',
+    });
+    const spread = sample.sigmaDeltaOverB ? ` ± ${sample.sigmaDeltaOverB.toFixed(1)}` : '';
+    legend.push({
+      text: sample.label ?? `sample, Δ/B = ${sample.deltaOverB.toFixed(1)}${spread}`,
+      kind: 'point',
+      colour: '#000000',
+      fill: '#d62728',
+      width: 2,
+    });
+  }
+  const legendRows = Math.ceil(legend.length / LEGEND_COLUMNS);
+  const regions: Plugin<'scatter'> = {
+    id: 'termsplitGroundRegions',
+    // Before the grid (scales are laid out by then), so grid lines show over the fills.
+    beforeDraw(chart) {
+      const { ctx, chartArea, scales } = chart;
+      const px = (x: number) => scales.x?.getPixelForValue(x) ?? 0;
+      const py = (y: number) => scales.y?.getPixelForValue(y) ?? 0;
+      ctx.save();
+      ctx.beginPath();
+      ctx.rect(
+        chartArea.left,
+        chartArea.top,
+        chartArea.right - chartArea.left,
+        chartArea.bottom - chartArea.top,
+      );
+      ctx.clip();
+      const fill = (s: MapSegment, points: readonly [number, number][]) => {
+        ctx.fillStyle = colourOf(s.S);
+        ctx.beginPath();
+        points.forEach(([x, y], i) => {
+          if (i === 0) ctx.moveTo(px(x), py(y));
+          else ctx.lineTo(px(x), py(y));
+        });
+        ctx.closePath();
+        ctx.fill();
+        // A hairline of the same colour closes the seams antialiasing leaves between polygons.
+        ctx.strokeStyle = ctx.fillStyle;
+        ctx.lineWidth = 1;
+        ctx.stroke();
+      };
+      const band = (row: MapRow, y0: number, y1: number) => {
+        for (const s of row.segments) {
+          fill(s, [
+            [s.from, y0],
+            [s.to, y0],
+            [s.to, y1],
+            [s.from, y1],
+          ]);
+        }
+      };
+      if (rows.length === 1) band(first, yMin, yMax);
+      for (let i = 0; i + 1 < rows.length; i++) {
+        const a = rows[i];
+        const b = rows[i + 1];
+        if (!a || !b) continue;
+        if (sameStructure(a, b)) {
+          a.segments.forEach((s, j) => {
+            const t = b.segments[j];
+            if (!t) return;
+            fill(s, [
+              [s.from, a.cOverB],
+              [s.to, a.cOverB],
+              [t.to, b.cOverB],
+              [t.from, b.cOverB],
+            ]);
+          });
+        } else {
+          const mid = (a.cOverB + b.cOverB) / 2;
+          band(a, a.cOverB, mid);
+          band(b, mid, b.cOverB);
+        }
+      }
+      ctx.restore();
+    },
+    afterDatasetsDraw(chart) {
+      const { ctx, scales } = chart;
+      const px = (x: number) => scales.x?.getPixelForValue(x) ?? 0;
+      const py = (y: number) => scales.y?.getPixelForValue(y) ?? 0;
+      ctx.save();
+      // Region names in the upper part of the map, clear of the C/B line and sample in the middle.
+      const labelRow = rows[Math.round(0.8 * (rows.length - 1))] ?? first;
+      for (const s of labelRow.segments) {
+        const x = px((s.from + s.to) / 2);
+        const y = py(labelRow.cOverB);
+        const name = ROLE_NAMES[roleOf(s.S, map)];
+        const state = [...stateLabelRuns(s.symbol), { text: `,  S = ${spinText(s.S)}` }];
+        const nameRuns = [{ text: name }];
+        // A patch of the region's own colour behind the text keeps lines from running through it.
+        const w = Math.max(runsWidth(ctx, state, 17), name ? runsWidth(ctx, nameRuns, 18, true) : 0) + 16;
+        ctx.fillStyle = colourOf(s.S);
+        ctx.fillRect(x - w / 2, y - (name ? 28 : 14), w, name ? 56 : 28);
+        ctx.fillStyle = '#111111';
+        if (name) drawRuns(ctx, nameRuns, x, y - 13, 18, { bold: true });
+        drawRuns(ctx, state, x, name ? y + 13 : y, 17);
+      }
+      if (sample?.sigmaDeltaOverB) {
+        const y = py(sample.cOverB);
+        const x0 = px(sample.deltaOverB - sample.sigmaDeltaOverB);
+        const x1 = px(sample.deltaOverB + sample.sigmaDeltaOverB);
+        ctx.strokeStyle = '#000000';
+        ctx.lineWidth = 1.8;
+        ctx.beginPath();
+        ctx.moveTo(x0, y);
+        ctx.lineTo(x1, y);
+        for (const x of [x0, x1]) {
+          ctx.moveTo(x, y - 6);
+          ctx.lineTo(x, y + 6);
+        }
+        ctx.stroke();
+      }
+      ctx.restore();
+    },
+    afterDraw(chart) {
+      if (legend.length === 0) return;
+      const { ctx, chartArea, height } = chart;
+      ctx.save();
+      const columnWidth = (chartArea.right - chartArea.left) / LEGEND_COLUMNS;
+      const top = height - legendRows * LEGEND_ROW - 6;
+      legend.forEach((entry, i) => {
+        const x = chartArea.left + (i % LEGEND_COLUMNS) * columnWidth + 8;
+        const y = top + Math.floor(i / LEGEND_COLUMNS) * LEGEND_ROW + LEGEND_ROW / 2;
+        ctx.strokeStyle = entry.colour;
+        ctx.lineWidth = entry.width;
+        ctx.setLineDash(entry.dash ? [...entry.dash] : []);
+        ctx.beginPath();
+        if (entry.kind === 'line') {
+          ctx.moveTo(x, y);
+          ctx.lineTo(x + 44, y);
+          ctx.stroke();
+        } else {
+          ctx.fillStyle = entry.fill ?? entry.colour;
+          ctx.arc(x + 22, y, 6, 0, 2 * Math.PI);
+          ctx.fill();
+          ctx.stroke();
+        }
+        ctx.setLineDash([]);
+        ctx.fillStyle = '#111111';
+        drawRuns(ctx, [{ text: entry.text }], x + 54, y, LEGEND_FONT, { align: 'left' });
+      });
+      ctx.restore();
+    },
+  };
+  const where = map.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
+  const dn = `d${[...String(map.n)].map((c) => SUPERSCRIPT_DIGITS[Number(c)]).join('')}`;
+  const axis = (text: string) => ({ display: true, text, font: { size: 17 } });
+  return {
+    type: 'scatter',
+    data: { datasets },
+    options: {
+      layout: { padding: { left: 8, right: 24, top: 4, bottom: 8 + legendRows * LEGEND_ROW } },
+      scales: {
+        x: {
+          type: 'linear',
+          min: 0,
+          max: map.maxDeltaOverB,
+          title: axis('Δ/B   (Δ = 10Dq)'),
+          ticks: { font: { size: 15 } },
+          grid: { color: 'rgba(0,0,0,0.14)' },
+        },
+        y: {
+          type: 'linear',
+          min: yMin,
+          max: yMax,
+          title: axis('C/B'),
+          ticks: { font: { size: 15 } },
+          grid: { color: 'rgba(0,0,0,0.14)' },
+        },
+      },
+      plugins: {
+        title: {
+          display: true,
+          text: marks.title ?? `${dn}, ${where}: lowest spin state`,
+          font: { size: 19, weight: 'bold' },
+        },
+        legend: { display: false },
+        tooltip: { enabled: false },
+      },
+    },
+    plugins: [regions],
+  };
+}
+
+/** The map rendered to PNG, SVG or PDF bytes. */
+export function renderGroundMap(
+  map: GroundStateMap,
+  figure: FigureOptions,
+  marks: GroundMapMarks = {},
+): Buffer {
+  return renderChart(groundMapChart(map, marks) as ChartConfiguration, {
+    ...figure,
+    title: figure.title ?? marks.title ?? `termsplit ground-state map, d${map.n} ${map.geometry}`,
+  });
+}

@@ -1,0 +1,539 @@
+import { resolve } from 'node:path';
+import type { Command } from 'commander';
+import { renderGroundMap } from '../../charts/groundMap.js';
+import { type FigureFormat, formatOfPath } from '../../charts/render.js';
+import {
+  type Crossover,
+  type CrossoverAnalysis,
+  type CrossoverCaution,
+  crossoverAnalysis,
+  crossoverCautions,
+  type FreeIon,
+  findIon,
+  type Geometry,
+  GROUND_MAP_DEFAULTS,
+  groundStateMap,
+  halfIntegerText,
+  InputError,
+  impliedPairingEnergy,
+  type MomentEstimate,
+  momentEstimate,
+  NEAR_CROSSOVER_PERCENT,
+  type OneElectronState,
+  type OneElectronStates,
+  oneElectronStates,
+  pairingCoefficients,
+  pairingEnergy,
+  parseConfiguration,
+  parseEnergy,
+  type SampleVerdict,
+  SETTLED_SIGMAS,
+  sampleVerdict,
+  solveCubic,
+  TETRAHEDRAL_DELTA_CEILING,
+  unicodeConfiguration,
+  unicodeLabel,
+} from '../../src/index.js';
+import { checkOutputDirectory, writeFileAtomic } from '../files.js';
+import { fixed, jsonText, table } from '../format.js';
+import { type Io, progress } from '../io.js';
+import { geometryOption, ratioChoice } from '../options.js';
+
+/** Options of `termsplit crossover`. */
+export interface CrossoverCommandOptions {
+  ion?: string;
+  B?: string;
+  C?: string;
+  cb?: string;
+  geometry?: string;
+  dq?: string;
+  output?: string;
+  json?: boolean;
+}
+
+/** `termsplit crossover`: the high-spin/low-spin crossover, the sample's side, LFSE, spin-only moments, map. */
+export function registerCrossover(program: Command, io: Io): void {
+  program
+    .command('crossover')
+    .description(
+      'high-spin/low-spin crossover of dⁿ: where it lies, which side a sample is on, LFSE and pairing, spin-only moments, map',
+    )
+    .argument('[config]', 'd-electron configuration such as d6 (optional with --ion)')
+    .option('--ion <name>', 'the metal ion, e.g. Co3+ (gives n, and B and C/B when not given)')
+    .option('--B <cm-1>', 'Racah B of the complex, cm⁻¹, optionally ±σ (default: the free-ion B of --ion)')
+    .option('--C <cm-1>', 'Racah C of the complex, cm⁻¹')
+    .option('--cb <ratio>', 'C/B instead of --C (default: the free-ion ratio of the ion, else 4.5)')
+    .option('--geometry <oct|tet>', 'octahedral or tetrahedral', 'oct')
+    .option('--dq <cm-1>', "the sample's Dq, optionally ±σ (e.g. 2300±60), for its side of the crossover")
+    .option('-o, --output <file>', 'write the ground-state map to a .png, .svg or .pdf file')
+    .option('--json', 'print one JSON object on stdout')
+    .action((configText: string | undefined, opts: CrossoverCommandOptions) => {
+      io.out(crossoverCommand(configText, opts, io));
+    });
+}
+
+/** A value with its uncertainty, from an option such as `--dq 2300±60`. */
+function energyOption(name: string, text: string | undefined): { value: number; sigma?: number } | undefined {
+  if (text === undefined) return undefined;
+  try {
+    return parseEnergy(text);
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError(`${name}: ${e.message}`);
+    throw e;
+  }
+}
+
+/** n and the ion from the positional configuration and/or --ion, checked against each other. */
+function electronCount(
+  configText: string | undefined,
+  ionText: string | undefined,
+): { n: number; ion?: FreeIon } {
+  const ion = ionText === undefined ? undefined : findIon(ionText);
+  if (configText === undefined) {
+    if (!ion) throw new InputError('give the configuration (e.g. d6) or the ion (--ion Co3+)');
+    return { n: ion.n, ion };
+  }
+  const config = parseConfiguration(configText);
+  if (config.l !== 2 || config.n < 1 || config.n > 9) {
+    throw new InputError(`configuration "${configText}": expected d1 to d9`);
+  }
+  if (ion && ion.n !== config.n) {
+    throw new InputError(`configuration ${config.text} disagrees with --ion ${ion.ion}, which is d${ion.n}`);
+  }
+  return ion ? { n: config.n, ion } : { n: config.n };
+}
+
+interface Resolved {
+  readonly n: number;
+  readonly ion?: FreeIon;
+  readonly geometry: Geometry;
+  readonly B: number;
+  readonly sigmaB?: number;
+  readonly bOrigin: string;
+  readonly cOrigin: string;
+  readonly C: number;
+}
+
+function resolveInput(configText: string | undefined, opts: CrossoverCommandOptions): Resolved {
+  const { n, ion } = electronCount(configText, opts.ion);
+  const geometry = geometryOption(opts.geometry);
+  const single = n === 1 || n === 9;
+  const givenB = energyOption('--B', opts.B);
+  let B: number;
+  let bOrigin: string;
+  if (givenB) {
+    B = givenB.value;
+    bOrigin = 'given';
+  } else if (ion?.B !== undefined) {
+    B = ion.B;
+    bOrigin = `free-ion B of ${ion.ion}; --B not given`;
+  } else if (single) {
+    B = 0;
+    bOrigin = 'not used (one d electron or hole)';
+  } else {
+    throw new InputError(
+      `d${n}: give --B (Racah B of the complex, cm⁻¹)${ion ? '' : ' or --ion to use its free-ion B'}`,
+    );
+  }
+  if (single) {
+    return {
+      n,
+      geometry,
+      B,
+      C: 0,
+      bOrigin,
+      cOrigin: 'not used (one d electron or hole)',
+      ...(ion ? { ion } : {}),
+    };
+  }
+  const ratio = ratioChoice(B, opts.C, opts.cb, ion);
+  return {
+    n,
+    geometry,
+    B,
+    C: ratio.cOverB * B,
+    bOrigin,
+    cOrigin: ratio.origin,
+    ...(givenB?.sigma !== undefined ? { sigmaB: givenB.sigma } : {}),
+    ...(ion ? { ion } : {}),
+  };
+}
+
+/** The C/B and Δ/B extent of the map: the default range, widened to hold the sample and crossovers. */
+function mapRange(analysis: CrossoverAnalysis, verdict: SampleVerdict | undefined) {
+  const d = GROUND_MAP_DEFAULTS;
+  const k = analysis.cOverB;
+  const minCOverB = Number.isFinite(k) ? Math.min(d.minCOverB, Math.floor(2 * (k - 0.5)) / 2) : d.minCOverB;
+  const maxCOverB = Number.isFinite(k) ? Math.max(d.maxCOverB, Math.ceil(2 * (k + 0.5)) / 2) : d.maxCOverB;
+  const reach = [
+    ...analysis.crossings.map((c) => 1.3 * c.deltaOverB),
+    verdict && Number.isFinite(verdict.deltaOverB) ? 1.15 * verdict.deltaOverB : 0,
+  ];
+  const maxDeltaOverB = Math.max(d.maxDeltaOverB, Math.ceil(Math.max(...reach) / 10) * 10);
+  // Rows every 0.25 in C/B, as in the default range.
+  const rows = Math.round((maxCOverB - minCOverB) / 0.25) + 1;
+  return { minCOverB, maxCOverB, maxDeltaOverB, rows };
+}
+
+function spinName(s: OneElectronState['spin']): string {
+  return s === 'high-spin' ? 'high spin' : 'low spin';
+}
+
+/** The Π term of an LFSE, e.g. ` + 2Π`, or nothing for the high-spin arrangement. */
+function pairsText(s: OneElectronState): string {
+  return s.extraPairs === 0 ? '' : ` + ${s.extraPairs === 1 ? '' : s.extraPairs}Π`;
+}
+
+/** The LFSE in units of Dq, e.g. `−24Dq + 2Π`. */
+function lfseText(s: OneElectronState): string {
+  return `${s.lfseDq < 0 ? '−' : ''}${Math.abs(s.lfseDq)}Dq${pairsText(s)}`;
+}
+
+/** The LFSE in cm⁻¹ at `dq`, with its Π term left symbolic. */
+function lfseAt(s: OneElectronState, dq: number | undefined): string {
+  return dq === undefined ? '—' : `${fixed(s.lfseDq * dq)}${pairsText(s)}`;
+}
+
+/** A number with its sign always shown (ASCII, so values copy into other programs). */
+function signed(x: number, digits = 0): string {
+  const t = fixed(Math.abs(x), digits);
+  return x < 0 ? `-${t}` : `+${t}`;
+}
+
+/** The states whose moments the output lists: both sides of each crossover, or the one ground state. */
+function momentStates(analysis: CrossoverAnalysis, verdict: SampleVerdict | undefined): MomentEstimate[] {
+  const { n, geometry, B, C } = analysis;
+  const labels = new Set<string>();
+  const out: MomentEstimate[] = [];
+  const add = (dq: number, label?: string) => {
+    const r = solveCubic({ n, geometry, dq, B, C });
+    const level = label ? r.levels.find((l) => l.label === label) : r.ground;
+    if (level && !labels.has(level.symbol)) {
+      labels.add(level.symbol);
+      out.push(momentEstimate({ ...level, label: level.symbol }));
+    }
+  };
+  for (const c of analysis.crossings) {
+    add(c.dq, c.from);
+    add(c.dq, c.to);
+  }
+  // Without a crossover the ground spin is the same at every Dq; Δ/B = 10 stands for any.
+  if (analysis.crossings.length === 0) add(verdict?.dq ?? (B > 0 ? B : 1000));
+  return out;
+}
+
+/** Everything the command reports, computed before anything is printed. */
+interface Report {
+  readonly input: Resolved;
+  readonly sampleSigmaDq?: number;
+  readonly analysis: CrossoverAnalysis;
+  readonly verdict?: SampleVerdict;
+  readonly states: OneElectronStates;
+  /** The crossover from the high-spin to the low-spin arrangement of the one-electron picture. */
+  readonly hsToLs?: Crossover;
+  readonly implied?: number;
+  readonly classroom?: number;
+  readonly coefficients?: { readonly B: number; readonly C: number };
+  readonly moments: readonly MomentEstimate[];
+  readonly cautions: readonly CrossoverCaution[];
+  /** The output path as given, when the map was written. */
+  readonly map?: string;
+}
+
+/** Builds the command's output (text or JSON) and writes the map if asked; errors leave stdout empty. */
+export function crossoverCommand(
+  configText: string | undefined,
+  opts: CrossoverCommandOptions,
+  io: Io,
+): string {
+  const input = resolveInput(configText, opts);
+  const format: FigureFormat | undefined = opts.output === undefined ? undefined : formatOfPath(opts.output);
+  if (opts.output !== undefined) checkOutputDirectory(resolve(io.cwd, opts.output));
+  const sampleDq = energyOption('--dq', opts.dq);
+  const { n, geometry, B, C } = input;
+  const analysis = crossoverAnalysis({ n, geometry, B, C });
+  const verdict = sampleDq
+    ? sampleVerdict(analysis, {
+        dq: sampleDq.value,
+        ...(sampleDq.sigma !== undefined ? { sigmaDq: sampleDq.sigma } : {}),
+        ...(input.sigmaB !== undefined ? { sigmaB: input.sigmaB } : {}),
+      })
+    : undefined;
+  const states = oneElectronStates(n, geometry);
+  const hsToLs = analysis.crossings.find((c) => c.fromS === states.highSpin.S && c.toS === states.lowSpin?.S);
+  const implied = hsToLs ? impliedPairingEnergy(states, hsToLs.dq) : undefined;
+  const classroom = B > 0 ? pairingEnergy(n, geometry, B, C) : undefined;
+  const coefficients = pairingCoefficients(n, geometry);
+  if (opts.output !== undefined && format) {
+    writeFileAtomic(resolve(io.cwd, opts.output), mapBytes(analysis, verdict, format, io));
+  }
+  const report: Report = {
+    input,
+    ...(sampleDq?.sigma !== undefined ? { sampleSigmaDq: sampleDq.sigma } : {}),
+    analysis,
+    ...(verdict ? { verdict } : {}),
+    states,
+    ...(hsToLs ? { hsToLs } : {}),
+    ...(implied !== undefined ? { implied } : {}),
+    ...(classroom !== undefined ? { classroom } : {}),
+    ...(coefficients ? { coefficients } : {}),
+    moments: momentStates(analysis, verdict),
+    cautions: crossoverCautions(analysis),
+    ...(opts.output !== undefined ? { map: opts.output } : {}),
+  };
+  return opts.json ? jsonText(reportJson(report)) : reportText(report);
+}
+
+/** The ground-state map of the analysis with the sample marked, as file bytes. */
+function mapBytes(
+  analysis: CrossoverAnalysis,
+  verdict: SampleVerdict | undefined,
+  format: FigureFormat,
+  io: Io,
+): Buffer {
+  const { n, geometry, B } = analysis;
+  const bar = progress(io, 'ground-state map');
+  const map = groundStateMap(n, {
+    geometry,
+    ...mapRange(analysis, verdict),
+    onRow: (done, total) => bar.update(done, total),
+  });
+  bar.end();
+  const sigmaDeltaOverB = verdict?.sigmaDeltaOverB;
+  return renderGroundMap(
+    map,
+    { format },
+    {
+      ...(B > 0 ? { cOverB: analysis.cOverB } : {}),
+      ...(analysis.outOfReach
+        ? {
+            limit: {
+              deltaOverB: TETRAHEDRAL_DELTA_CEILING / B,
+              label: `usual upper limit of Δt, ${TETRAHEDRAL_DELTA_CEILING} cm⁻¹ (B = ${fixed(B)})`,
+            },
+          }
+        : {}),
+      ...(verdict && B > 0
+        ? {
+            sample: {
+              deltaOverB: verdict.deltaOverB,
+              cOverB: analysis.cOverB,
+              ...(sigmaDeltaOverB ? { sigmaDeltaOverB } : {}),
+            },
+          }
+        : {}),
+    },
+  );
+}
+
+function reportJson(r: Report) {
+  const { input, analysis, verdict, states } = r;
+  return {
+    ...(input.ion ? { ion: input.ion.ion } : {}),
+    n: input.n,
+    geometry: input.geometry,
+    B: input.B,
+    bOrigin: input.bOrigin,
+    C: input.C,
+    cOverB: input.B > 0 ? input.C / input.B : null,
+    cOrigin: input.cOrigin,
+    statement: analysis.statement,
+    weakFieldS: analysis.weakFieldS,
+    crossings: analysis.crossings.map((c) => ({
+      dq: c.dq,
+      tenDq: c.tenDq,
+      deltaOverB: c.deltaOverB,
+      from: c.from,
+      to: c.to,
+      fromSymbol: c.fromSymbol,
+      toSymbol: c.toSymbol,
+      fromS: c.fromS,
+      toS: c.toS,
+    })),
+    outOfReach: analysis.outOfReach ?? null,
+    sample: verdict
+      ? {
+          dq: verdict.dq,
+          tenDq: verdict.tenDq,
+          deltaOverB: verdict.deltaOverB,
+          sigmaDq: r.sampleSigmaDq ?? null,
+          sigmaB: input.sigmaB ?? null,
+          ground: verdict.ground,
+          groundSymbol: verdict.groundSymbol,
+          S: verdict.S,
+          side: verdict.side,
+          margin: verdict.margin ?? null,
+          sigma: verdict.sigma ?? null,
+          sigmas: verdict.sigmas ?? null,
+          settled: verdict.settled ?? null,
+          near: verdict.near ?? null,
+          other: verdict.other ?? null,
+          gap: verdict.gap ?? null,
+        }
+      : null,
+    oneElectron: {
+      highSpin: states.highSpin,
+      lowSpin: states.lowSpin ?? null,
+      pairingFormula: r.coefficients ?? null,
+      pairingEstimate: r.classroom ?? null,
+      impliedPairing: r.implied ?? null,
+    },
+    magnetism: r.moments,
+    map: r.map ?? null,
+    cautions: r.cautions.map((c) => c.message),
+  };
+}
+
+/** Indents every line of a block by two spaces. */
+function indent(block: string): string {
+  return block
+    .split('\n')
+    .map((l) => `  ${l}`)
+    .join('\n');
+}
+
+function headerLines(r: Report): string[] {
+  const { input, analysis } = r;
+  const { n, ion, B, C } = input;
+  const where = input.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
+  const sigmaB = input.sigmaB !== undefined ? ` ± ${fixed(input.sigmaB)}` : '';
+  const lines = [
+    `${ion ? `${ion.ion} ` : ''}d${n}, ${where}` +
+      (n === 1 || n === 9
+        ? ''
+        : `: B = ${fixed(B)}${sigmaB} cm⁻¹ (${input.bOrigin}), C = ${fixed(C)} cm⁻¹ ` +
+          `(C/B = ${fixed(C / B, 2)}, ${input.cOrigin})`),
+  ];
+  if (input.bOrigin.startsWith('free-ion') && analysis.crossings.length > 0) {
+    lines.push(
+      '  Note: B is the free-ion value. B of a complex is smaller (β = B/B₀ < 1), so the crossover Dq and 10Dq in cm⁻¹ ' +
+        'below are too high by 1/β; Δc/B depends only on C/B and holds for any B. Give --B for the complex.',
+    );
+  }
+  return lines;
+}
+
+function crossingLines(analysis: CrossoverAnalysis): string[] {
+  const lines = ['Spin-state crossover (full dⁿ calculation, exact root):', `  ${analysis.statement}`];
+  const first = analysis.crossings[0];
+  if (first) {
+    const rows = analysis.crossings.map((c) => [
+      `${unicodeLabel(c.from)} (S = ${halfIntegerText(c.fromS)})`,
+      `${unicodeLabel(c.to)} (S = ${halfIntegerText(c.toS)})`,
+      fixed(c.dq),
+      fixed(c.tenDq),
+      fixed(c.deltaOverB, 2),
+    ]);
+    lines.push(indent(table(['from', 'to', 'Dq / cm⁻¹', '10Dq / cm⁻¹', 'Δ/B'], rows)));
+    lines.push(
+      '  Δc/B depends only on C/B: the crossover Dq scales linearly with B ' +
+        `(Dq_c = ${fixed(first.deltaOverB / 10, 3)} × B here).`,
+    );
+  }
+  if (analysis.outOfReach) lines.push(`  Out of reach: ${analysis.outOfReach}.`);
+  return lines;
+}
+
+function sampleLines(r: Report, verdict: SampleVerdict): string[] {
+  const spread = r.sampleSigmaDq !== undefined ? ` ± ${fixed(r.sampleSigmaDq)}` : '';
+  const ratio = Number.isFinite(verdict.deltaOverB) ? `, Δ/B = ${fixed(verdict.deltaOverB, 2)}` : '';
+  const lines = [
+    `Sample: Dq = ${fixed(verdict.dq)}${spread} cm⁻¹ (10Dq = ${fixed(verdict.tenDq)}${ratio}): ground state ` +
+      `${unicodeLabel(verdict.ground)} (S = ${halfIntegerText(verdict.S)})`,
+  ];
+  const { margin: m, crossing, sigma: s } = verdict;
+  if (!m || !crossing) {
+    lines.push('  no crossover for this dⁿ: the spin state does not depend on Δ');
+    return lines;
+  }
+  lines.push(
+    `  ${verdict.side} side: ${signed(m.dq)} cm⁻¹ in Dq from the crossover (${signed(m.tenDq)} cm⁻¹ in 10Dq, ` +
+      `${signed(m.percent, 1)} % of Δc = ${fixed(crossing.tenDq)} cm⁻¹)`,
+  );
+  if (s) {
+    lines.push(
+      `  uncertainty of the margin: ± ${fixed(s.dq)} cm⁻¹ in Dq (± ${fixed(s.tenDq)} in 10Dq, ± ${fixed(s.percent, 1)} %), ` +
+        `i.e. ${fixed(verdict.sigmas ?? 0, 1)} σ from the crossover: ` +
+        (verdict.settled
+          ? 'the side is settled by these parameters'
+          : `within ${SETTLED_SIGMAS}σ — these parameters do not settle the side`),
+    );
+  }
+  if (verdict.other !== undefined && verdict.gap !== undefined) {
+    lines.push(
+      `  the lowest state of the other spin, ${unicodeLabel(verdict.other)}, lies ${fixed(verdict.gap)} cm⁻¹ above the ground state`,
+    );
+  }
+  if (verdict.near) {
+    lines.push(
+      `  close to the crossover (within ${NEAR_CROSSOVER_PERCENT} % of Δc, rule of thumb): ` +
+        'a spin-crossover candidate at most — see the cautions',
+    );
+  }
+  return lines;
+}
+
+function oneElectronLines(r: Report): string[] {
+  const { states, verdict, hsToLs, implied, classroom, coefficients } = r;
+  const { B, geometry, n } = r.input;
+  const ls = states.lowSpin;
+  const lines = [`One-electron picture${ls ? ' (the classroom rule: low spin when Δ > Π)' : ''}:`];
+  const rows = [states.highSpin, ...(ls ? [ls] : [])].map((s) => [
+    ls ? spinName(s.spin) : 'only arrangement',
+    unicodeConfiguration(s.configuration),
+    lfseText(s),
+    lfseAt(s, verdict?.dq ?? hsToLs?.dq),
+    String(s.unpaired),
+    halfIntegerText(s.S),
+  ]);
+  const lfseHeader = verdict ? 'LFSE at sample / cm⁻¹' : hsToLs ? 'LFSE at Dq_c / cm⁻¹' : 'LFSE / cm⁻¹';
+  lines.push(indent(table(['state', 'configuration', 'LFSE', lfseHeader, 'unpaired', 'S'], rows)));
+  lines.push(
+    `  LFSE: ${geometry === 'oct' ? 't₂g −4Dq, e_g +6Dq' : 'e −6Dq, t₂ +4Dq (Dq of the tetrahedron)'}; ` +
+      'Π counts the pairs beyond the high-spin arrangement.',
+  );
+  if (!ls) {
+    lines.push(
+      `  d${n} ${geometry === 'oct' ? 'octahedral' : 'tetrahedral'}: one arrangement only, no choice of spin.`,
+    );
+    return lines;
+  }
+  if (implied !== undefined) {
+    lines.push(
+      `  Π implied by the full calculation at its crossover: Π = Δc = ${fixed(implied)} cm⁻¹ (${fixed(implied / B, 2)} B).`,
+    );
+  }
+  if (classroom !== undefined && coefficients) {
+    const off =
+      implied !== undefined
+        ? ` — ${signed((100 * (classroom - implied)) / implied, 1)} % from the full result`
+        : '';
+    lines.push(
+      `  Π from B and C, ${coefficients.B}B + ${coefficients.C}C (Griffith 1961): ${fixed(classroom)} cm⁻¹ ` +
+        `(${fixed(classroom / B, 2)} B), so the rule Δ > Π puts the crossover at Δ = ${fixed(classroom)} cm⁻¹${off}; ` +
+        'the full calculation also mixes configurations, which the rule leaves out.',
+    );
+  }
+  return lines;
+}
+
+function reportText(r: Report): string {
+  const sections = [headerLines(r), crossingLines(r.analysis)];
+  if (r.verdict) sections.push(sampleLines(r, r.verdict));
+  sections.push(oneElectronLines(r));
+  sections.push([
+    'Spin-only moments, μ_so = √(4S(S+1)) μ_B:',
+    ...r.moments.map(
+      (m) =>
+        `  ${unicodeLabel(m.state)}  S = ${halfIntegerText(m.S)}  μ_so = ${fixed(m.spinOnly, 2)} μ_B — ${m.note}`,
+    ),
+  ]);
+  if (r.map !== undefined) sections.push([`Ground-state map written to ${r.map}.`]);
+  // The tetrahedral note is printed with the crossover already.
+  const cautions = r.cautions.filter((c) => c.code !== 'tetrahedral');
+  if (cautions.length > 0) sections.push(['Cautions:', ...cautions.map((c) => `  - ${c.message}`)]);
+  sections.push([
+    'The model places the crossover; measurement (magnetometry, Mössbauer spectroscopy) decides the spin state.',
+  ]);
+  return `${sections.map((lines) => lines.join('\n')).join('\n\n')}\n`;
+}
