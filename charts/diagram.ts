@@ -1,5 +1,5 @@
 import type { SKRSContext2D } from '@napi-rs/canvas';
-import type { Chart, ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
+import type { Chart, ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
 import { ensure } from '../src/errors.js';
 import { type CorrelationDiagram, type DiagramCurve, halfIntegerText } from '../src/index.js';
 import { drawKey, spinKey } from './key.js';
@@ -10,6 +10,7 @@ import { STYLE } from './style.js';
 import {
   chartContext,
   drawRuns,
+  ionMarkup,
   markupRuns,
   measureRuns,
   runsHeight,
@@ -35,6 +36,8 @@ export interface DiagramChartOptions {
   readonly eMax?: number;
   /** A sample to mark on the diagram (see {@link withSample}). */
   readonly sample?: SampleMark;
+  /** The ion's name for the title, e.g. `Cr3+`. */
+  readonly ion?: string;
   /** Receives the labels placed in the figure each time it is drawn (to list or check them). */
   readonly onLabels?: (labels: readonly DiagramLabel[]) => void;
 }
@@ -90,6 +93,11 @@ function allowedIn(diagram: CorrelationDiagram, curve: DiagramCurve, r: number):
   return diagram.regions[r]?.S === curve.S;
 }
 
+/** Whether a curve is spin-allowed on some side of the diagram (and so must be named). */
+function everAllowed(diagram: CorrelationDiagram, curve: DiagramCurve): boolean {
+  return diagram.regions.some((r) => r.S === curve.S);
+}
+
 /**
  * The chart.js configuration of a correlation diagram (type `scatter` with lines, x = Δ/B,
  * y = E/B), with the in-figure labels as a plugin and the sample, if given, drawn on it.
@@ -104,9 +112,10 @@ export function diagramChart(
   const xs = diagram.deltaOverB;
   // Segment i runs from point i to i + 1; its style follows the spin region of its middle.
   const segmentRegion = xs.slice(1).map((x, i) => regionIndex(diagram, ((xs[i] ?? 0) + x) / 2));
-  const everAllowed = (c: DiagramCurve) => diagram.regions.some((_, r) => allowedIn(diagram, c, r));
   // chart.js draws the first dataset on top: the spin-allowed curves go first.
-  const curves = [...diagram.curves].sort((a, b) => Number(everAllowed(b)) - Number(everAllowed(a)));
+  const curves = [...diagram.curves].sort(
+    (a, b) => Number(everAllowed(diagram, b)) - Number(everAllowed(diagram, a)),
+  );
   const datasets = curves.map((curve) => {
     const style = (i: number) => {
       const r = segmentRegion[i] ?? 0;
@@ -167,7 +176,7 @@ export function diagramChart(
         },
       },
     },
-    plugins: [regionBackdrop(diagram), diagramLabels(diagram, options.onLabels)],
+    plugins: [regionBackdrop(diagram), diagramLabels(diagram, options.ion, options.onLabels)],
   };
   return options.sample ? withSample(config, options.sample) : config;
 }
@@ -181,19 +190,24 @@ export function renderDiagram(
   figure: FigureOptions,
   options: DiagramChartOptions = {},
 ): Buffer {
-  return renderChart(diagramChart(diagram, options), { title: diagramTitleText(diagram), ...figure });
+  return renderChart(diagramChart(diagram, options), {
+    title: diagramTitleText(diagram, options.ion),
+    ...figure,
+  });
 }
 
 const GEOMETRY_NAME = { oct: 'an octahedral (O_h)', tet: 'a tetrahedral (T_d)' } as const;
 
-/** The figure title in the `^`/`_` markup of {@link markupRuns}. */
-function diagramTitleMarkup(diagram: CorrelationDiagram): string {
-  return `d^${diagram.n} in ${GEOMETRY_NAME[diagram.geometry]} field, C/B = ${diagram.cOverB.toFixed(2)}`;
+/** The figure title in the `^`/`_` markup of {@link markupRuns}; C/B is left out for d¹ and d⁹, where it plays no part. */
+function diagramTitleMarkup(diagram: CorrelationDiagram, ion: string | undefined): string {
+  const who = `${ion === undefined ? '' : `${ionMarkup(ion)}, `}d^${diagram.n}`;
+  const ratio = diagram.n === 1 || diagram.n === 9 ? '' : `, C/B = ${diagram.cOverB.toFixed(2)}`;
+  return `${who} in ${GEOMETRY_NAME[diagram.geometry]} field${ratio}`;
 }
 
 /** The figure title as plain text (the PDF document title). */
-export function diagramTitleText(diagram: CorrelationDiagram): string {
-  return diagramTitleMarkup(diagram).replace(/[\^_]/g, '');
+export function diagramTitleText(diagram: CorrelationDiagram, ion?: string): string {
+  return diagramTitleMarkup(diagram, ion).replace(/[\^_]/g, '');
 }
 
 /** A faint tint over the low-spin side(s), and the dashed lines at each change of ground state, under the curves. */
@@ -241,6 +255,7 @@ interface Placed extends DiagramLabel {
 /** Everything drawn over the plot: frame, title, region names, and the labels of curves and terms. */
 function diagramLabels(
   diagram: CorrelationDiagram,
+  ion: string | undefined,
   onLabels: ((labels: readonly DiagramLabel[]) => void) | undefined,
 ): Plugin {
   return {
@@ -253,7 +268,7 @@ function diagramLabels(
       ctx.lineWidth = 1;
       ctx.strokeRect(area.left, area.top, area.right - area.left, area.bottom - area.top);
       ctx.restore();
-      drawHeader(ctx, chart, diagram);
+      drawHeader(ctx, chart, diagram, ion);
       const placed = layoutLabels(ctx, chart, diagram);
       for (const p of placed) {
         if (p.leaderFrom) {
@@ -270,18 +285,31 @@ function diagramLabels(
         drawRuns(ctx, p.runs, p.box.left, (p.box.top + p.box.bottom) / 2, p.style);
       }
       const colors = diagram.regions.length > 1 ? [STYLE.allowed, STYLE.allowedLowSpin] : [STYLE.allowed];
-      drawKey(ctx, spinKey(colors), chart.chartArea.right, chart.height - 16);
+      const anyForbidden = diagram.curves.some((c) => diagram.regions.some((r) => r.S !== c.S));
+      drawKey(ctx, spinKey(colors, anyForbidden), chart.chartArea.right, chart.height - 16);
       onLabels?.(placed.map((p) => ({ text: p.text, kind: p.kind, box: p.box })));
     },
   };
 }
 
 /** The title, and the strip under it naming the spin regions and the Δ/B of each crossover. */
-function drawHeader(ctx: SKRSContext2D, chart: Chart, diagram: CorrelationDiagram): void {
+function drawHeader(
+  ctx: SKRSContext2D,
+  chart: Chart,
+  diagram: CorrelationDiagram,
+  ion: string | undefined,
+): void {
   const area = chart.chartArea;
   const px = (x: number) => chart.scales.x?.getPixelForValue(x) ?? 0;
   const title: TextStyle = { size: STYLE.titleSize, color: STYLE.ink, bold: true };
-  drawRuns(ctx, markupRuns(diagramTitleMarkup(diagram)), (area.left + area.right) / 2, 18, title, 'center');
+  drawRuns(
+    ctx,
+    markupRuns(diagramTitleMarkup(diagram, ion)),
+    (area.left + area.right) / 2,
+    18,
+    title,
+    'center',
+  );
   if (diagram.crossings.length === 0) return;
   const y = area.top - 14;
   const strip: TextStyle = { size: STYLE.smallSize, color: STYLE.crossover };
@@ -291,8 +319,8 @@ function drawHeader(ctx: SKRSContext2D, chart: Chart, diagram: CorrelationDiagra
     const w = measureRuns(ctx, runs, strip);
     drawRuns(ctx, runs, px(c.deltaOverB), y, strip, 'center');
     taken.push({
-      left: px(c.deltaOverB) - w / 2 - 14,
-      right: px(c.deltaOverB) + w / 2 + 14,
+      left: px(c.deltaOverB) - w / 2 - 22,
+      right: px(c.deltaOverB) + w / 2 + 22,
       top: 0,
       bottom: 1,
     });
@@ -316,179 +344,227 @@ function drawHeader(ctx: SKRSContext2D, chart: Chart, diagram: CorrelationDiagra
   });
 }
 
+/** What the label placers share while laying out one figure. */
+interface Layout {
+  readonly ctx: SKRSContext2D;
+  readonly chart: Chart;
+  readonly diagram: CorrelationDiagram;
+  readonly x: Scale;
+  readonly y: Scale;
+  /** Top of the E/B axis. */
+  readonly eMax: number;
+  /** Height of one label, px. */
+  readonly h: number;
+  /** The plot area, where labels inside the plot must stay. */
+  readonly inside: Box;
+  /** Left edge of the label column right of the plot. */
+  readonly columnLeft: number;
+  readonly out: Placed[];
+  /** Boxes already taken (with their clearance). */
+  readonly taken: Box[];
+  /** Curves already named. */
+  readonly labelled: Set<string>;
+}
+
 /**
- * Positions of every label: curve ends in the column right of the plot (all spin-allowed
- * curves, spread apart with leader lines; others only where there is room), curves leaving
- * through the top while spin-allowed, the ground state of each region but the last, and the
- * free-ion terms at Δ/B = 0.
+ * Positions of every label, in order of precedence: curve ends in the column right of the plot
+ * (every spin-allowed curve, spread apart with leader lines), the ground state of each region
+ * but the last, spin-allowed curves leaving through the top, spin-allowed curves still unnamed
+ * (beside the curve), the free-ion terms at Δ/B = 0, and the other curve ends where there is room.
  */
 function layoutLabels(ctx: SKRSContext2D, chart: Chart, diagram: CorrelationDiagram): Placed[] {
+  const { x, y } = chart.scales;
+  if (!x || !y) return [];
   const area = chart.chartArea;
-  const xScale = chart.scales.x;
-  const yScale = chart.scales.y;
-  if (!xScale || !yScale) return [];
-  const eMax = yScale.max;
-  const h = runsHeight(LABEL);
+  const layout: Layout = {
+    ctx,
+    chart,
+    diagram,
+    x,
+    y,
+    eMax: y.max,
+    h: runsHeight(LABEL),
+    inside: { left: area.left, right: area.right, top: area.top, bottom: area.bottom },
+    columnLeft: area.right + LEADER,
+    out: [],
+    taken: [],
+    labelled: new Set(),
+  };
   const last = diagram.deltaOverB.length - 1;
-  const lastRegion = diagram.regions.length - 1;
-  const out: Placed[] = [];
-  const taken: Box[] = [];
-  const labelled = new Set<string>();
-  const boxAt = (left: number, cy: number, w: number): Box => ({
-    left,
-    right: left + w,
-    top: cy - h / 2,
-    bottom: cy + h / 2,
-  });
-  const curveStyle = (curve: DiagramCurve, r: number): TextStyle =>
-    allowedIn(diagram, curve, r)
-      ? { ...LABEL, color: regionColor(diagram, r) }
-      : diagram.regions.some((_, k) => allowedIn(diagram, curve, k))
-        ? {
-            ...LABEL,
-            color: regionColor(
-              diagram,
-              diagram.regions.findIndex((_, k) => allowedIn(diagram, curve, k)),
-            ),
-          }
-        : { ...LABEL, color: STYLE.forbiddenText };
-  const everAllowed = (c: DiagramCurve) => diagram.regions.some((_, r) => allowedIn(diagram, c, r));
-
-  // Right-hand column.
   const ends = diagram.curves
     .map((curve) => ({ curve, value: curve.values[last] ?? Number.NaN }))
-    .filter((e) => e.value >= 0 && e.value <= eMax);
-  const must = ends.filter((e) => everAllowed(e.curve));
-  const columnLeft = area.right + LEADER;
-  const targets = must.map((e) => yScale.getPixelForValue(e.value));
-  const spread = spreadLabels(targets, h + 1, area.top - 4, area.bottom + 8);
-  must.forEach((e, i) => {
-    const runs = stateRuns(e.curve.label);
-    const style = curveStyle(e.curve, lastRegion);
-    const cy = spread[i] ?? 0;
-    const box = boxAt(columnLeft, cy, measureRuns(ctx, runs, style));
-    taken.push(box);
-    labelled.add(e.curve.label);
-    const target = targets[i] ?? 0;
-    out.push({
-      text: e.curve.label,
-      kind: 'end',
-      runs,
-      style,
-      box,
-      ...(Math.abs(cy - target) > 1.5 ? { leaderFrom: { x: area.right + 2, y: target } } : {}),
-    });
-  });
+    .filter((e) => e.value >= 0 && e.value <= layout.eMax);
+  labelAllowedEnds(
+    layout,
+    ends.filter((e) => everAllowed(diagram, e.curve)),
+  );
+  labelRegionGrounds(layout);
+  labelTopExits(layout);
+  labelBeside(layout);
+  labelTerms(layout);
+  labelOtherEnds(
+    layout,
+    ends.filter((e) => !everAllowed(diagram, e.curve)),
+  );
+  return layout.out;
+}
 
-  // The ground state of each region but the last, on the zero line.
+/** A label's box of width `w` with its left edge at `left` and its middle at `cy`. */
+function boxAt(layout: Layout, left: number, cy: number, w: number): Box {
+  return { left, right: left + w, top: cy - layout.h / 2, bottom: cy + layout.h / 2 };
+}
+
+/** Colour of a curve's label in region `r`: the region's strong colour where allowed, else where it is allowed anywhere, else light. */
+function curveStyle(diagram: CorrelationDiagram, curve: DiagramCurve, r: number): TextStyle {
+  if (allowedIn(diagram, curve, r)) return { ...LABEL, color: regionColor(diagram, r) };
+  const k = diagram.regions.findIndex((region) => region.S === curve.S);
+  return { ...LABEL, color: k >= 0 ? regionColor(diagram, k) : STYLE.forbiddenText };
+}
+
+/** Records a label; a leader line is drawn when it had to move more than a pixel and a half from `target`. */
+function place(layout: Layout, label: Placed, clearance: Box, target?: number): void {
+  layout.taken.push(clearance);
+  layout.labelled.add(label.text);
+  const cy = (label.box.top + label.box.bottom) / 2;
+  const moved = target !== undefined && Math.abs(cy - target) > 1.5;
+  layout.out.push(moved ? { ...label, leaderFrom: { x: layout.inside.right + 2, y: target } } : label);
+}
+
+type CurveEnd = { curve: DiagramCurve; value: number };
+
+function labelAllowedEnds(layout: Layout, ends: readonly CurveEnd[]): void {
+  const { diagram, inside } = layout;
+  const targets = ends.map((e) => layout.y.getPixelForValue(e.value));
+  const spread = spreadLabels(targets, layout.h + 1, inside.top - 4, inside.bottom + 8);
+  ends.forEach((e, i) => {
+    const runs = stateRuns(e.curve.label);
+    const style = curveStyle(diagram, e.curve, diagram.regions.length - 1);
+    const box = boxAt(layout, layout.columnLeft, spread[i] ?? 0, measureRuns(layout.ctx, runs, style));
+    place(layout, { text: e.curve.label, kind: 'end', runs, style, box }, box, targets[i]);
+  });
+}
+
+/** The ground state of each region but the last, on the zero line (the last one's is named at the right end). */
+function labelRegionGrounds(layout: Layout): void {
+  const { diagram, inside } = layout;
   diagram.regions.slice(0, -1).forEach((region, r) => {
     const runs = stateRuns(region.ground);
     const style = { ...LABEL, color: regionColor(diagram, r), halo: true };
-    const w = measureRuns(ctx, runs, style);
-    const mid = xScale.getPixelForValue((region.fromDeltaOverB + region.toDeltaOverB) / 2);
-    const box = boxAt(mid - w / 2, area.bottom - h / 2 - 3, w);
-    taken.push(box);
-    out.push({ text: region.ground, kind: 'ground', runs, style, box });
+    const w = measureRuns(layout.ctx, runs, style);
+    const mid = layout.x.getPixelForValue((region.fromDeltaOverB + region.toDeltaOverB) / 2);
+    const box = boxAt(layout, mid - w / 2, inside.bottom - layout.h / 2 - 3, w);
+    layout.taken.push(box);
+    layout.out.push({ text: region.ground, kind: 'ground', runs, style, box });
   });
+}
 
-  // Spin-allowed curves that leave through the top: named just inside, beside the exit.
-  const inside: Box = { left: area.left, right: area.right, top: area.top, bottom: area.bottom };
+/** Spin-allowed curves that leave through the top: named just inside, beside the exit, in one row. */
+function labelTopExits(layout: Layout): void {
+  const { diagram, inside } = layout;
   const exits = diagram.curves
-    .map((curve) => ({ curve, x: topExit(diagram, curve, eMax) }))
+    .map((curve) => ({ curve, x: topExit(diagram, curve, layout.eMax) }))
     .filter((e): e is { curve: DiagramCurve; x: number } => e.x !== undefined)
     .filter((e) => allowedIn(diagram, e.curve, regionIndex(diagram, e.x)))
     .sort((a, b) => a.x - b.x);
   for (const e of exits) {
     const runs = stateRuns(e.curve.label);
-    const style = { ...curveStyle(e.curve, regionIndex(diagram, e.x)), halo: true };
-    const w = measureRuns(ctx, runs, style);
-    const px = xScale.getPixelForValue(e.x);
-    const left = px + 4 + w <= area.right - 2 ? px + 4 : px - 4 - w;
-    const spot = freeSpot(boxAt(left, area.top + h / 2 + 2, w), taken, [0], inside);
-    if (!spot) continue;
-    taken.push(spot);
-    labelled.add(e.curve.label);
-    out.push({ text: e.curve.label, kind: 'exit', runs, style, box: spot });
+    const style = { ...curveStyle(diagram, e.curve, regionIndex(diagram, e.x)), halo: true };
+    const w = measureRuns(layout.ctx, runs, style);
+    const px = layout.x.getPixelForValue(e.x);
+    const left = px + 4 + w <= inside.right - 2 ? px + 4 : px - 4 - w;
+    const box = boxAt(layout, left, inside.top + layout.h / 2 + 2, w);
+    const spot = freeSpot(pad(box), layout.taken, [0], inside);
+    if (spot) place(layout, { text: e.curve.label, kind: 'exit', runs, style, box }, spot);
   }
+}
 
-  // Curves spin-allowed before a crossover and still without a label: named beside the curve
-  // there. (In the last region the ends and exits carry the labels; a curve lost in the bundle
-  // that leaves through the top is better unnamed than named ambiguously.)
-  for (const curve of diagram.curves) {
-    if (labelled.has(curve.label)) continue;
-    diagram.regions.slice(0, -1).forEach((region, r) => {
-      if (labelled.has(curve.label) || !allowedIn(diagram, curve, r)) return;
+/**
+ * Curves spin-allowed before a crossover and still unnamed: named beside the curve there. (In
+ * the last region the ends and exits carry the labels; a curve lost in the bundle that leaves
+ * through the top is better unnamed than named ambiguously.)
+ */
+function labelBeside(layout: Layout): void {
+  const { diagram, eMax, h } = layout;
+  // Candidate points along the region, nearest its middle first.
+  const fractions = Array.from({ length: 16 }, (_, k) => 0.15 + 0.05 * k).sort(
+    (a, b) => Math.abs(a - 0.55) - Math.abs(b - 0.55),
+  );
+  diagram.regions.slice(0, -1).forEach((region, r) => {
+    const strong = diagram.curves.filter((c) => allowedIn(diagram, c, r));
+    for (const curve of strong) {
+      if (layout.labelled.has(curve.label)) continue;
       const runs = stateRuns(curve.label);
-      const style = { ...curveStyle(curve, r), halo: true };
-      const w = measureRuns(ctx, runs, style);
-      for (const f of [0.55, 0.7, 0.4, 0.85, 0.25]) {
+      const style = { ...curveStyle(diagram, curve, r), halo: true };
+      const w = measureRuns(layout.ctx, runs, style);
+      for (const f of fractions) {
         const x = region.fromDeltaOverB + f * (region.toDeltaOverB - region.fromDeltaOverB);
         const y = valueAt(diagram, curve, x);
-        const y2 = valueAt(diagram, curve, x + 1e-3 * diagram.maxDeltaOverB);
         if (!(y > 0.03 * eMax && y < 0.95 * eMax)) continue;
-        const px = xScale.getPixelForValue(x);
-        const py = yScale.getPixelForValue(y);
-        // Above the curve on the side where it is lower, so the label does not sit on it.
-        const left = y2 >= y ? px - 3 - w : px + 3;
-        const spot = freeSpot(boxAt(left, py - 3 - h / 2, w), taken, [0], inside);
-        if (!spot) continue;
-        taken.push(spot);
-        labelled.add(curve.label);
-        out.push({ text: curve.label, kind: 'beside', runs, style, box: spot });
-        return;
+        // Above the curve on the side where it is lower, or below it on the other side; never
+        // through a strong curve of the region (its own included).
+        const rising = valueAt(diagram, curve, x + 1e-3 * diagram.maxDeltaOverB) >= y;
+        const px = layout.x.getPixelForValue(x);
+        const py = layout.y.getPixelForValue(y);
+        const above = boxAt(layout, rising ? px - 3 - w : px + 3, py - 3 - h / 2, w);
+        const below = boxAt(layout, rising ? px + 3 : px - 3 - w, py + 3 + h / 2, w);
+        const box = [above, below].find(
+          (b) =>
+            freeSpot(pad(b), layout.taken, [0], layout.inside) &&
+            !strong.some((c) => crosses(b, c, diagram, layout.chart)),
+        );
+        if (!box) continue;
+        place(layout, { text: curve.label, kind: 'beside', runs, style, box }, pad(box));
+        break;
       }
-    });
-  }
+    }
+  });
+}
 
-  // Free-ion terms where the curves start, just inside the left edge, lowest spin-allowed first.
+/** Free-ion terms where the curves start, just inside the left edge; those of the ground spin first. */
+function labelTerms(layout: Layout): void {
+  const { diagram, inside, h } = layout;
   const terms = new Map<string, { S: number; value: number }>();
   for (const c of diagram.curves)
     if (!terms.has(c.parent)) terms.set(c.parent, { S: c.S, value: c.values[0] ?? 0 });
   const groundS = diagram.regions[0]?.S;
-  const termList = [...terms.entries()]
-    .filter(([, t]) => t.value <= eMax)
+  const list = [...terms.entries()]
+    .filter(([, t]) => t.value <= layout.eMax)
     .sort((a, b) => Number(b[1].S === groundS) - Number(a[1].S === groundS) || a[1].value - b[1].value);
-  for (const [name, t] of termList) {
+  for (const [name, t] of list) {
     const runs = termRuns(name);
-    const allowed = t.S === groundS;
-    const style: TextStyle = {
-      ...LABEL,
-      color: allowed ? regionColor(diagram, 0) : STYLE.forbiddenText,
-      halo: true,
-    };
-    const w = measureRuns(ctx, runs, style);
-    const cy = Math.min(yScale.getPixelForValue(t.value) - h / 2, area.bottom - h / 2 - 2);
-    const spot = freeSpot(boxAt(area.left + 5, cy, w), taken, nearShifts(h * 0.6, 2), inside);
-    if (!spot) continue;
-    taken.push(spot);
-    out.push({ text: name, kind: 'term', runs, style, box: spot });
-  }
-
-  // Other curve ends in the column where a place is free near their end.
-  const column: Box = { left: area.right, right: chart.width, top: area.top - 12, bottom: area.bottom + 12 };
-  for (const e of ends.filter((x) => !everAllowed(x.curve)).sort((a, b) => a.value - b.value)) {
-    const runs = stateRuns(e.curve.label);
-    const style = curveStyle(e.curve, lastRegion);
-    const target = yScale.getPixelForValue(e.value);
+    const color = t.S === groundS ? regionColor(diagram, 0) : STYLE.forbiddenText;
+    const style: TextStyle = { ...LABEL, color, halo: true };
+    const w = measureRuns(layout.ctx, runs, style);
+    const cy = Math.min(layout.y.getPixelForValue(t.value) - h / 2, inside.bottom - h / 2 - 2);
     const spot = freeSpot(
-      boxAt(columnLeft, target, measureRuns(ctx, runs, style)),
-      taken,
-      nearShifts(h * 1.1),
-      column,
+      boxAt(layout, inside.left + 5, cy, w),
+      layout.taken,
+      nearShifts(h * 0.6, 2),
+      inside,
     );
     if (!spot) continue;
-    taken.push(spot);
-    const cy = (spot.top + spot.bottom) / 2;
-    out.push({
-      text: e.curve.label,
-      kind: 'end',
-      runs,
-      style,
-      box: spot,
-      ...(Math.abs(cy - target) > 1.5 ? { leaderFrom: { x: area.right + 2, y: target } } : {}),
-    });
+    layout.taken.push(spot);
+    layout.out.push({ text: name, kind: 'term', runs, style, box: spot });
   }
-  return out;
+}
+
+/** Spin-forbidden curve ends in the column, each only where a place is free near its end. */
+function labelOtherEnds(layout: Layout, ends: readonly CurveEnd[]): void {
+  const { diagram, inside, h } = layout;
+  const column: Box = {
+    left: inside.right,
+    right: layout.chart.width,
+    top: inside.top - 12,
+    bottom: inside.bottom + 12,
+  };
+  for (const e of [...ends].sort((a, b) => a.value - b.value)) {
+    const runs = stateRuns(e.curve.label);
+    const style = curveStyle(diagram, e.curve, diagram.regions.length - 1);
+    const target = layout.y.getPixelForValue(e.value);
+    const box = boxAt(layout, layout.columnLeft, target, measureRuns(layout.ctx, runs, style));
+    const spot = freeSpot(box, layout.taken, nearShifts(h * 1.1), column);
+    if (spot) place(layout, { text: e.curve.label, kind: 'end', runs, style, box: spot }, spot, target);
+  }
 }
 
 /** Δ/B where a curve that ends above the top of the axis last crosses it, or undefined if it is never below it. */
@@ -519,4 +595,29 @@ function valueAt(diagram: CorrelationDiagram, curve: DiagramCurve, x: number): n
   const a = curve.values[i] ?? 0;
   const b = curve.values[i + 1] ?? a;
   return x1 === x0 ? a : a + ((x - x0) / (x1 - x0)) * (b - a);
+}
+
+/** Room kept clear on either side of a label placed among others, px. */
+const LABEL_PAD = 4;
+
+/** A box widened on both sides by `dx` (narrowed for negative `dx`). */
+function pad(box: Box, dx = LABEL_PAD): Box {
+  return { ...box, left: box.left - dx, right: box.right + dx };
+}
+
+/** Whether a curve passes through a box (pixels), judged at the box edges and every sweep point between. */
+function crosses(box: Box, curve: DiagramCurve, diagram: CorrelationDiagram, chart: Chart): boolean {
+  const xScale = chart.scales.x;
+  const yScale = chart.scales.y;
+  if (!xScale || !yScale) return false;
+  const x0 = xScale.getValueForPixel(box.left) ?? 0;
+  const x1 = xScale.getValueForPixel(box.right) ?? 0;
+  const xs = [x0, ...diagram.deltaOverB.filter((x) => x > x0 && x < x1), x1];
+  const ys = xs.map((x) => yScale.getPixelForValue(valueAt(diagram, curve, x)));
+  // Inside at a sample point, or passing from above the box to below it between two.
+  return ys.some(
+    (y, i) =>
+      (y > box.top && y < box.bottom) ||
+      (i > 0 && Math.min(y, ys[i - 1] ?? y) <= box.top && Math.max(y, ys[i - 1] ?? y) >= box.bottom),
+  );
 }

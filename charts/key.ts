@@ -9,12 +9,14 @@ export interface KeyItem {
   readonly text: string;
 }
 
-/** The entries every figure here uses: strong lines spin-allowed, light lines spin-forbidden. */
-export function spinKey(allowedColors: readonly string[]): KeyItem[] {
-  return [
-    { colors: allowedColors, width: STYLE.allowedWidth, text: 'spin-allowed' },
-    { colors: [STYLE.forbidden], width: STYLE.forbiddenWidth + 0.3, text: 'spin-forbidden' },
-  ];
+/**
+ * The entries every figure here uses: strong lines spin-allowed, light lines spin-forbidden
+ * (left out where nothing is spin-forbidden, as for d¹ and d⁹).
+ */
+export function spinKey(allowedColors: readonly string[], anyForbidden = true): KeyItem[] {
+  const allowed = { colors: allowedColors, width: STYLE.allowedWidth, text: 'spin-allowed' };
+  const forbidden = { colors: [STYLE.forbidden], width: STYLE.forbiddenWidth + 0.3, text: 'spin-forbidden' };
+  return anyForbidden ? [allowed, forbidden] : [allowed];
 }
 
 /** Draws a one-line key ending at `right`, vertically centred on `y` (a small key, not a legend box). */

@@ -8,6 +8,7 @@ import { STYLE } from './style.js';
 import {
   chartContext,
   drawRuns,
+  ionMarkup,
   markupRuns,
   runsHeight,
   stateRuns,
@@ -86,8 +87,7 @@ export function renderLevelDiagram(
 
 function levelTitleMarkup(result: CubicResult, options: LevelDiagramOptions): string {
   const field = result.geometry === 'oct' ? 'octahedral (O_h)' : 'tetrahedral (T_d)';
-  // An ion name such as Cr3+ gets its charge raised.
-  const ion = options.ion?.replace(/^([A-Z][a-z]?)(\d[+-])$/, '$1^$2');
+  const ion = options.ion === undefined ? undefined : ionMarkup(options.ion);
   return `${ion ? `${ion}, ` : ''}d^${result.n}: free ion → ${field} field`;
 }
 
@@ -226,7 +226,15 @@ function drawLevels(
     caption,
     'center',
   );
-  drawKey(ctx, spinKey([STYLE.allowed]), area.right, chart.height - 14);
+  drawKey(
+    ctx,
+    spinKey(
+      [STYLE.allowed],
+      result.levels.some((l) => !l.spinAllowed),
+    ),
+    area.right,
+    chart.height - 14,
+  );
 }
 
 /** `x` rounded up to a multiple of half its power of ten (78 000 → 80 000, 43 000 → 45 000), for a tidy axis end. */

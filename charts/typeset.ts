@@ -143,3 +143,8 @@ export function drawRuns(
   ctx.restore();
   return width;
 }
+
+/** An ion name in the markup of {@link markupRuns}, its charge raised: `Cr3+` → `Cr^3+`. */
+export function ionMarkup(name: string): string {
+  return name.replace(/^([A-Z][a-z]?)(\d[+-])$/, '$1^$2');
+}

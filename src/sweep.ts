@@ -271,11 +271,20 @@ export function diagramJson(diagram: CorrelationDiagram) {
  * crossover is the ideal cubic model's, not a prediction of what a compound does.
  */
 export function diagramCautions(diagram: CorrelationDiagram): Caution[] {
-  return diagram.crossings.map((c) => ({
+  const out: Caution[] = diagram.crossings.map((c) => ({
     code: 'spin-state',
     message:
       `d${diagram.n}: the ground state changes at Δ/B = ${c.deltaOverB.toFixed(2)} for C/B = ${diagram.cOverB.toFixed(2)} ` +
       'in an ideal cubic field; which spin state a real compound adopts near there depends also on temperature, ' +
       'lattice, entropy and lower symmetry — magnetic or Mössbauer measurement decides',
   }));
+  if (diagram.geometry === 'tet' && diagram.crossings.length > 0) {
+    out.push({
+      code: 'spin-state',
+      message:
+        'tetrahedral fields are weak (Δt ≈ 4/9 Δo for the same ligands, common practice, no source), so ' +
+        'real tetrahedral complexes seldom come near the low-spin side of this diagram',
+    });
+  }
+  return out;
 }

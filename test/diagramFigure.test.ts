@@ -1,7 +1,13 @@
 import { loadImage } from '@napi-rs/canvas';
 import type { ChartDataset } from 'chart.js';
 import { describe, expect, it } from 'vitest';
-import { automaticEMax, type DiagramLabel, diagramChart, renderDiagram } from '../charts/diagram.js';
+import {
+  automaticEMax,
+  type DiagramLabel,
+  diagramChart,
+  diagramTitleText,
+  renderDiagram,
+} from '../charts/diagram.js';
 import { overlaps, spreadLabels } from '../charts/labelLayout.js';
 import { levelDiagramHeight, renderLevelDiagram } from '../charts/levelDiagram.js';
 import { renderChart } from '../charts/render.js';
@@ -112,6 +118,13 @@ describe('diagramChart: labels in the figure', () => {
     expect(config.data.datasets).toHaveLength(d6.curves.length);
     const first = config.data.datasets[0] as ChartDataset<'scatter'>;
     expect(d6.regions.some((r) => r.S === d6.curves.find((c) => c.label === first.label)?.S)).toBe(true);
+  });
+
+  it('titles the figure with dⁿ, the geometry and C/B (none for d¹ and d⁹), and the ion if named', () => {
+    expect(diagramTitleText(d6, 'Fe2+')).toBe('Fe2+, d6 in an octahedral (Oh) field, C/B = 4.80');
+    expect(diagramTitleText(sweepDiagram(9, { geometry: 'tet', points: 5 }))).toBe(
+      'd9 in a tetrahedral (Td) field',
+    );
   });
 
   it('tops the E/B axis at the highest curve, at most twice the largest Δ/B', () => {

@@ -276,6 +276,10 @@ describe('sweepDiagram: crossings', () => {
     expect(cautions).toHaveLength(1);
     expect(cautions[0]?.code).toBe('spin-state');
     expect(cautions[0]?.message).toMatch(/measurement decides/);
+    // In Td the model's crossover lies far above real tetrahedral fields: said so as well.
+    const td = diagramCautions(sweep(4, 'tet'));
+    expect(td).toHaveLength(2);
+    expect(td[1]?.message).toMatch(/tetrahedral fields are weak/);
   });
 });
 

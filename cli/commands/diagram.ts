@@ -163,6 +163,7 @@ export function diagramCommand(configText: string | undefined, opts: DiagramOpti
   const outputs: { path: string; data: string | Uint8Array }[] = [];
   if (figurePath !== undefined && figureFormat !== undefined) {
     const options = {
+      ...(ion ? { ion: ion.ion } : {}),
       ...(eMax !== undefined ? { eMax } : {}),
       ...(sample ? { sample: { dq: sample.dq, B: sample.B, bands: sample.bands ?? [] } } : {}),
     };
@@ -232,8 +233,12 @@ function summaryText(
   },
 ): string {
   const geometryName = diagram.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
+  const ratio =
+    diagram.n === 1 || diagram.n === 9
+      ? 'C/B plays no part (one d electron or hole)'
+      : `C/B = ${fixed(diagram.cOverB, 2)} (${info.cOrigin})`;
   const lines = [
-    `${info.ion ? `${info.ion}, ` : ''}d${diagram.n} ${geometryName}, C/B = ${fixed(diagram.cOverB, 2)} (${info.cOrigin}): ` +
+    `${info.ion ? `${info.ion}, ` : ''}d${diagram.n} ${geometryName}, ${ratio}: ` +
       `Δ/B from 0 to ${diagram.maxDeltaOverB} in ${diagram.points} points, ${diagram.curves.length} curves (E/B above the ground state).`,
   ];
   if (diagram.crossings.length === 0) {
