@@ -1,7 +1,7 @@
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import { type GroundStateMap, type MapRow, type MapSegment, pairingCoefficients } from '../src/index.js';
 import { type FigureOptions, renderChart } from './render.js';
-import { drawRuns, runsWidth, stateLabelRuns } from './typeset.js';
+import { chartContext, drawRuns, measureRuns, stateRuns, type TextRun } from './typeset.js';
 
 /**
  * The ground-state map as a figure: regions of each spin state over Δ/B (x) and C/B (y), the
@@ -255,7 +255,8 @@ export function groundMapChart(map: GroundStateMap, marks: GroundMapMarks = {}):
       ctx.restore();
     },
     afterDatasetsDraw(chart) {
-      const { ctx, scales } = chart;
+      const { scales } = chart;
+      const ctx = chartContext(chart);
       const px = (x: number) => scales.x?.getPixelForValue(x) ?? 0;
       const py = (y: number) => scales.y?.getPixelForValue(y) ?? 0;
       ctx.save();
@@ -265,15 +266,18 @@ export function groundMapChart(map: GroundStateMap, marks: GroundMapMarks = {}):
         const x = px((s.from + s.to) / 2);
         const y = py(labelRow.cOverB);
         const name = ROLE_NAMES[roleOf(s.S, map)];
-        const state = [...stateLabelRuns(s.symbol), { text: `,  S = ${spinText(s.S)}` }];
-        const nameRuns = [{ text: name }];
+        const state: TextRun[] = [...stateRuns(s.symbol), { text: `,  S = ${spinText(s.S)}`, shift: 'base' }];
+        const nameRuns: TextRun[] = [{ text: name, shift: 'base' }];
+        const stateStyle = { size: 17, color: '#111111' };
+        const nameStyle = { size: 18, color: '#111111', bold: true };
         // A patch of the region's own colour behind the text keeps lines from running through it.
-        const w = Math.max(runsWidth(ctx, state, 17), name ? runsWidth(ctx, nameRuns, 18, true) : 0) + 16;
+        const w =
+          Math.max(measureRuns(ctx, state, stateStyle), name ? measureRuns(ctx, nameRuns, nameStyle) : 0) +
+          16;
         ctx.fillStyle = colourOf(s.S);
         ctx.fillRect(x - w / 2, y - (name ? 28 : 14), w, name ? 56 : 28);
-        ctx.fillStyle = '#111111';
-        if (name) drawRuns(ctx, nameRuns, x, y - 13, 18, { bold: true });
-        drawRuns(ctx, state, x, name ? y + 13 : y, 17);
+        if (name) drawRuns(ctx, nameRuns, x, y - 13, nameStyle, 'center');
+        drawRuns(ctx, state, x, name ? y + 13 : y, stateStyle, 'center');
       }
       if (sample?.sigmaDeltaOverB) {
         const y = py(sample.cOverB);
@@ -294,7 +298,8 @@ export function groundMapChart(map: GroundStateMap, marks: GroundMapMarks = {}):
     },
     afterDraw(chart) {
       if (legend.length === 0) return;
-      const { ctx, chartArea, height } = chart;
+      const { chartArea, height } = chart;
+      const ctx = chartContext(chart);
       ctx.save();
       const columnWidth = (chartArea.right - chartArea.left) / LEGEND_COLUMNS;
       const top = height - legendRows * LEGEND_ROW - 6;
@@ -316,8 +321,14 @@ export function groundMapChart(map: GroundStateMap, marks: GroundMapMarks = {}):
           ctx.stroke();
         }
         ctx.setLineDash([]);
-        ctx.fillStyle = '#111111';
-        drawRuns(ctx, [{ text: entry.text }], x + 54, y, LEGEND_FONT, { align: 'left' });
+        drawRuns(
+          ctx,
+          [{ text: entry.text, shift: 'base' }],
+          x + 54,
+          y,
+          { size: LEGEND_FONT, color: '#111111' },
+          'left',
+        );
       });
       ctx.restore();
     },

@@ -1,83 +1,150 @@
+import type { SKRSContext2D } from '@napi-rs/canvas';
+import type { Chart } from 'chart.js';
 import { parseStateLabel } from '../src/index.js';
 import { FONT_FAMILY } from './render.js';
 
 /**
- * Text with true superscripts and subscripts on a canvas, for state labels such as ⁵T₂g in
- * figures (Unicode has no subscript g, and raised digits of the font's own size read better).
+ * Typesetting of short scientific labels on a canvas: state symbols ²ˢ⁺¹Γ with a raised
+ * multiplicity and lowered irrep index (⁴T₁g is drawn as 4 raised, T, "1g" lowered), free-ion
+ * terms (⁴F, a²D) and dⁿ, drawn from runs of text at three levels rather than from Unicode
+ * super/subscript characters, which fonts draw small and uneven.
  */
 
-/** A piece of text and where it sits. */
+/** A piece of text at the baseline, raised or lowered. */
 export interface TextRun {
   readonly text: string;
-  readonly script?: 'normal' | 'super' | 'sub';
+  readonly shift: 'base' | 'sup' | 'sub';
 }
 
-/** Size of a super- or subscript relative to the text. */
-const SCRIPT_SCALE = 0.68;
+/** Look of a typeset label. */
+export interface TextStyle {
+  /** Font size of base text, CSS px. */
+  readonly size: number;
+  readonly color: string;
+  /** @default false */
+  readonly bold?: boolean;
+  /** A white outline behind the text so it stays legible over lines. @default false */
+  readonly halo?: boolean;
+}
 
-/** The runs of a plain state label: `5T2g(F)` → ⁵ T ₂g (F). Other text is one normal run. */
-export function stateLabelRuns(label: string): TextRun[] {
+/** Size of raised and lowered text relative to the base size. */
+const SCRIPT_SCALE = 0.7;
+/** Shift of raised text above, and of lowered text below, the baseline, in units of the base size. */
+const SUP_RISE = 0.36;
+const SUB_DROP = 0.2;
+
+/** The context chart.js draws with: a Skia context from @napi-rs/canvas in every figure here. */
+export function chartContext(chart: Chart): SKRSContext2D {
+  return chart.ctx as unknown as SKRSContext2D;
+}
+
+/** Runs of a state label such as `4T1g(F)`: raised 4, T, lowered 1g, then (F). Other text stays plain. */
+export function stateRuns(label: string): TextRun[] {
   const p = parseStateLabel(label);
-  if (!p) return [{ text: label }];
-  const runs: TextRun[] = [{ text: p.multiplicity, script: 'super' }, { text: p.letter }];
-  if (p.index + p.parity !== '') runs.push({ text: p.index + p.parity, script: 'sub' });
-  if (p.parent) runs.push({ text: `(${p.parent})` });
+  if (!p) return [{ text: label, shift: 'base' }];
+  const runs: TextRun[] = [
+    { text: p.multiplicity, shift: 'sup' },
+    { text: p.letter, shift: 'base' },
+  ];
+  if (p.index + p.parity !== '') runs.push({ text: p.index + p.parity, shift: 'sub' });
+  if (p.parent !== '') runs.push({ text: `(${p.parent})`, shift: 'base' });
   return runs;
 }
 
-/** The canvas context calls the typesetting needs (chart.js and @napi-rs/canvas both provide them). */
-interface TextContext {
-  font: string;
-  textAlign: string;
-  textBaseline: string;
-  fillText(text: string, x: number, y: number): void;
-  measureText(text: string): { width: number };
+/** Runs of a free-ion term name such as `4F` or `a2D` (prefix a, b for repeated terms). */
+export function termRuns(name: string): TextRun[] {
+  const m = /^([a-z]?)(\d+)([A-Z])$/.exec(name);
+  if (!m) return [{ text: name, shift: 'base' }];
+  const [, prefix = '', multiplicity = '', letter = ''] = m;
+  const runs: TextRun[] = [];
+  if (prefix !== '') runs.push({ text: prefix, shift: 'base' });
+  runs.push({ text: multiplicity, shift: 'sup' }, { text: letter, shift: 'base' });
+  return runs;
 }
 
-function fontOf(size: number, bold: boolean): string {
+/** Runs of plain text in which `^x` raises and `_x` lowers one character run, e.g. `d^6 in O_h`. */
+export function markupRuns(text: string): TextRun[] {
+  const runs: TextRun[] = [];
+  const re = /([\^_])([^\s^_,;:()]+)|([^^_]+)/g;
+  for (const m of text.matchAll(re)) {
+    if (m[3] !== undefined) runs.push({ text: m[3], shift: 'base' });
+    else runs.push({ text: m[2] ?? '', shift: m[1] === '^' ? 'sup' : 'sub' });
+  }
+  return runs;
+}
+
+function font(size: number, bold: boolean): string {
   return `${bold ? 'bold ' : ''}${size}px "${FONT_FAMILY}"`;
 }
 
-/** Width of the runs at `size` px. */
-export function runsWidth(ctx: TextContext, runs: readonly TextRun[], size: number, bold = false): number {
+function runSize(run: TextRun, size: number): number {
+  return run.shift === 'base' ? size : size * SCRIPT_SCALE;
+}
+
+/** Width of runs in CSS px. */
+export function measureRuns(ctx: SKRSContext2D, runs: readonly TextRun[], style: TextStyle): number {
+  ctx.save();
   let w = 0;
-  for (const r of runs) {
-    ctx.font = fontOf(r.script && r.script !== 'normal' ? size * SCRIPT_SCALE : size, bold);
-    w += ctx.measureText(r.text).width;
+  for (const run of runs) {
+    ctx.font = font(runSize(run, style.size), style.bold ?? false);
+    w += ctx.measureText(run.text).width;
   }
+  ctx.restore();
   return w;
 }
 
-/** Options of {@link drawRuns}. */
-export interface RunOptions {
-  /** Start the text at x, or centre it on x. @default 'center' */
-  readonly align?: 'left' | 'center';
-  /** Bold face. @default false */
-  readonly bold?: boolean;
+/** Height a line of runs takes (raised and lowered text included), CSS px. */
+export function runsHeight(style: TextStyle): number {
+  return style.size * 1.35;
 }
 
 /**
- * Draws the runs with their vertical centre at `y`, starting at `x` or centred on it. Leaves the
- * context's font and alignment changed.
+ * Draws runs with their vertical middle at `y`; `x` is the left edge, centre or right edge by
+ * `align`. Returns the drawn width.
  */
 export function drawRuns(
-  ctx: TextContext,
+  ctx: SKRSContext2D,
   runs: readonly TextRun[],
   x: number,
   y: number,
-  size: number,
-  options: RunOptions = {},
-): void {
-  const bold = options.bold ?? false;
-  let cursor = options.align === 'left' ? x : x - runsWidth(ctx, runs, size, bold) / 2;
+  style: TextStyle,
+  align: 'left' | 'center' | 'right' = 'left',
+): number {
+  const width = measureRuns(ctx, runs, style);
+  let cx = align === 'left' ? x : align === 'center' ? x - width / 2 : x - width;
+  // The middle of capital letters sits about 0.36 of the size above the baseline.
+  const baseline = y + style.size * 0.36;
+  ctx.save();
+  const placed = runs.map((run) => {
+    const size = runSize(run, style.size);
+    const dy = run.shift === 'sup' ? -SUP_RISE * style.size : run.shift === 'sub' ? SUB_DROP * style.size : 0;
+    ctx.font = font(size, style.bold ?? false);
+    const at = { run, size, x: cx, y: baseline + dy };
+    cx += ctx.measureText(run.text).width;
+    return at;
+  });
   ctx.textAlign = 'left';
-  ctx.textBaseline = 'middle';
-  for (const r of runs) {
-    const script = r.script ?? 'normal';
-    const s = script === 'normal' ? size : size * SCRIPT_SCALE;
-    ctx.font = fontOf(s, bold);
-    const dy = script === 'super' ? -0.38 * size : script === 'sub' ? 0.3 * size : 0;
-    ctx.fillText(r.text, cursor, y + dy);
-    cursor += ctx.measureText(r.text).width;
+  ctx.textBaseline = 'alphabetic';
+  // Outlines first, then the letters, so one run's outline never covers the next run's letters.
+  if (style.halo) {
+    ctx.strokeStyle = 'rgba(255,255,255,0.92)';
+    ctx.lineWidth = Math.max(2.5, style.size * 0.28);
+    ctx.lineJoin = 'round';
+    for (const p of placed) {
+      ctx.font = font(p.size, style.bold ?? false);
+      ctx.strokeText(p.run.text, p.x, p.y);
+    }
   }
+  ctx.fillStyle = style.color;
+  for (const p of placed) {
+    ctx.font = font(p.size, style.bold ?? false);
+    ctx.fillText(p.run.text, p.x, p.y);
+  }
+  ctx.restore();
+  return width;
+}
+
+/** An ion name in the markup of {@link markupRuns}, its charge raised: `Cr3+` → `Cr^3+`. */
+export function ionMarkup(name: string): string {
+  return name.replace(/^([A-Z][a-z]?)(\d[+-])$/, '$1^$2');
 }

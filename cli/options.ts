@@ -24,7 +24,7 @@ export function numberOption(
   const fail = (expected: string) => new InputError(`${name} "${text}": expected ${expected}`);
   if (text.trim() === '' || !Number.isFinite(value)) throw fail(what);
   if (rule.integer && !Number.isInteger(value)) throw fail(`a whole number`);
-  if (rule.positive && !(value > 0)) throw fail(`a positive ${what.replace(/^an? /, '')}`);
+  if (rule.positive && !(value > 0)) throw fail(`a positive ${what.replace(/^an? (positive )?/, '')}`);
   if (rule.min !== undefined && value < rule.min) throw fail(`${what} ≥ ${rule.min}`);
   return value;
 }

@@ -2,6 +2,7 @@ import { Command, CommanderError } from 'commander';
 import { InputError } from '../src/index.js';
 import { registerCrossover } from './commands/crossover.js';
 import { registerDemo } from './commands/demo.js';
+import { registerDiagram } from './commands/diagram.js';
 import { registerIons } from './commands/ions.js';
 import { registerLevels } from './commands/levels.js';
 import { registerTerms } from './commands/terms.js';
@@ -22,7 +23,14 @@ export function buildProgram(io: Io): Command {
     .showHelpAfterError('(run with --help for usage)')
     .configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) })
     .exitOverride();
-  for (const register of [registerTerms, registerLevels, registerIons, registerDemo, registerCrossover])
+  for (const register of [
+    registerTerms,
+    registerLevels,
+    registerIons,
+    registerDiagram,
+    registerCrossover,
+    registerDemo,
+  ])
     register(program, io);
   for (const c of program.commands)
     c.exitOverride().configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) });

@@ -104,3 +104,22 @@ export {
   parseUnit,
   toWavenumber,
 } from './units.js';
+
+// Correlation-diagram data (sweep of Δ/B at fixed C/B).
+
+export {
+  type CorrelationDiagram,
+  CSV_DIGITS,
+  DEFAULT_MAX_DELTA_OVER_B,
+  DEFAULT_SWEEP_POINTS,
+  type DiagramCrossing,
+  type DiagramCurve,
+  diagramCautions,
+  diagramCsv,
+  diagramJson,
+  MAX_SWEEP_POINTS,
+  type SpinRegion,
+  SWEEP_B,
+  type SweepOptions,
+  sweepDiagram,
+} from './sweep.js';

@@ -1,10 +1,11 @@
-import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { memoryIo } from '../cli/io.js';
 import { run } from '../cli/program.js';
+import { ensureBuilt } from './cliRunner.js';
 
 const root = resolve(import.meta.dirname, '..');
 const main = join(root, 'dist/cli/main.js');
@@ -118,7 +119,7 @@ describe('termsplit crossover (in process)', () => {
 
 describe('termsplit crossover (end to end)', () => {
   beforeAll(() => {
-    if (!existsSync(main)) execFileSync('npm', ['run', 'build'], { cwd: root, stdio: 'ignore' });
+    ensureBuilt();
   });
 
   it('prints one JSON object and exits 0', () => {

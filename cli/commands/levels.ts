@@ -1,4 +1,7 @@
+import { resolve } from 'node:path';
 import type { Command } from 'commander';
+import { renderLevelDiagram } from '../../charts/levelDiagram.js';
+import { formatOfPath } from '../../charts/render.js';
 import {
   type CubicLevel,
   type CubicResult,
@@ -11,6 +14,7 @@ import {
   unicodeLabel,
   unicodeTerm,
 } from '../../src/index.js';
+import { writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 import { geometryOption, ionOrCount, numberOption, ratioChoice, requiredNumber } from '../options.js';
@@ -29,6 +33,7 @@ export interface LevelsOptions {
   C?: string;
   cb?: string;
   geometry?: string;
+  output?: string;
   json?: boolean;
 }
 
@@ -46,9 +51,17 @@ export function registerLevels(program: Command, io: Io): void {
     .option('--C <cm-1>', 'Racah C of the complex, cm⁻¹')
     .option('--cb <ratio>', 'C/B instead of --C (default: the free-ion ratio of the ion, else 4.5)')
     .option('--geometry <oct|tet>', 'octahedral or tetrahedral', 'oct')
+    .option('-o, --output <file>', 'also draw the energy-level diagram, free ion → field: .png, .svg or .pdf')
     .option('--json', 'print one JSON object on stdout')
     .action((opts: LevelsOptions) => {
-      io.out(levelsText(opts));
+      const figure = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
+      const format = opts.output === undefined ? undefined : formatOfPath(opts.output);
+      const solved = levelsFromOptions(opts);
+      if (figure !== undefined && format !== undefined) {
+        const options = solved.ion ? { ion: solved.ion } : {};
+        writeFileAtomic(figure, renderLevelDiagram(solved.result, { format }, options));
+      }
+      io.out(levelsText(opts, solved, figure));
     });
 }
 
@@ -93,8 +106,12 @@ export function levelJson(l: CubicLevel) {
   };
 }
 
-function levelsText(opts: LevelsOptions): string {
-  const { result, cOrigin, ion } = levelsFromOptions(opts);
+function levelsText(
+  opts: LevelsOptions,
+  solved: ReturnType<typeof levelsFromOptions>,
+  figure: string | undefined,
+): string {
+  const { result, cOrigin, ion } = solved;
   const cautions = cubicCautions(result);
   if (opts.json) {
     return jsonText({
@@ -111,6 +128,7 @@ function levelsText(opts: LevelsOptions): string {
       levels: result.levels.map(levelJson),
       bands: result.levels.filter((l) => l !== result.ground && l.spinAllowed).map((l) => l.label),
       cautions: cautions.map((c) => c.message),
+      ...(figure !== undefined ? { figure } : {}),
     });
   }
   const g = result.ground;
@@ -136,11 +154,15 @@ function levelsText(opts: LevelsOptions): string {
   ];
   const headers = ['level', 'cm⁻¹', 'nm', 'eV', 'degeneracy', 'parent', 'main configuration', 'spin'];
   const bands = result.levels.filter((l) => l !== g && l.spinAllowed);
+  const shown = bands.filter((l) => l.energy <= BAND_TABLE_LIMIT);
   lines.push('');
   lines.push(`Predicted spin-allowed bands (from ${unicodeLabel(g.label)}):`);
-  lines.push(
-    bands.length > 0 ? table(headers, bands.map(row)) : '  none: no excited level has the ground-state spin',
-  );
+  lines.push(shown.length > 0 ? table(headers, shown.map(row)) : `  none below ${BAND_TABLE_LIMIT} cm⁻¹`);
+  if (shown.length < bands.length) {
+    lines.push(
+      `  (${bands.length - shown.length} more above ${BAND_TABLE_LIMIT} cm⁻¹ (200 nm), in the table below)`,
+    );
+  }
   lines.push('');
   lines.push('All levels:');
   lines.push(table(headers, result.levels.map(row)));
@@ -151,5 +173,6 @@ function levelsText(opts: LevelsOptions): string {
   }
   lines.push('');
   lines.push('These are model predictions for an ideal cubic field, not measurements.');
+  if (figure !== undefined) lines.push(`Level diagram written to ${figure}`);
   return `${lines.join('\n')}\n`;
 }

@@ -1,0 +1,623 @@
+import type { SKRSContext2D } from '@napi-rs/canvas';
+import type { Chart, ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
+import { ensure } from '../src/errors.js';
+import { type CorrelationDiagram, type DiagramCurve, halfIntegerText } from '../src/index.js';
+import { drawKey, spinKey } from './key.js';
+import { type Box, freeSpot, nearShifts, overlaps, spreadLabels } from './labelLayout.js';
+import { type FigureOptions, renderChart } from './render.js';
+import { type SampleMark, withSample } from './sampleOverlay.js';
+import { STYLE } from './style.js';
+import {
+  chartContext,
+  drawRuns,
+  ionMarkup,
+  markupRuns,
+  measureRuns,
+  runsHeight,
+  stateRuns,
+  type TextRun,
+  type TextStyle,
+  termRuns,
+} from './typeset.js';
+
+/**
+ * The correlation (Tanabe–Sugano-style) diagram as a figure: E/B of every level against Δ/B,
+ * each curve labelled in the figure with its ²ˢ⁺¹Γ (no legend box), spin-allowed curves strong
+ * and spin-forbidden ones light, free-ion terms named where the curves start, and each change of
+ * ground state marked with the high-spin and low-spin sides named.
+ */
+
+/** Options of {@link diagramChart}. */
+export interface DiagramChartOptions {
+  /**
+   * Top of the E/B axis.
+   * @default the highest curve, but at most DEFAULT_E_SPAN × the largest Δ/B, rounded up
+   */
+  readonly eMax?: number;
+  /** A sample to mark on the diagram (see {@link withSample}). */
+  readonly sample?: SampleMark;
+  /** The ion's name for the title, e.g. `Cr3+`. */
+  readonly ion?: string;
+  /** Receives the labels placed in the figure each time it is drawn (to list or check them). */
+  readonly onLabels?: (labels: readonly DiagramLabel[]) => void;
+}
+
+/** A label drawn in the figure. */
+export interface DiagramLabel {
+  /** The curve label (e.g. `4T1g(P)`) or free-ion term (e.g. `a2D`) it names. */
+  readonly text: string;
+  /**
+   * Where it stands: at a curve's end right of the plot, where a curve leaves through the top,
+   * beside a curve, on the zero line as a region's ground state, or at Δ/B = 0 as a free-ion term.
+   */
+  readonly kind: 'end' | 'exit' | 'beside' | 'ground' | 'term';
+  /** Its box in CSS pixels. */
+  readonly box: Box;
+}
+
+/** The automatic top of the E/B axis is at most this many times the largest Δ/B. */
+export const DEFAULT_E_SPAN = 2;
+
+/** Room right of the plot for the curve labels, px. */
+const LABEL_COLUMN = 108;
+/** Room above the plot for the title and the strip naming the spin regions, px. */
+const HEADER = 66;
+/** Gap between the plot's right edge and the curve labels (where leader lines run), px. */
+const LEADER = 12;
+
+const LABEL: TextStyle = { size: STYLE.labelSize, color: STYLE.ink };
+
+/** The top of the E/B axis when none is given: the highest curve, capped, rounded up to 5 or 10. */
+export function automaticEMax(diagram: CorrelationDiagram): number {
+  let highest = 0;
+  for (const c of diagram.curves) for (const v of c.values) highest = Math.max(highest, v);
+  const top = Math.min(DEFAULT_E_SPAN * diagram.maxDeltaOverB, highest * 1.04);
+  const step = top > 50 ? 10 : 5;
+  return Math.max(step, Math.ceil(top / step) * step);
+}
+
+/** Index of the spin region holding Δ/B = x. */
+function regionIndex(diagram: CorrelationDiagram, x: number): number {
+  const i = diagram.regions.findIndex((r) => x <= r.toDeltaOverB);
+  return i < 0 ? diagram.regions.length - 1 : i;
+}
+
+/** Colour of the spin-allowed curves of region `r`: one colour without a crossover, else high spin and low spin apart. */
+function regionColor(diagram: CorrelationDiagram, r: number): string {
+  if (diagram.regions.length < 2) return STYLE.allowed;
+  const top = Math.max(...diagram.regions.map((x) => x.S));
+  return diagram.regions[r]?.S === top ? STYLE.allowed : STYLE.allowedLowSpin;
+}
+
+function allowedIn(diagram: CorrelationDiagram, curve: DiagramCurve, r: number): boolean {
+  return diagram.regions[r]?.S === curve.S;
+}
+
+/** Whether a curve is spin-allowed on some side of the diagram (and so must be named). */
+function everAllowed(diagram: CorrelationDiagram, curve: DiagramCurve): boolean {
+  return diagram.regions.some((r) => r.S === curve.S);
+}
+
+/**
+ * The chart.js configuration of a correlation diagram (type `scatter` with lines, x = Δ/B,
+ * y = E/B), with the in-figure labels as a plugin and the sample, if given, drawn on it.
+ * @throws InputError for a non-positive `eMax`, or a sample that does not fit (see {@link withSample}).
+ */
+export function diagramChart(
+  diagram: CorrelationDiagram,
+  options: DiagramChartOptions = {},
+): ChartConfiguration {
+  const eMax = options.eMax ?? automaticEMax(diagram);
+  ensure(Number.isFinite(eMax) && eMax > 0, `top of the E/B axis ${eMax}: expected a positive number`);
+  const xs = diagram.deltaOverB;
+  // Segment i runs from point i to i + 1; its style follows the spin region of its middle.
+  const segmentRegion = xs.slice(1).map((x, i) => regionIndex(diagram, ((xs[i] ?? 0) + x) / 2));
+  // chart.js draws the first dataset on top: the spin-allowed curves go first.
+  const curves = [...diagram.curves].sort(
+    (a, b) => Number(everAllowed(diagram, b)) - Number(everAllowed(diagram, a)),
+  );
+  const datasets = curves.map((curve) => {
+    const style = (i: number) => {
+      const r = segmentRegion[i] ?? 0;
+      return allowedIn(diagram, curve, r)
+        ? { color: regionColor(diagram, r), width: STYLE.allowedWidth }
+        : { color: STYLE.forbidden, width: STYLE.forbiddenWidth };
+    };
+    return {
+      label: curve.label,
+      data: xs.map((x, i) => ({ x, y: curve.values[i] ?? Number.NaN })),
+      showLine: true,
+      pointRadius: 0,
+      pointHoverRadius: 0,
+      borderColor: style(0).color,
+      borderWidth: style(0).width,
+      borderCapStyle: 'round',
+      borderJoinStyle: 'round',
+      tension: 0,
+      segment: {
+        borderColor: (ctx: { p0DataIndex: number }) => style(ctx.p0DataIndex).color,
+        borderWidth: (ctx: { p0DataIndex: number }) => style(ctx.p0DataIndex).width,
+      },
+    } as ChartDataset<'scatter'>;
+  });
+  const tick = { font: { size: STYLE.tickSize }, color: STYLE.ink };
+  const axisTitle = (text: string) => ({
+    display: true,
+    text,
+    font: { size: STYLE.axisTitleSize },
+    color: STYLE.ink,
+  });
+  const config: ChartConfiguration = {
+    type: 'scatter',
+    data: { datasets: datasets as ChartDataset[] },
+    options: {
+      parsing: false,
+      normalized: true,
+      layout: { padding: { top: HEADER, right: LABEL_COLUMN, left: 12, bottom: 6 } },
+      plugins: { legend: { display: false }, tooltip: { enabled: false }, title: { display: false } },
+      scales: {
+        x: {
+          type: 'linear',
+          min: 0,
+          max: diagram.maxDeltaOverB,
+          title: axisTitle('Δ/B'),
+          ticks: { ...tick, ...(diagram.maxDeltaOverB <= 60 ? { stepSize: 5 } : {}) },
+          grid: { color: STYLE.grid },
+          border: { color: STYLE.ink },
+        },
+        y: {
+          type: 'linear',
+          min: 0,
+          max: eMax,
+          title: axisTitle('E/B'),
+          ticks: { ...tick, ...(eMax <= 120 ? { stepSize: 10 } : {}) },
+          grid: { color: STYLE.grid },
+          border: { color: STYLE.ink },
+        },
+      },
+    },
+    plugins: [regionBackdrop(diagram), diagramLabels(diagram, options.ion, options.onLabels)],
+  };
+  return options.sample ? withSample(config, options.sample) : config;
+}
+
+/**
+ * The bytes of a correlation-diagram figure (PNG, SVG or PDF).
+ * @throws InputError as {@link diagramChart}.
+ */
+export function renderDiagram(
+  diagram: CorrelationDiagram,
+  figure: FigureOptions,
+  options: DiagramChartOptions = {},
+): Buffer {
+  return renderChart(diagramChart(diagram, options), {
+    title: diagramTitleText(diagram, options.ion),
+    ...figure,
+  });
+}
+
+const GEOMETRY_NAME = { oct: 'an octahedral (O_h)', tet: 'a tetrahedral (T_d)' } as const;
+
+/** The figure title in the `^`/`_` markup of {@link markupRuns}; C/B is left out for d¹ and d⁹, where it plays no part. */
+function diagramTitleMarkup(diagram: CorrelationDiagram, ion: string | undefined): string {
+  const who = `${ion === undefined ? '' : `${ionMarkup(ion)}, `}d^${diagram.n}`;
+  const ratio = diagram.n === 1 || diagram.n === 9 ? '' : `, C/B = ${diagram.cOverB.toFixed(2)}`;
+  return `${who} in ${GEOMETRY_NAME[diagram.geometry]} field${ratio}`;
+}
+
+/** The figure title as plain text (the PDF document title). */
+export function diagramTitleText(diagram: CorrelationDiagram, ion?: string): string {
+  return diagramTitleMarkup(diagram, ion).replace(/[\^_]/g, '');
+}
+
+/** A faint tint over the low-spin side(s), and the dashed lines at each change of ground state, under the curves. */
+function regionBackdrop(diagram: CorrelationDiagram): Plugin {
+  return {
+    id: 'termsplitRegions',
+    beforeDatasetsDraw(chart) {
+      const ctx = chartContext(chart);
+      const { top, bottom } = chart.chartArea;
+      const px = (x: number) => chart.scales.x?.getPixelForValue(x) ?? 0;
+      ctx.save();
+      diagram.regions.forEach((region, r) => {
+        if (regionColor(diagram, r) !== STYLE.allowedLowSpin) return;
+        ctx.fillStyle = 'rgba(164, 67, 28, 0.045)';
+        ctx.fillRect(
+          px(region.fromDeltaOverB),
+          top,
+          px(region.toDeltaOverB) - px(region.fromDeltaOverB),
+          bottom - top,
+        );
+      });
+      ctx.strokeStyle = STYLE.crossover;
+      ctx.lineWidth = 1.2;
+      ctx.setLineDash([5, 4]);
+      for (const c of diagram.crossings) {
+        ctx.beginPath();
+        ctx.moveTo(px(c.deltaOverB), top);
+        ctx.lineTo(px(c.deltaOverB), bottom);
+        ctx.stroke();
+      }
+      ctx.restore();
+    },
+  };
+}
+
+/** A label waiting to be drawn. */
+interface Placed extends DiagramLabel {
+  runs: TextRun[];
+  style: TextStyle;
+  box: Box;
+  /** Where the leader line starts (the curve's end), if the label moved away from it. */
+  leaderFrom?: { x: number; y: number };
+}
+
+/** Everything drawn over the plot: frame, title, region names, and the labels of curves and terms. */
+function diagramLabels(
+  diagram: CorrelationDiagram,
+  ion: string | undefined,
+  onLabels: ((labels: readonly DiagramLabel[]) => void) | undefined,
+): Plugin {
+  return {
+    id: 'termsplitDiagramLabels',
+    afterDraw(chart) {
+      const ctx = chartContext(chart);
+      const area = chart.chartArea;
+      ctx.save();
+      ctx.strokeStyle = STYLE.ink;
+      ctx.lineWidth = 1;
+      ctx.strokeRect(area.left, area.top, area.right - area.left, area.bottom - area.top);
+      ctx.restore();
+      drawHeader(ctx, chart, diagram, ion);
+      const placed = layoutLabels(ctx, chart, diagram);
+      for (const p of placed) {
+        if (p.leaderFrom) {
+          ctx.save();
+          ctx.strokeStyle = p.style.color;
+          ctx.globalAlpha = 0.7;
+          ctx.lineWidth = 0.7;
+          ctx.beginPath();
+          ctx.moveTo(p.leaderFrom.x, p.leaderFrom.y);
+          ctx.lineTo(p.box.left - 3, (p.box.top + p.box.bottom) / 2);
+          ctx.stroke();
+          ctx.restore();
+        }
+        drawRuns(ctx, p.runs, p.box.left, (p.box.top + p.box.bottom) / 2, p.style);
+      }
+      const colors = diagram.regions.length > 1 ? [STYLE.allowed, STYLE.allowedLowSpin] : [STYLE.allowed];
+      const anyForbidden = diagram.curves.some((c) => diagram.regions.some((r) => r.S !== c.S));
+      drawKey(ctx, spinKey(colors, anyForbidden), chart.chartArea.right, chart.height - 16);
+      onLabels?.(placed.map((p) => ({ text: p.text, kind: p.kind, box: p.box })));
+    },
+  };
+}
+
+/** The title, and the strip under it naming the spin regions and the Δ/B of each crossover. */
+function drawHeader(
+  ctx: SKRSContext2D,
+  chart: Chart,
+  diagram: CorrelationDiagram,
+  ion: string | undefined,
+): void {
+  const area = chart.chartArea;
+  const px = (x: number) => chart.scales.x?.getPixelForValue(x) ?? 0;
+  const title: TextStyle = { size: STYLE.titleSize, color: STYLE.ink, bold: true };
+  drawRuns(
+    ctx,
+    markupRuns(diagramTitleMarkup(diagram, ion)),
+    (area.left + area.right) / 2,
+    18,
+    title,
+    'center',
+  );
+  if (diagram.crossings.length === 0) return;
+  const y = area.top - 14;
+  const strip: TextStyle = { size: STYLE.smallSize, color: STYLE.crossover };
+  const taken: Box[] = [];
+  for (const c of diagram.crossings) {
+    const runs = markupRuns(`Δ/B = ${c.deltaOverB.toFixed(2)}`);
+    const w = measureRuns(ctx, runs, strip);
+    drawRuns(ctx, runs, px(c.deltaOverB), y, strip, 'center');
+    taken.push({
+      left: px(c.deltaOverB) - w / 2 - 22,
+      right: px(c.deltaOverB) + w / 2 + 22,
+      top: 0,
+      bottom: 1,
+    });
+  }
+  const top = Math.max(...diagram.regions.map((r) => r.S));
+  diagram.regions.forEach((region, r) => {
+    const name = `${region.S === top ? 'high spin' : 'low spin'} (S = ${halfIntegerText(region.S)})`;
+    const style: TextStyle = { size: STYLE.smallSize + 1, color: regionColor(diagram, r), bold: true };
+    const runs = markupRuns(name);
+    const w = measureRuns(ctx, runs, style);
+    const lo = px(region.fromDeltaOverB);
+    const hi = px(region.toDeltaOverB);
+    // Centred over the region, then slid away from the crossover captions if it meets one.
+    let left = (lo + hi) / 2 - w / 2;
+    for (const t of taken) {
+      const box = { left, right: left + w, top: 0, bottom: 1 };
+      if (!overlaps(box, t)) continue;
+      left = left + w / 2 < (t.left + t.right) / 2 ? t.left - w : t.right;
+    }
+    if (left >= lo - 2 && left + w <= hi + 2) drawRuns(ctx, runs, left, y, style);
+  });
+}
+
+/** What the label placers share while laying out one figure. */
+interface Layout {
+  readonly ctx: SKRSContext2D;
+  readonly chart: Chart;
+  readonly diagram: CorrelationDiagram;
+  readonly x: Scale;
+  readonly y: Scale;
+  /** Top of the E/B axis. */
+  readonly eMax: number;
+  /** Height of one label, px. */
+  readonly h: number;
+  /** The plot area, where labels inside the plot must stay. */
+  readonly inside: Box;
+  /** Left edge of the label column right of the plot. */
+  readonly columnLeft: number;
+  readonly out: Placed[];
+  /** Boxes already taken (with their clearance). */
+  readonly taken: Box[];
+  /** Curves already named. */
+  readonly labelled: Set<string>;
+}
+
+/**
+ * Positions of every label, in order of precedence: curve ends in the column right of the plot
+ * (every spin-allowed curve, spread apart with leader lines), the ground state of each region
+ * but the last, spin-allowed curves leaving through the top, spin-allowed curves still unnamed
+ * (beside the curve), the free-ion terms at Δ/B = 0, and the other curve ends where there is room.
+ */
+function layoutLabels(ctx: SKRSContext2D, chart: Chart, diagram: CorrelationDiagram): Placed[] {
+  const { x, y } = chart.scales;
+  if (!x || !y) return [];
+  const area = chart.chartArea;
+  const layout: Layout = {
+    ctx,
+    chart,
+    diagram,
+    x,
+    y,
+    eMax: y.max,
+    h: runsHeight(LABEL),
+    inside: { left: area.left, right: area.right, top: area.top, bottom: area.bottom },
+    columnLeft: area.right + LEADER,
+    out: [],
+    taken: [],
+    labelled: new Set(),
+  };
+  const last = diagram.deltaOverB.length - 1;
+  const ends = diagram.curves
+    .map((curve) => ({ curve, value: curve.values[last] ?? Number.NaN }))
+    .filter((e) => e.value >= 0 && e.value <= layout.eMax);
+  labelAllowedEnds(
+    layout,
+    ends.filter((e) => everAllowed(diagram, e.curve)),
+  );
+  labelRegionGrounds(layout);
+  labelTopExits(layout);
+  labelBeside(layout);
+  labelTerms(layout);
+  labelOtherEnds(
+    layout,
+    ends.filter((e) => !everAllowed(diagram, e.curve)),
+  );
+  return layout.out;
+}
+
+/** A label's box of width `w` with its left edge at `left` and its middle at `cy`. */
+function boxAt(layout: Layout, left: number, cy: number, w: number): Box {
+  return { left, right: left + w, top: cy - layout.h / 2, bottom: cy + layout.h / 2 };
+}
+
+/** Colour of a curve's label in region `r`: the region's strong colour where allowed, else where it is allowed anywhere, else light. */
+function curveStyle(diagram: CorrelationDiagram, curve: DiagramCurve, r: number): TextStyle {
+  if (allowedIn(diagram, curve, r)) return { ...LABEL, color: regionColor(diagram, r) };
+  const k = diagram.regions.findIndex((region) => region.S === curve.S);
+  return { ...LABEL, color: k >= 0 ? regionColor(diagram, k) : STYLE.forbiddenText };
+}
+
+/** Records a label; a leader line is drawn when it had to move more than a pixel and a half from `target`. */
+function place(layout: Layout, label: Placed, clearance: Box, target?: number): void {
+  layout.taken.push(clearance);
+  layout.labelled.add(label.text);
+  const cy = (label.box.top + label.box.bottom) / 2;
+  const moved = target !== undefined && Math.abs(cy - target) > 1.5;
+  layout.out.push(moved ? { ...label, leaderFrom: { x: layout.inside.right + 2, y: target } } : label);
+}
+
+type CurveEnd = { curve: DiagramCurve; value: number };
+
+function labelAllowedEnds(layout: Layout, ends: readonly CurveEnd[]): void {
+  const { diagram, inside } = layout;
+  const targets = ends.map((e) => layout.y.getPixelForValue(e.value));
+  const spread = spreadLabels(targets, layout.h + 1, inside.top - 4, inside.bottom + 8);
+  ends.forEach((e, i) => {
+    const runs = stateRuns(e.curve.label);
+    const style = curveStyle(diagram, e.curve, diagram.regions.length - 1);
+    const box = boxAt(layout, layout.columnLeft, spread[i] ?? 0, measureRuns(layout.ctx, runs, style));
+    place(layout, { text: e.curve.label, kind: 'end', runs, style, box }, box, targets[i]);
+  });
+}
+
+/** The ground state of each region but the last, on the zero line (the last one's is named at the right end). */
+function labelRegionGrounds(layout: Layout): void {
+  const { diagram, inside } = layout;
+  diagram.regions.slice(0, -1).forEach((region, r) => {
+    const runs = stateRuns(region.ground);
+    const style = { ...LABEL, color: regionColor(diagram, r), halo: true };
+    const w = measureRuns(layout.ctx, runs, style);
+    const mid = layout.x.getPixelForValue((region.fromDeltaOverB + region.toDeltaOverB) / 2);
+    const box = boxAt(layout, mid - w / 2, inside.bottom - layout.h / 2 - 3, w);
+    layout.taken.push(box);
+    layout.out.push({ text: region.ground, kind: 'ground', runs, style, box });
+  });
+}
+
+/** Spin-allowed curves that leave through the top: named just inside, beside the exit, in one row. */
+function labelTopExits(layout: Layout): void {
+  const { diagram, inside } = layout;
+  const exits = diagram.curves
+    .map((curve) => ({ curve, x: topExit(diagram, curve, layout.eMax) }))
+    .filter((e): e is { curve: DiagramCurve; x: number } => e.x !== undefined)
+    .filter((e) => allowedIn(diagram, e.curve, regionIndex(diagram, e.x)))
+    .sort((a, b) => a.x - b.x);
+  for (const e of exits) {
+    const runs = stateRuns(e.curve.label);
+    const style = { ...curveStyle(diagram, e.curve, regionIndex(diagram, e.x)), halo: true };
+    const w = measureRuns(layout.ctx, runs, style);
+    const px = layout.x.getPixelForValue(e.x);
+    const left = px + 4 + w <= inside.right - 2 ? px + 4 : px - 4 - w;
+    const box = boxAt(layout, left, inside.top + layout.h / 2 + 2, w);
+    const spot = freeSpot(pad(box), layout.taken, [0], inside);
+    if (spot) place(layout, { text: e.curve.label, kind: 'exit', runs, style, box }, spot);
+  }
+}
+
+/**
+ * Curves spin-allowed before a crossover and still unnamed: named beside the curve there. (In
+ * the last region the ends and exits carry the labels; a curve lost in the bundle that leaves
+ * through the top is better unnamed than named ambiguously.)
+ */
+function labelBeside(layout: Layout): void {
+  const { diagram, eMax, h } = layout;
+  // Candidate points along the region, nearest its middle first.
+  const fractions = Array.from({ length: 16 }, (_, k) => 0.15 + 0.05 * k).sort(
+    (a, b) => Math.abs(a - 0.55) - Math.abs(b - 0.55),
+  );
+  diagram.regions.slice(0, -1).forEach((region, r) => {
+    const strong = diagram.curves.filter((c) => allowedIn(diagram, c, r));
+    for (const curve of strong) {
+      if (layout.labelled.has(curve.label)) continue;
+      const runs = stateRuns(curve.label);
+      const style = { ...curveStyle(diagram, curve, r), halo: true };
+      const w = measureRuns(layout.ctx, runs, style);
+      for (const f of fractions) {
+        const x = region.fromDeltaOverB + f * (region.toDeltaOverB - region.fromDeltaOverB);
+        const y = valueAt(diagram, curve, x);
+        if (!(y > 0.03 * eMax && y < 0.95 * eMax)) continue;
+        // Above the curve on the side where it is lower, or below it on the other side; never
+        // through a strong curve of the region (its own included).
+        const rising = valueAt(diagram, curve, x + 1e-3 * diagram.maxDeltaOverB) >= y;
+        const px = layout.x.getPixelForValue(x);
+        const py = layout.y.getPixelForValue(y);
+        const above = boxAt(layout, rising ? px - 3 - w : px + 3, py - 3 - h / 2, w);
+        const below = boxAt(layout, rising ? px + 3 : px - 3 - w, py + 3 + h / 2, w);
+        const box = [above, below].find(
+          (b) =>
+            freeSpot(pad(b), layout.taken, [0], layout.inside) &&
+            !strong.some((c) => crosses(b, c, diagram, layout.chart)),
+        );
+        if (!box) continue;
+        place(layout, { text: curve.label, kind: 'beside', runs, style, box }, pad(box));
+        break;
+      }
+    }
+  });
+}
+
+/** Free-ion terms where the curves start, just inside the left edge; those of the ground spin first. */
+function labelTerms(layout: Layout): void {
+  const { diagram, inside, h } = layout;
+  const terms = new Map<string, { S: number; value: number }>();
+  for (const c of diagram.curves)
+    if (!terms.has(c.parent)) terms.set(c.parent, { S: c.S, value: c.values[0] ?? 0 });
+  const groundS = diagram.regions[0]?.S;
+  const list = [...terms.entries()]
+    .filter(([, t]) => t.value <= layout.eMax)
+    .sort((a, b) => Number(b[1].S === groundS) - Number(a[1].S === groundS) || a[1].value - b[1].value);
+  for (const [name, t] of list) {
+    const runs = termRuns(name);
+    const color = t.S === groundS ? regionColor(diagram, 0) : STYLE.forbiddenText;
+    const style: TextStyle = { ...LABEL, color, halo: true };
+    const w = measureRuns(layout.ctx, runs, style);
+    const cy = Math.min(layout.y.getPixelForValue(t.value) - h / 2, inside.bottom - h / 2 - 2);
+    const spot = freeSpot(
+      boxAt(layout, inside.left + 5, cy, w),
+      layout.taken,
+      nearShifts(h * 0.6, 2),
+      inside,
+    );
+    if (!spot) continue;
+    layout.taken.push(spot);
+    layout.out.push({ text: name, kind: 'term', runs, style, box: spot });
+  }
+}
+
+/** Spin-forbidden curve ends in the column, each only where a place is free near its end. */
+function labelOtherEnds(layout: Layout, ends: readonly CurveEnd[]): void {
+  const { diagram, inside, h } = layout;
+  const column: Box = {
+    left: inside.right,
+    right: layout.chart.width,
+    top: inside.top - 12,
+    bottom: inside.bottom + 12,
+  };
+  for (const e of [...ends].sort((a, b) => a.value - b.value)) {
+    const runs = stateRuns(e.curve.label);
+    const style = curveStyle(diagram, e.curve, diagram.regions.length - 1);
+    const target = layout.y.getPixelForValue(e.value);
+    const box = boxAt(layout, layout.columnLeft, target, measureRuns(layout.ctx, runs, style));
+    const spot = freeSpot(box, layout.taken, nearShifts(h * 1.1), column);
+    if (spot) place(layout, { text: e.curve.label, kind: 'end', runs, style, box: spot }, spot, target);
+  }
+}
+
+/** Δ/B where a curve that ends above the top of the axis last crosses it, or undefined if it is never below it. */
+function topExit(diagram: CorrelationDiagram, curve: DiagramCurve, eMax: number): number | undefined {
+  const xs = diagram.deltaOverB;
+  const v = curve.values;
+  const last = v.length - 1;
+  if (!((v[last] ?? 0) > eMax)) return undefined;
+  for (let i = last - 1; i >= 0; i--) {
+    const a = v[i] ?? 0;
+    if (a <= eMax) {
+      const b = v[i + 1] ?? 0;
+      const x0 = xs[i] ?? 0;
+      const x1 = xs[i + 1] ?? 0;
+      return x0 + ((eMax - a) / (b - a)) * (x1 - x0);
+    }
+  }
+  return undefined;
+}
+
+/** A curve's E/B at Δ/B = x, by linear interpolation between the sweep's points. */
+function valueAt(diagram: CorrelationDiagram, curve: DiagramCurve, x: number): number {
+  const xs = diagram.deltaOverB;
+  let i = 0;
+  while (i + 2 < xs.length && (xs[i + 1] ?? 0) < x) i++;
+  const x0 = xs[i] ?? 0;
+  const x1 = xs[i + 1] ?? x0;
+  const a = curve.values[i] ?? 0;
+  const b = curve.values[i + 1] ?? a;
+  return x1 === x0 ? a : a + ((x - x0) / (x1 - x0)) * (b - a);
+}
+
+/** Room kept clear on either side of a label placed among others, px. */
+const LABEL_PAD = 4;
+
+/** A box widened on both sides by `dx` (narrowed for negative `dx`). */
+function pad(box: Box, dx = LABEL_PAD): Box {
+  return { ...box, left: box.left - dx, right: box.right + dx };
+}
+
+/** Whether a curve passes through a box (pixels), judged at the box edges and every sweep point between. */
+function crosses(box: Box, curve: DiagramCurve, diagram: CorrelationDiagram, chart: Chart): boolean {
+  const xScale = chart.scales.x;
+  const yScale = chart.scales.y;
+  if (!xScale || !yScale) return false;
+  const x0 = xScale.getValueForPixel(box.left) ?? 0;
+  const x1 = xScale.getValueForPixel(box.right) ?? 0;
+  const xs = [x0, ...diagram.deltaOverB.filter((x) => x > x0 && x < x1), x1];
+  const ys = xs.map((x) => yScale.getPixelForValue(valueAt(diagram, curve, x)));
+  // Inside at a sample point, or passing from above the box to below it between two.
+  return ys.some(
+    (y, i) =>
+      (y > box.top && y < box.bottom) ||
+      (i > 0 && Math.min(y, ys[i - 1] ?? y) <= box.top && Math.max(y, ys[i - 1] ?? y) >= box.bottom),
+  );
+}

@@ -1,0 +1,43 @@
+import type { SKRSContext2D } from '@napi-rs/canvas';
+import { STYLE } from './style.js';
+import { drawRuns, measureRuns, type TextRun, type TextStyle } from './typeset.js';
+
+/** One entry of a line key: short line samples in one or more colours, then a word. */
+export interface KeyItem {
+  readonly colors: readonly string[];
+  readonly width: number;
+  readonly text: string;
+}
+
+/**
+ * The entries every figure here uses: strong lines spin-allowed, light lines spin-forbidden
+ * (left out where nothing is spin-forbidden, as for d¹ and d⁹).
+ */
+export function spinKey(allowedColors: readonly string[], anyForbidden = true): KeyItem[] {
+  const allowed = { colors: allowedColors, width: STYLE.allowedWidth, text: 'spin-allowed' };
+  const forbidden = { colors: [STYLE.forbidden], width: STYLE.forbiddenWidth + 0.3, text: 'spin-forbidden' };
+  return anyForbidden ? [allowed, forbidden] : [allowed];
+}
+
+/** Draws a one-line key ending at `right`, vertically centred on `y` (a small key, not a legend box). */
+export function drawKey(ctx: SKRSContext2D, items: readonly KeyItem[], right: number, y: number): void {
+  const style: TextStyle = { size: STYLE.smallSize, color: STYLE.muted };
+  let x = right;
+  for (const item of [...items].reverse()) {
+    const runs: TextRun[] = [{ text: item.text, shift: 'base' }];
+    x -= measureRuns(ctx, runs, style);
+    drawRuns(ctx, runs, x, y, style);
+    for (const color of [...item.colors].reverse()) {
+      x -= 26;
+      ctx.save();
+      ctx.strokeStyle = color;
+      ctx.lineWidth = item.width;
+      ctx.beginPath();
+      ctx.moveTo(x, y);
+      ctx.lineTo(x + 20, y);
+      ctx.stroke();
+      ctx.restore();
+    }
+    x -= 18;
+  }
+}
