@@ -1,7 +1,13 @@
+import { benchCrossover } from './crossover.js';
+import { benchDiagram } from './diagram.js';
 import { benchSolver } from './solver.js';
 
 /** `npm run bench`: every benchmark of the project, printed. Timings depend on the machine. */
-const benches: [string, () => void | Promise<void>][] = [['solver', benchSolver]];
+const benches: [string, () => void | Promise<void>][] = [
+  ['solver', benchSolver],
+  ['diagram', benchDiagram],
+  ['crossover', benchCrossover],
+];
 
 console.log(`termsplit benchmark — Node ${process.version}, ${new Date().toISOString().slice(0, 10)}\n`);
 for (const [name, bench] of benches) {
