@@ -1,0 +1,244 @@
+import type { FieldParameters } from './bandModel.js';
+import type { RatioScan, ScanLevel } from './ratioScan.js';
+
+/**
+ * The search over assignments of observed bands to transitions: at every point of a
+ * {@link RatioScan}, the observed bands in energy order are given, in the same order, to a
+ * choice of the lowest transitions from that point's ground state (order-preserving: a higher
+ * band never goes to a lower transition), each choice gets its best scale in closed form, and
+ * every distinct choice keeps the scan points where it fits best as starting values.
+ */
+
+/** One observed band as the search sees it. */
+export interface SearchBand {
+  /** Band maximum, cm⁻¹. */
+  readonly energy: number;
+  /** Weight 1/σ² of its residual. */
+  readonly weight: number;
+}
+
+/** Defaults of {@link AssignmentSearchOptions}. */
+export const ASSIGNMENT_DEFAULTS = {
+  includeSpinForbidden: false,
+  extraCandidates: 2,
+  extraCandidatesWithForbidden: 8,
+  startsPerAssignment: 2,
+} as const;
+
+/** Options of {@link searchAssignments}. */
+export interface AssignmentSearchOptions {
+  /** Identity key fixed for each band (same order as the bands); null or missing means searched. */
+  readonly fixed?: readonly (string | null | undefined)[];
+  /** Offer spin-forbidden transitions to the search too. @default false */
+  readonly includeSpinForbidden?: boolean;
+  /**
+   * How many transitions beyond the number of searched bands are offered at each point (the
+   * lowest ones; so up to this many may go unobserved below the highest assigned one).
+   * @default 2 with spin-allowed transitions only, 8 with spin-forbidden ones too
+   */
+  readonly extraCandidates?: number;
+  /** Local minima along the scan kept as starting values per assignment. @default 2 */
+  readonly startsPerAssignment?: number;
+}
+
+/** An assignment with a starting point for the fit. */
+export interface AssignmentCandidate {
+  /** Identity key of the ground state the transitions start from. */
+  readonly groundKey: string;
+  readonly groundLabel: string;
+  /** Identity key of the level each band is assigned to, in the bands' order. */
+  readonly keys: readonly string[];
+  /** Labels of those levels at the starting point. */
+  readonly labels: readonly string[];
+  /** Weighted sum of squared residuals at the starting point. */
+  readonly chiSquare: number;
+  /** Index of the starting point in the scan. */
+  readonly pointIndex: number;
+  /** Starting parameters: the scan ray times its best scale. */
+  readonly start: FieldParameters;
+  /** The starting point is the first or last of the scan (the best fit may lie beyond it). */
+  readonly atScanEdge: boolean;
+  /** Bands assigned to spin-forbidden transitions. */
+  readonly spinForbidden: number;
+}
+
+/** Outcome of {@link searchAssignments}. */
+export interface AssignmentSearch {
+  /** Every distinct assignment and start, best scan fit first. */
+  readonly candidates: readonly AssignmentCandidate[];
+  /** Number of distinct assignments tried. */
+  readonly tried: number;
+  /** Labels of ground states met on the scan for which no assignment of all bands existed. */
+  readonly groundsWithout: readonly string[];
+}
+
+interface Evaluation {
+  chiSquare: number;
+  scale: number;
+  labels: string[];
+  spinForbidden: number;
+}
+
+/** Calls `visit` with every increasing choice of `k` indices from 0…n−1. */
+function combinations(n: number, k: number, visit: (chosen: readonly number[]) => void): void {
+  const chosen: number[] = [];
+  const step = (from: number) => {
+    if (chosen.length === k) {
+      visit(chosen);
+      return;
+    }
+    for (let i = from; i <= n - (k - chosen.length); i++) {
+      chosen.push(i);
+      step(i + 1);
+      chosen.pop();
+    }
+  };
+  step(0);
+}
+
+/**
+ * The minimum of the parabola through χ² at scan points i−1, i, i+1 (evenly spaced in log Δ/B),
+ * kept within half a step of i, with the scale interpolated linearly: a better start than the
+ * grid point itself. Undefined at the ends of the scan or where the parabola does not open upward.
+ */
+function parabolicVertex(
+  scan: RatioScan,
+  i: number,
+  chi: (i: number) => number,
+  scaleAt: (i: number) => number | undefined,
+): { direction: FieldParameters; scale: number; chiSquare: number } | undefined {
+  const [below, here, above] = [chi(i - 1), chi(i), chi(i + 1)];
+  const curvature = below - 2 * here + above;
+  if (scan.scale !== 'B' || !Number.isFinite(below) || !Number.isFinite(above) || !(curvature > 0)) {
+    return undefined;
+  }
+  const offset = Math.max(-0.5, Math.min(0.5, (0.5 * (below - above)) / curvature));
+  const j = offset < 0 ? i - 1 : i + 1;
+  const f = Math.abs(offset);
+  const x = scan.points[i]?.deltaOverB;
+  const xj = scan.points[j]?.deltaOverB;
+  const s = scaleAt(i);
+  const sj = scaleAt(j);
+  if (x == null || xj == null || s === undefined || sj === undefined) return undefined;
+  const deltaOverB = x * (xj / x) ** f;
+  return {
+    direction: { dq: deltaOverB / 10, B: 1, C: scan.cOverB },
+    scale: s + f * (sj - s),
+    chiSquare: Math.max(0, here - (below - above) ** 2 / (8 * curvature)),
+  };
+}
+
+/**
+ * All assignments of `bands` to transitions along `scan`, each with its best starting points.
+ * Assignments whose ground state is itself one of the fixed levels are skipped.
+ */
+export function searchAssignments(
+  scan: RatioScan,
+  bands: readonly SearchBand[],
+  options: AssignmentSearchOptions = {},
+): AssignmentSearch {
+  const includeSpinForbidden = options.includeSpinForbidden ?? ASSIGNMENT_DEFAULTS.includeSpinForbidden;
+  const extra =
+    options.extraCandidates ??
+    (includeSpinForbidden
+      ? ASSIGNMENT_DEFAULTS.extraCandidatesWithForbidden
+      : ASSIGNMENT_DEFAULTS.extraCandidates);
+  const startsPerAssignment = options.startsPerAssignment ?? ASSIGNMENT_DEFAULTS.startsPerAssignment;
+  const fixed = bands.map((_, i) => options.fixed?.[i] ?? null);
+  const fixedKeys = new Set(fixed.filter((k): k is string => k !== null));
+  const free = bands
+    .map((b, i) => ({ b, i }))
+    .filter(({ i }) => fixed[i] === null)
+    .sort((a, c) => a.b.energy - c.b.energy)
+    .map(({ i }) => i);
+
+  const found = new Map<string, { groundKey: string; keys: string[]; evals: Map<number, Evaluation> }>();
+  const groundsSeen = new Map<string, boolean>();
+  scan.points.forEach((point, pointIndex) => {
+    const ground = point.ground;
+    if (fixedKeys.has(ground.key)) return;
+    const groundLabel = ground.label;
+    if (!groundsSeen.has(groundLabel)) groundsSeen.set(groundLabel, false);
+    const byKey = new Map(point.excited.map((l) => [l.key, l]));
+    const pool = point.excited.filter(
+      (l) => !fixedKeys.has(l.key) && (includeSpinForbidden || l.spinAllowed),
+    );
+    const offered = Math.min(pool.length, free.length + extra);
+    if (offered < free.length) return;
+    groundsSeen.set(groundLabel, true);
+    const levels: ScanLevel[] = bands.map(() => ground);
+    fixed.forEach((k, i) => {
+      const level = k === null ? undefined : byKey.get(k);
+      if (level) levels[i] = level;
+    });
+    combinations(offered, free.length, (chosen) => {
+      chosen.forEach((c, j) => {
+        const level = pool[c];
+        const band = free[j];
+        if (level && band !== undefined) levels[band] = level;
+      });
+      // Best scale s along the ray: weighted linear least squares of ν ≈ s·e.
+      let num = 0;
+      let den = 0;
+      bands.forEach((b, i) => {
+        const e = levels[i]?.energy ?? 0;
+        num += b.weight * b.energy * e;
+        den += b.weight * e * e;
+      });
+      const scale = den > 0 ? num / den : 0;
+      if (!(scale > 0)) return;
+      let chiSquare = 0;
+      bands.forEach((b, i) => {
+        chiSquare += b.weight * (b.energy - scale * (levels[i]?.energy ?? 0)) ** 2;
+      });
+      const keys = levels.map((l) => l.key);
+      const id = `${ground.key}|${keys.join(',')}`;
+      let entry = found.get(id);
+      if (!entry) {
+        entry = { groundKey: ground.key, keys, evals: new Map() };
+        found.set(id, entry);
+      }
+      entry.evals.set(pointIndex, {
+        chiSquare,
+        scale,
+        labels: levels.map((l) => l.label),
+        spinForbidden: levels.filter((l) => !l.spinAllowed).length,
+      });
+    });
+  });
+
+  const last = scan.points.length - 1;
+  const candidates: AssignmentCandidate[] = [];
+  for (const entry of found.values()) {
+    const chi = (i: number) => entry.evals.get(i)?.chiSquare ?? Number.POSITIVE_INFINITY;
+    const minima = [...entry.evals.keys()]
+      .filter((i) => chi(i) <= chi(i - 1) && chi(i) <= chi(i + 1))
+      .sort((a, b) => chi(a) - chi(b))
+      .slice(0, startsPerAssignment);
+    for (const pointIndex of minima) {
+      const e = entry.evals.get(pointIndex);
+      const point = scan.points[pointIndex];
+      if (!e || !point) continue;
+      const vertex = parabolicVertex(scan, pointIndex, chi, (i) => entry.evals.get(i)?.scale);
+      const d = vertex?.direction ?? point.direction;
+      const scale = vertex?.scale ?? e.scale;
+      candidates.push({
+        groundKey: entry.groundKey,
+        groundLabel: point.ground.label,
+        keys: entry.keys,
+        labels: e.labels,
+        chiSquare: vertex?.chiSquare ?? e.chiSquare,
+        pointIndex,
+        start: { dq: scale * d.dq, B: scale * d.B, C: scale * d.C },
+        atScanEdge: last > 0 && (pointIndex === 0 || pointIndex === last),
+        spinForbidden: e.spinForbidden,
+      });
+    }
+  }
+  candidates.sort((a, b) => a.chiSquare - b.chiSquare);
+  return {
+    candidates,
+    tried: found.size,
+    groundsWithout: [...groundsSeen].filter(([, ok]) => !ok).map(([label]) => label),
+  };
+}
