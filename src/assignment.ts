@@ -112,6 +112,9 @@ function parabolicVertex(
   if (scan.scale !== 'B' || !Number.isFinite(below) || !Number.isFinite(above) || !(curvature > 0)) {
     return undefined;
   }
+  const chiSquare = Math.max(0, here - (below - above) ** 2 / (8 * curvature));
+  // Nothing to gain (e.g. an exact fit on the grid point itself).
+  if (!(here - chiSquare > 1e-9 * (below + above))) return undefined;
   const offset = Math.max(-0.5, Math.min(0.5, (0.5 * (below - above)) / curvature));
   const j = offset < 0 ? i - 1 : i + 1;
   const f = Math.abs(offset);
@@ -124,7 +127,7 @@ function parabolicVertex(
   return {
     direction: { dq: deltaOverB / 10, B: 1, C: scan.cOverB },
     scale: s + f * (sj - s),
-    chiSquare: Math.max(0, here - (below - above) ** 2 / (8 * curvature)),
+    chiSquare,
   };
 }
 

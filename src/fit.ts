@@ -365,6 +365,8 @@ function refine(ctx: Context, candidate: AssignmentCandidate): Refined | undefin
     { exactSumOfSquares: 1e-22 * scaleSq, ...ctx.leastSquares },
   );
   const p = fit.parameters;
+  // A parameter driven to its bound (B → 0, say) marks no genuine minimum of this assignment.
+  if (p.some((x) => x <= LOWER_BOUND * (1 + 1e-9))) return undefined;
   const field = fieldOf(names, p, ctx.cOverB);
   const levels = solve(field);
   const keys = levelKeys(levels);
@@ -464,7 +466,6 @@ function refine(ctx: Context, candidate: AssignmentCandidate): Refined | undefin
     (l, i) => i > 0 && i < highest && l.spinAllowed && !bandOf.has(keys[i] ?? ''),
   ).length;
   const reasonText = STOP_REASON_TEXT[fit.reason];
-  const atBound = names.filter((_, j) => (p[j] ?? 0) <= LOWER_BOUND * (1 + 1e-9));
   const warnings = solutionWarnings({
     result: levels,
     observed,
@@ -474,7 +475,6 @@ function refine(ctx: Context, candidate: AssignmentCandidate): Refined | undefin
     scanRange: [ctx.scan.minDeltaOverB, ctx.scan.maxDeltaOverB],
     cFitted,
     cHeld,
-    atBound,
     rms,
     reducedChiSquare: ctx.given && dof > 0 ? chiSquare / dof : null,
     converged: fit.converged,
@@ -687,8 +687,8 @@ export function fitBands(input: FitInput): FitResult {
   }
   if (refined.length === 0) {
     throw new InputError(
-      `the bands do not determine ${names.join(' and ')} under any assignment tried (no assigned band depends ` +
-        'on one of the parameters, or every fit left its ground state)',
+      `no assignment tried gives a usable fit of ${names.join(' and ')}: in each, some parameter is not fixed by ` +
+        'the assigned bands, runs to zero, or the fit leaves the ground state it assumed',
     );
   }
   const floor = (r: Refined) => Math.max(r.solution.weightedRms, 1);

@@ -53,7 +53,6 @@ export interface WarningContext {
   readonly scanRange: readonly [number, number];
   readonly cFitted: boolean;
   readonly cHeld: boolean;
-  readonly atBound: readonly string[];
   readonly rms: number;
   readonly reducedChiSquare: number | null;
   readonly converged: boolean;
@@ -170,12 +169,6 @@ export function solutionWarnings(ctx: WarningContext): FitWarning[] {
     out.push({
       code: 'range-edge',
       message: `Δ/B = ${ctx.deltaOverB.toFixed(1)} is at or beyond the edge of the scanned range ${lo}–${hi}`,
-    });
-  }
-  if (ctx.atBound.length > 0) {
-    out.push({
-      code: 'range-edge',
-      message: `${ctx.atBound.join(', ')} ran into its lower bound (near zero): the bands do not support this solution`,
     });
   }
   if (ctx.cFitted && ctx.result.B > 0) {
