@@ -1,4 +1,5 @@
 import type { FieldParameters } from './bandModel.js';
+import { InputError } from './errors.js';
 import type { RatioScan, ScanLevel } from './ratioScan.js';
 
 /**
@@ -72,11 +73,12 @@ export interface AssignmentSearch {
   readonly groundsWithout: readonly string[];
 }
 
-interface Evaluation {
-  chiSquare: number;
-  scale: number;
-  labels: string[];
-  spinForbidden: number;
+/** One assignment met on the scan: χ² and best scale at each point (∞ where not offered). */
+interface Entry {
+  groundKey: string;
+  keys: string[];
+  chi: Float64Array;
+  scale: Float64Array;
 }
 
 /** Calls `visit` with every increasing choice of `k` indices from 0…n−1. */
@@ -155,86 +157,110 @@ export function searchAssignments(
     .sort((a, c) => a.b.energy - c.b.energy)
     .map(({ i }) => i);
 
-  const found = new Map<string, { groundKey: string; keys: string[]; evals: Map<number, Evaluation> }>();
+  // Hot loop (thousands of choices per point with spin-forbidden transitions): a level is a
+  // one-character code in the assignment's id, and χ² and scale go into per-point arrays.
+  const codes = new Map<string, string>();
+  const codeOf = (key: string) => {
+    let c = codes.get(key);
+    if (c === undefined) {
+      c = String.fromCharCode(0x100 + codes.size);
+      codes.set(key, c);
+    }
+    return c;
+  };
+  const count = scan.points.length;
+  const found = new Map<string, Entry>();
   const groundsSeen = new Map<string, boolean>();
+  const energies = new Float64Array(bands.length);
   scan.points.forEach((point, pointIndex) => {
     const ground = point.ground;
     if (fixedKeys.has(ground.key)) return;
-    const groundLabel = ground.label;
-    if (!groundsSeen.has(groundLabel)) groundsSeen.set(groundLabel, false);
+    if (!groundsSeen.has(ground.label)) groundsSeen.set(ground.label, false);
     const byKey = new Map(point.excited.map((l) => [l.key, l]));
     const pool = point.excited.filter(
       (l) => !fixedKeys.has(l.key) && (includeSpinForbidden || l.spinAllowed),
     );
     const offered = Math.min(pool.length, free.length + extra);
     if (offered < free.length) return;
-    groundsSeen.set(groundLabel, true);
-    const levels: ScanLevel[] = bands.map(() => ground);
-    fixed.forEach((k, i) => {
-      const level = k === null ? undefined : byKey.get(k);
-      if (level) levels[i] = level;
-    });
+    groundsSeen.set(ground.label, true);
+    const levels: ScanLevel[] = bands.map((_, i) => byKey.get(fixed[i] ?? '') ?? ground);
+    const groundCode = codeOf(ground.key);
     combinations(offered, free.length, (chosen) => {
-      chosen.forEach((c, j) => {
-        const level = pool[c];
-        const band = free[j];
-        if (level && band !== undefined) levels[band] = level;
-      });
+      for (let j = 0; j < chosen.length; j++) {
+        const level = pool[chosen[j] as number] as ScanLevel;
+        levels[free[j] as number] = level;
+      }
       // Best scale s along the ray: weighted linear least squares of ν ≈ s·e.
       let num = 0;
       let den = 0;
-      bands.forEach((b, i) => {
-        const e = levels[i]?.energy ?? 0;
+      for (let i = 0; i < bands.length; i++) {
+        const b = bands[i] as SearchBand;
+        const e = (levels[i] as ScanLevel).energy;
+        energies[i] = e;
         num += b.weight * b.energy * e;
         den += b.weight * e * e;
-      });
+      }
       const scale = den > 0 ? num / den : 0;
       if (!(scale > 0)) return;
       let chiSquare = 0;
-      bands.forEach((b, i) => {
-        chiSquare += b.weight * (b.energy - scale * (levels[i]?.energy ?? 0)) ** 2;
-      });
-      const keys = levels.map((l) => l.key);
-      const id = `${ground.key}|${keys.join(',')}`;
+      for (let i = 0; i < bands.length; i++) {
+        const b = bands[i] as SearchBand;
+        chiSquare += b.weight * (b.energy - scale * (energies[i] as number)) ** 2;
+      }
+      let id = groundCode;
+      for (const level of levels) id += codeOf(level.key);
       let entry = found.get(id);
       if (!entry) {
-        entry = { groundKey: ground.key, keys, evals: new Map() };
+        entry = {
+          groundKey: ground.key,
+          keys: levels.map((l) => l.key),
+          chi: new Float64Array(count).fill(Number.POSITIVE_INFINITY),
+          scale: new Float64Array(count),
+        };
         found.set(id, entry);
       }
-      entry.evals.set(pointIndex, {
-        chiSquare,
-        scale,
-        labels: levels.map((l) => l.label),
-        spinForbidden: levels.filter((l) => !l.spinAllowed).length,
-      });
+      entry.chi[pointIndex] = chiSquare;
+      entry.scale[pointIndex] = scale;
     });
   });
 
-  const last = scan.points.length - 1;
+  const last = count - 1;
   const candidates: AssignmentCandidate[] = [];
+  const levelMaps = new Map<number, Map<string, ScanLevel>>();
+  const levelsAt = (i: number) => {
+    let map = levelMaps.get(i);
+    if (!map) {
+      const point = scan.points[i];
+      map = new Map(point ? [point.ground, ...point.excited].map((l) => [l.key, l]) : []);
+      levelMaps.set(i, map);
+    }
+    return map;
+  };
   for (const entry of found.values()) {
-    const chi = (i: number) => entry.evals.get(i)?.chiSquare ?? Number.POSITIVE_INFINITY;
-    const minima = [...entry.evals.keys()]
-      .filter((i) => chi(i) <= chi(i - 1) && chi(i) <= chi(i + 1))
-      .sort((a, b) => chi(a) - chi(b))
-      .slice(0, startsPerAssignment);
-    for (const pointIndex of minima) {
-      const e = entry.evals.get(pointIndex);
+    const chi = (i: number) => (i >= 0 && i < count ? (entry.chi[i] as number) : Number.POSITIVE_INFINITY);
+    const minima = [];
+    for (let i = 0; i < count; i++) {
+      if (Number.isFinite(chi(i)) && chi(i) <= chi(i - 1) && chi(i) <= chi(i + 1)) minima.push(i);
+    }
+    minima.sort((a, b) => chi(a) - chi(b));
+    for (const pointIndex of minima.slice(0, startsPerAssignment)) {
       const point = scan.points[pointIndex];
-      if (!e || !point) continue;
-      const vertex = parabolicVertex(scan, pointIndex, chi, (i) => entry.evals.get(i)?.scale);
+      if (!point) continue;
+      const at = levelsAt(pointIndex);
+      const assigned = entry.keys.map((k) => at.get(k));
+      const vertex = parabolicVertex(scan, pointIndex, chi, (i) => entry.scale[i]);
       const d = vertex?.direction ?? point.direction;
-      const scale = vertex?.scale ?? e.scale;
+      const scale = vertex?.scale ?? (entry.scale[pointIndex] as number);
       candidates.push({
         groundKey: entry.groundKey,
         groundLabel: point.ground.label,
         keys: entry.keys,
-        labels: e.labels,
-        chiSquare: vertex?.chiSquare ?? e.chiSquare,
+        labels: assigned.map((l) => l?.label ?? '?'),
+        chiSquare: vertex?.chiSquare ?? chi(pointIndex),
         pointIndex,
         start: { dq: scale * d.dq, B: scale * d.B, C: scale * d.C },
         atScanEdge: last > 0 && (pointIndex === 0 || pointIndex === last),
-        spinForbidden: e.spinForbidden,
+        spinForbidden: assigned.filter((l) => l && !l.spinAllowed).length,
       });
     }
   }
@@ -244,4 +270,46 @@ export function searchAssignments(
     tried: found.size,
     groundsWithout: [...groundsSeen].filter(([, ok]) => !ok).map(([label]) => label),
   };
+}
+
+/** Superscript and subscript digits to plain ones, whitespace removed. */
+function normaliseLabel(text: string): string {
+  const digits = '⁰¹²³⁴⁵⁶⁷⁸⁹';
+  const low = '₀₁₂₃₄₅₆₇₈₉';
+  return [...text.replace(/\s+/g, '')]
+    .map((c) => {
+      const i = digits.indexOf(c);
+      const j = low.indexOf(c);
+      return i >= 0 ? String(i) : j >= 0 ? String(j) : c;
+    })
+    .join('');
+}
+
+/**
+ * The identity key of a level named by its label (`3T1g(F)`, or Unicode `³T₁g(F)`; case is
+ * forgiven where unambiguous), as labelled at the scan's C/B — for d⁴–d⁶ the parent letters of
+ * some labels depend on C/B.
+ * @throws InputError for a label no level has (listing those that exist) or one that names
+ * several levels.
+ */
+export function levelKeyOfLabel(scan: RatioScan, text: string): string {
+  const { n, geometry } = scan;
+  const mid = scan.points[Math.floor(scan.points.length / 2)];
+  if (!mid) throw new Error('empty scan');
+  const levels = [mid.ground, ...mid.excited];
+  const wanted = normaliseLabel(text);
+  const exact = levels.find((l) => l.label === wanted);
+  if (exact) return exact.key;
+  const folded = levels.filter((l) => l.label.toLowerCase() === wanted.toLowerCase());
+  if (folded.length === 1 && folded[0]) return folded[0].key;
+  const bySymbol = levels.filter((l) => l.label.startsWith(`${wanted}(`));
+  if (bySymbol.length > 1) {
+    throw new InputError(
+      `assignment "${text}": d${n} has several such levels; expected one of ${bySymbol.map((l) => l.label).join(', ')}`,
+    );
+  }
+  throw new InputError(
+    `assignment "${text}": no such level of d${n} (${geometry === 'oct' ? 'octahedral' : 'tetrahedral'}); ` +
+      `expected one of ${levels.map((l) => l.label).join(', ')}`,
+  );
 }

@@ -1,12 +1,18 @@
-import { type AssignmentCandidate, searchAssignments } from './assignment.js';
+import {
+  ASSIGNMENT_DEFAULTS,
+  type AssignmentCandidate,
+  type AssignmentSearch,
+  levelKeyOfLabel,
+  searchAssignments,
+} from './assignment.js';
 import { type FieldParameters, levelKeys, solveAt, type Transitions, transitions } from './bandModel.js';
 import type { CubicResult } from './cubic.js';
 import { ensure, InputError } from './errors.js';
+import { type ErrorBasis, type FitErrors, type ParameterName, standardErrors } from './fitErrors.js';
 import { type FitWarning, solutionWarnings } from './fitWarnings.js';
 import { DEFAULT_C_OVER_B } from './ions.js';
 import type { Geometry } from './labels.js';
 import {
-  inverseNormalMatrix,
   type LeastSquaresOptions,
   levenbergMarquardt,
   STOP_REASON_TEXT,
@@ -28,7 +34,7 @@ export interface FitBand {
   readonly sigma?: number;
 }
 
-/** The free ion a complex is compared with, for β = B/B(free ion). A {@link FreeIon} fits. */
+/** The free ion a complex is compared with, for β = B/B(free ion). A `FreeIon` of ions.ts fits. */
 export interface FreeIonReference {
   readonly ion?: string;
   readonly B?: number;
@@ -54,6 +60,8 @@ export const FIT_DEFAULTS = {
   refineFactor: 3,
   maxRefined: 16,
   maxSolutions: 8,
+  /** C/B values scanned besides the starting one when C is fitted (the usual range for 3d complexes). */
+  cOverBScan: [3, 4, 5, 6] as readonly number[],
 } as const;
 
 /** Input of {@link fitBands}. Energies in cm⁻¹. */
@@ -71,17 +79,26 @@ export interface FitInput {
   /** Fit C as a third parameter. @default false */
   readonly fitC?: boolean;
   /**
-   * Level label for each band, in the bands' order (e.g. `3T2g`, `3T1g(F)`, or Unicode `³T₁g(F)`);
-   * null or missing entries are searched. @default all searched
+   * Level label for each band, in the bands' order (e.g. `3T2g`, `3T1g(F)`, or Unicode `³T₁g(F)`),
+   * read as labelled at `cOverB` (see {@link levelKeyOfLabel}); null, `?` or missing entries are
+   * searched. @default all searched
    */
   readonly assignments?: readonly (string | null)[];
   /** Let the search assign bands to spin-forbidden transitions too. @default false */
   readonly includeSpinForbidden?: boolean;
-  /** Transitions offered beyond the number of searched bands (see {@link searchAssignments}). */
+  /**
+   * Transitions offered beyond the number of searched bands (see {@link searchAssignments}).
+   * @default 2, or 8 with spin-forbidden transitions ({@link ASSIGNMENT_DEFAULTS})
+   */
   readonly extraCandidates?: number;
-  /** Start every fit here instead of at the scan's best point (C defaults to C/B × B). */
+  /**
+   * Start every least-squares fit here instead of at its assignment's best scan point (C
+   * defaults to C/B × B). @default the scan's starting values
+   */
   readonly start?: { readonly dq: number; readonly B?: number; readonly C?: number };
+  /** The Δ/B scan for assignments and starting values. @default {@link SCAN_DEFAULTS} */
   readonly scan?: ScanOptions;
+  /** Tolerances and limits of the least squares. @default {@link LEAST_SQUARES_DEFAULTS} */
   readonly leastSquares?: LeastSquaresOptions;
   /** @default 200 cm⁻¹ (see {@link FIT_DEFAULTS}) */
   readonly bandPrecision?: number;
@@ -91,6 +108,12 @@ export interface FitInput {
   readonly maxRefined?: number;
   /** Most solutions returned. @default 8 */
   readonly maxSolutions?: number;
+  /**
+   * Called as the work proceeds, with the steps done and the steps expected (the scans, then
+   * the refinements; the total is revised once the scans have shown how many to refine).
+   * @default none
+   */
+  readonly onProgress?: (done: number, total: number) => void;
 }
 
 /** One band's place in a solution. */
@@ -116,20 +139,6 @@ export interface PredictedBand {
   /** Index of the observed band assigned to it, or null. */
   readonly band: number | null;
 }
-
-/** Standard errors, cm⁻¹ (β, C/B and Δ/B dimensionless); null where none can be given. */
-export interface FitErrors {
-  readonly dq: number | null;
-  readonly tenDq: number | null;
-  readonly B: number | null;
-  readonly C: number | null;
-  readonly cOverB: number | null;
-  readonly deltaOverB: number | null;
-  readonly beta: number | null;
-}
-
-/** How the standard errors were obtained. */
-export type ErrorBasis = 'band-uncertainties' | 'residual-scatter';
 
 /** One solution of the fit. */
 export interface FitSolution {
@@ -208,40 +217,6 @@ const C_STEP = 1e-5;
 /** Lower bound of every parameter, cm⁻¹ (positivity). */
 const LOWER_BOUND = 1e-3;
 
-function normaliseLabel(text: string): string {
-  const digits = '⁰¹²³⁴⁵⁶⁷⁸⁹';
-  const low = '₀₁₂₃₄₅₆₇₈₉';
-  return [...text.replace(/\s+/g, '')]
-    .map((c) => {
-      const i = digits.indexOf(c);
-      const j = low.indexOf(c);
-      return i >= 0 ? String(i) : j >= 0 ? String(j) : c;
-    })
-    .join('');
-}
-
-/** Identity key of a level label at the fit's C/B. */
-function resolveLabel(scan: RatioScan, text: string, n: number, geometry: Geometry): string {
-  const mid = scan.points[Math.floor(scan.points.length / 2)];
-  if (!mid) throw new Error('empty scan');
-  const levels = [mid.ground, ...mid.excited];
-  const wanted = normaliseLabel(text);
-  const exact = levels.find((l) => l.label === wanted);
-  if (exact) return exact.key;
-  const folded = levels.filter((l) => l.label.toLowerCase() === wanted.toLowerCase());
-  if (folded.length === 1 && folded[0]) return folded[0].key;
-  const bySymbol = levels.filter((l) => l.label.startsWith(`${wanted}(`));
-  if (bySymbol.length > 1) {
-    throw new InputError(
-      `assignment "${text}": d${n} has several such levels; expected one of ${bySymbol.map((l) => l.label).join(', ')}`,
-    );
-  }
-  throw new InputError(
-    `assignment "${text}": no such level of d${n} (${geometry === 'oct' ? 'octahedral' : 'tetrahedral'}); ` +
-      `expected one of ${levels.map((l) => l.label).join(', ')}`,
-  );
-}
-
 interface Refined {
   solution: Omit<FitSolution, 'rank'>;
   keys: readonly string[];
@@ -262,8 +237,6 @@ interface Context {
   start?: FitInput['start'];
   leastSquares?: LeastSquaresOptions;
 }
-
-type ParameterName = 'dq' | 'B' | 'C';
 
 function parameterSet(ctx: Context, fitC: boolean): ParameterName[] {
   return singleTerm(ctx.n) ? ['dq'] : fitC ? ['dq', 'B', 'C'] : ['dq', 'B'];
@@ -383,59 +356,25 @@ function refine(ctx: Context, candidate: AssignmentCandidate): Refined | undefin
   const rms = Math.sqrt(differences.reduce((s, d) => s + d * d, 0) / m);
   const weightedRms = Math.sqrt(chiSquare / m);
 
-  // The LM's Jacobian at the optimum is exact in Dq and B (see energyJacobian).
-  const inverse = inverseNormalMatrix(fit.jacobian);
-  let covariance: number[][] | null = null;
-  let errorBasis: ErrorBasis | null = null;
-  let errorNote: string;
-  const count = `${m} band${m === 1 ? '' : 's'} for ${names.length} free parameter${names.length === 1 ? '' : 's'}`;
-  if (!inverse) {
-    errorNote = `no error estimate: the assigned bands do not fix ${names.join(', ')} separately`;
-  } else if (ctx.given) {
-    covariance = inverse;
-    errorBasis = 'band-uncertainties';
-    errorNote =
-      'standard errors propagated from the given band uncertainties (not rescaled by the residuals)' +
-      (dof > 0 ? `; χ²/dof = ${(chiSquare / dof).toFixed(2)}` : '');
-  } else if (dof > 0) {
-    const variance = chiSquare / dof;
-    covariance = inverse.map((row) => row.map((x) => x * variance));
-    errorBasis = 'residual-scatter';
-    errorNote = `standard errors from the scatter of the residuals (${count}, ${dof} degree${dof === 1 ? '' : 's'} of freedom)`;
-  } else {
-    errorNote =
-      `no error estimate: with ${count} no degree of freedom is left (the fit is exact); ` +
-      'give band uncertainties (e.g. 17400±200) or more bands';
-  }
-  const sd = (j: number) => {
-    const v = covariance?.[j]?.[j];
-    return v === undefined ? null : Math.sqrt(Math.max(0, v));
-  };
-  const cov = (i: number, j: number) => covariance?.[i]?.[j] ?? 0;
   const single = names.length === 1;
   const { dq, B, C } = field;
-  const propagate = (gradient: readonly number[]) =>
-    covariance
-      ? Math.sqrt(
-          Math.max(
-            0,
-            gradient.reduce((s, gi, i) => s + gradient.reduce((t, gj, j) => t + gi * gj * cov(i, j), 0), 0),
-          ),
-        )
-      : null;
   const cFitted = names.length === 3;
   const deltaOverB = single ? null : (10 * dq) / B;
   const beta = single || ctx.freeB === null ? null : B / ctx.freeB;
-  const sdB = single ? null : sd(1);
-  const errors: FitErrors = {
-    dq: sd(0),
-    tenDq: sd(0) === null ? null : 10 * (sd(0) ?? 0),
-    B: sdB,
-    C: cFitted ? sd(2) : null,
-    cOverB: cFitted ? propagate([0, -C / B ** 2, 1 / B]) : null,
-    deltaOverB: single ? null : propagate([10 / B, (-10 * dq) / B ** 2, 0]),
-    beta: beta === null || sdB === null || ctx.freeB === null ? null : sdB / ctx.freeB,
-  };
+  // The LM's Jacobian at the optimum is exact in Dq and B (see energyJacobian).
+  const {
+    errors,
+    covariance,
+    basis: errorBasis,
+    note: errorNote,
+  } = standardErrors({
+    jacobian: fit.jacobian,
+    chiSquare,
+    parameters: names,
+    field,
+    uncertaintiesGiven: ctx.given,
+    freeIonB: ctx.freeB,
+  });
 
   const groundS = levels.ground.S;
   const byKey = new Map(levels.levels.map((l, i) => [keys[i] ?? '', l]));
@@ -515,14 +454,40 @@ function refine(ctx: Context, candidate: AssignmentCandidate): Refined | undefin
   };
 }
 
+/**
+ * Two refinements that end at the same parameters with the same band energies are one solution
+ * (also when they assign a band to either of two exactly degenerate levels, such as ⁴A₁g and
+ * ⁴Eg(G) of d⁵).
+ */
 function sameSolution(a: Refined, b: Refined): boolean {
-  if (a.keys.join() !== b.keys.join()) return false;
   const close = (x: number, y: number) => Math.abs(x - y) <= 1e-6 * Math.max(Math.abs(x), Math.abs(y), 1);
+  const sa = a.solution;
+  const sb = b.solution;
   return (
-    close(a.solution.dq, b.solution.dq) &&
-    close(a.solution.B, b.solution.B) &&
-    close(a.solution.C, b.solution.C)
+    sa.ground === sb.ground &&
+    close(sa.dq, sb.dq) &&
+    close(sa.B, sb.B) &&
+    close(sa.C, sb.C) &&
+    sa.assignments.every((x, i) => close(x.calculated, sb.assignments[i]?.calculated ?? Number.NaN))
   );
+}
+
+/** The candidates of several searches (one per C/B), keeping the best starts of each assignment. */
+function mergeSearches(searches: readonly AssignmentSearch[]): AssignmentSearch {
+  const all = searches.flatMap((s) => s.candidates).sort((a, b) => a.chiSquare - b.chiSquare);
+  const starts = new Map<string, number>();
+  const candidates = all.filter((c) => {
+    const id = `${c.groundKey}|${c.keys.join()}`;
+    const count = starts.get(id) ?? 0;
+    starts.set(id, count + 1);
+    return count < ASSIGNMENT_DEFAULTS.startsPerAssignment;
+  });
+  const without = searches.map((s) => new Set(s.groundsWithout));
+  return {
+    candidates,
+    tried: starts.size,
+    groundsWithout: [...(without[0] ?? [])].filter((g) => without.every((w) => w.has(g))),
+  };
 }
 
 /**
@@ -611,7 +576,7 @@ export function fitBands(input: FitInput): FitResult {
     const label = assignments[i];
     return label === null || label === undefined || label.trim() === '?' || label.trim() === ''
       ? null
-      : resolveLabel(scan, label, n, geometry);
+      : levelKeyOfLabel(scan, label);
   });
   const fixedKeys = fixed.filter((k): k is string => k !== null);
   ensure(
@@ -628,14 +593,23 @@ export function fitBands(input: FitInput): FitResult {
 
   const given = withSigma > 0;
   const sigmas = bands.map((b) => b.sigma ?? bandPrecision);
-  const search = searchAssignments(
-    scan,
-    bands.map((b, i) => ({ energy: b.energy, weight: 1 / (sigmas[i] ?? 1) ** 2 })),
-    {
-      fixed,
-      includeSpinForbidden: input.includeSpinForbidden ?? FIT_DEFAULTS.includeSpinForbidden,
-      ...(input.extraCandidates !== undefined ? { extraCandidates: input.extraCandidates } : {}),
-    },
+  // With C free, the search scans the usual C/B range too, so that an assignment that needs
+  // another C/B than the starting one still gets a start near its optimum.
+  const ratios = fitC ? [...new Set([cOverB, ...FIT_DEFAULTS.cOverBScan])] : [cOverB];
+  const progress = (done: number, total: number) => input.onProgress?.(done, total);
+  const search = mergeSearches(
+    ratios.map((ratio, i) => {
+      progress(i, ratios.length + maxRefined);
+      return searchAssignments(
+        ratio === cOverB ? scan : ratioScan(n, geometry, ratio, input.scan),
+        bands.map((b, i) => ({ energy: b.energy, weight: 1 / (sigmas[i] ?? 1) ** 2 })),
+        {
+          fixed,
+          includeSpinForbidden: input.includeSpinForbidden ?? FIT_DEFAULTS.includeSpinForbidden,
+          ...(input.extraCandidates !== undefined ? { extraCandidates: input.extraCandidates } : {}),
+        },
+      );
+    }),
   );
   if (search.candidates.length === 0) {
     const m = bands.length;
@@ -681,10 +655,12 @@ export function fitBands(input: FitInput): FitResult {
     ...(input.leastSquares ? { leastSquares: input.leastSquares } : {}),
   };
   const refined: Refined[] = [];
-  for (const c of toRefine) {
+  for (const [i, c] of toRefine.entries()) {
+    progress(ratios.length + i, ratios.length + toRefine.length);
     const r = refine(ctx, c);
     if (r && !refined.some((s) => sameSolution(s, r))) refined.push(r);
   }
+  progress(ratios.length + toRefine.length, ratios.length + toRefine.length);
   if (refined.length === 0) {
     throw new InputError(
       `no assignment tried gives a usable fit of ${names.join(' and ')}: in each, some parameter is not fixed by ` +

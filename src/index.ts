@@ -9,6 +9,7 @@ export {
   type AssignmentCandidate,
   type AssignmentSearch,
   type AssignmentSearchOptions,
+  levelKeyOfLabel,
   type SearchBand,
   searchAssignments,
 } from './assignment.js';
@@ -31,11 +32,9 @@ export {
 } from './cubic.js';
 export { InputError } from './errors.js';
 export {
-  type ErrorBasis,
   FIT_DEFAULTS,
   type FitAssignment,
   type FitBand,
-  type FitErrors,
   type FitInput,
   type FitResult,
   type FitSolution,
@@ -43,6 +42,14 @@ export {
   fitBands,
   type PredictedBand,
 } from './fit.js';
+export {
+  type ErrorBasis,
+  type ErrorEstimate,
+  type ErrorInput,
+  type FitErrors,
+  type ParameterName,
+  standardErrors,
+} from './fitErrors.js';
 export { FIT_WARNING_LIMITS, type FitWarning, type FitWarningCode } from './fitWarnings.js';
 export { type FreeIonTerm, freeIonTerms, freeIonTermsSlater } from './freeIon.js';
 export {

@@ -10,7 +10,7 @@ import {
   unicodeLabel,
 } from '../../src/index.js';
 import { fixed, jsonText, table } from '../format.js';
-import type { Io } from '../io.js';
+import { type Io, progress } from '../io.js';
 import { geometryOption, ionOrCount, ratioChoice } from '../options.js';
 
 /** Options of `termsplit fit`. */
@@ -55,7 +55,7 @@ export function registerFit(program: Command, io: Io): void {
     .option('--spin-forbidden', 'let the search assign bands to spin-forbidden transitions too')
     .option('--json', 'print one JSON object on stdout')
     .action((opts: FitOptions) => {
-      io.out(fitCommand(opts));
+      io.out(fitCommand(opts, io));
     });
 }
 
@@ -82,7 +82,10 @@ export function splitLabels(text: string): string[] {
 }
 
 /** The fit from the command's options, with the ion's name and the origin of C/B. */
-export function fitFromOptions(opts: FitOptions): { result: FitResult; ion?: string; cOrigin: string } {
+export function fitFromOptions(
+  opts: FitOptions,
+  onProgress?: (done: number, total: number) => void,
+): { result: FitResult; ion?: string; cOrigin: string } {
   const choice = ionOrCount(opts.ion, opts.d);
   const geometry = geometryOption(opts.geometry);
   if (opts.bands === undefined) {
@@ -107,6 +110,7 @@ export function fitFromOptions(opts: FitOptions): { result: FitResult; ion?: str
     fitC: Boolean(opts.fitC),
     includeSpinForbidden: Boolean(opts.spinForbidden),
     ...(assignments ? { assignments } : {}),
+    ...(onProgress ? { onProgress } : {}),
   });
   return {
     result,
@@ -291,8 +295,15 @@ function fitText(result: FitResult, ion: string | undefined, cOrigin: string): s
   return `${lines.join('\n')}\n`;
 }
 
-function fitCommand(opts: FitOptions): string {
-  const { result, ion, cOrigin } = fitFromOptions(opts);
+function fitCommand(opts: FitOptions, io: Io): string {
+  const bar = progress(io, 'fitting');
+  let fitted: ReturnType<typeof fitFromOptions>;
+  try {
+    fitted = fitFromOptions(opts, (done, total) => bar.update(done, total));
+  } finally {
+    bar.end();
+  }
+  const { result, ion, cOrigin } = fitted;
   if (!opts.json) return fitText(result, ion, cOrigin);
   return jsonText({
     ...(ion ? { ion } : {}),
