@@ -334,10 +334,16 @@ describe('fitBands warnings', () => {
 describe('fitBands progress', () => {
   it('reports steps done up to the total, never going back', () => {
     const calls: [number, number][] = [];
-    fitBands({ n: 3, bands: bands(14900, 17400, 24600), fitC: true, onProgress: (d, t) => calls.push([d, t]) });
+    fitBands({
+      n: 3,
+      bands: bands(14900, 17400, 24600),
+      fitC: true,
+      onProgress: (d, t) => calls.push([d, t]),
+    });
     const last = calls.at(-1);
     expect(last?.[0]).toBe(last?.[1]);
-    for (let i = 1; i < calls.length; i++) expect(calls[i]?.[0]).toBeGreaterThanOrEqual(calls[i - 1]?.[0] ?? 0);
+    for (let i = 1; i < calls.length; i++)
+      expect(calls[i]?.[0]).toBeGreaterThanOrEqual(calls[i - 1]?.[0] ?? 0);
     expect(calls.every(([d, t]) => d <= t)).toBe(true);
   });
 });
