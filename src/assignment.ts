@@ -57,10 +57,6 @@ export interface AssignmentCandidate {
   readonly pointIndex: number;
   /** Starting parameters: the scan ray times its best scale. */
   readonly start: FieldParameters;
-  /** The starting point is the first or last of the scan (the best fit may lie beyond it). */
-  readonly atScanEdge: boolean;
-  /** Bands assigned to spin-forbidden transitions. */
-  readonly spinForbidden: number;
 }
 
 /** Outcome of {@link searchAssignments}. */
@@ -224,7 +220,6 @@ export function searchAssignments(
     });
   });
 
-  const last = count - 1;
   const candidates: AssignmentCandidate[] = [];
   const levelMaps = new Map<number, Map<string, ScanLevel>>();
   const levelsAt = (i: number) => {
@@ -259,8 +254,6 @@ export function searchAssignments(
         chiSquare: vertex?.chiSquare ?? chi(pointIndex),
         pointIndex,
         start: { dq: scale * d.dq, B: scale * d.B, C: scale * d.C },
-        atScanEdge: last > 0 && (pointIndex === 0 || pointIndex === last),
-        spinForbidden: assigned.filter((l) => l && !l.spinAllowed).length,
       });
     }
   }
