@@ -26,7 +26,7 @@ describe('termsplit fit (in process)', () => {
     expect(r.stdout).toMatch(/β {4}= 0\.\d+ ± 0\.\d+/);
     expect(r.stdout).toContain('³T₁g(P)');
     expect(r.stdout).toContain('Predicted bands of the best solution');
-    expect(r.stdout).toContain('Alternatives: none fits nearly as well.');
+    expect(r.stdout).toContain('Alternatives: none (this was the only assignment to try).');
   });
 
   it('prints at least the JSON shape of the issue, best first', async () => {

@@ -261,7 +261,11 @@ function fitText(result: FitResult, ion: string | undefined, cOrigin: string): s
   lines.push('');
   const alternatives = result.solutions.slice(1);
   if (alternatives.length === 0) {
-    lines.push('Alternatives: none fits nearly as well.');
+    lines.push(
+      result.tried === 1
+        ? 'Alternatives: none (this was the only assignment to try).'
+        : 'Alternatives: none fits nearly as well.',
+    );
   } else {
     lines.push('Alternatives that fit nearly as well:');
     for (const s of alternatives) lines.push(`  ${solutionSummary(s)}`);
