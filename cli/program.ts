@@ -3,6 +3,7 @@ import { InputError } from '../src/index.js';
 import { registerCrossover } from './commands/crossover.js';
 import { registerDemo } from './commands/demo.js';
 import { registerDiagram } from './commands/diagram.js';
+import { registerFit } from './commands/fit.js';
 import { registerIons } from './commands/ions.js';
 import { registerLevels } from './commands/levels.js';
 import { registerTerms } from './commands/terms.js';
@@ -27,6 +28,7 @@ export function buildProgram(io: Io): Command {
     registerTerms,
     registerLevels,
     registerIons,
+    registerFit,
     registerDiagram,
     registerCrossover,
     registerDemo,

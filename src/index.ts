@@ -3,6 +3,24 @@
  * every name here is documented where it is defined.
  */
 export { type Complex, gaunt, threeJ, wignerD, wignerSmallD } from './angular.js';
+// Band fitting: assignment search, Levenberg–Marquardt, errors and warnings.
+export {
+  ASSIGNMENT_DEFAULTS,
+  type AssignmentCandidate,
+  type AssignmentSearch,
+  type AssignmentSearchOptions,
+  levelKeyOfLabel,
+  type SearchBand,
+  searchAssignments,
+} from './assignment.js';
+export {
+  type FieldParameters,
+  fieldSlope,
+  levelKeys,
+  solveAt,
+  type Transitions,
+  transitions,
+} from './bandModel.js';
 export { type Caution, CHARGE_TRANSFER_ONSET, cubicCautions } from './cautions.js';
 export {
   type Crossover,
@@ -32,6 +50,26 @@ export {
   solveCubic,
 } from './cubic.js';
 export { InputError } from './errors.js';
+export {
+  FIT_DEFAULTS,
+  type FitAssignment,
+  type FitBand,
+  type FitInput,
+  type FitResult,
+  type FitSolution,
+  type FreeIonReference,
+  fitBands,
+  type PredictedBand,
+} from './fit.js';
+export {
+  type ErrorBasis,
+  type ErrorEstimate,
+  type ErrorInput,
+  type FitErrors,
+  type ParameterName,
+  standardErrors,
+} from './fitErrors.js';
+export { FIT_WARNING_LIMITS, type FitWarning, type FitWarningCode } from './fitWarnings.js';
 export { type FreeIonTerm, freeIonTerms, freeIonTermsSlater } from './freeIon.js';
 export {
   GROUND_MAP_DEFAULTS,
@@ -61,6 +99,16 @@ export {
   unicodeTerm,
 } from './labels.js';
 export {
+  inverseNormalMatrix,
+  LEAST_SQUARES_DEFAULTS,
+  type LeastSquaresOptions,
+  type LeastSquaresProblem,
+  type LeastSquaresResult,
+  levenbergMarquardt,
+  STOP_REASON_TEXT,
+  type StopReason,
+} from './leastSquares.js';
+export {
   impliedPairingEnergy,
   type OneElectronState,
   type OneElectronStates,
@@ -77,6 +125,15 @@ export {
   spinOnlyMoment,
 } from './magnetism.js';
 export { binomial, type Microstate, microstates } from './microstates.js';
+export {
+  type RatioScan,
+  ratioScan,
+  SCAN_DEFAULTS,
+  type ScanLevel,
+  type ScanOptions,
+  type ScanPoint,
+  singleTerm,
+} from './ratioScan.js';
 export { type DSlaterIntegrals, slaterFromRacah } from './repulsion.js';
 export { brentRoot, DEFAULT_ROOT_TOLERANCE, type RootOptions } from './roots.js';
 export { branchTerm, CHARACTERS, CUBIC_IRREPS, type CubicIrrep, IRREP_DIMENSION } from './symmetry.js';
