@@ -1,11 +1,13 @@
 import { benchCrossover } from './crossover.js';
 import { benchDiagram } from './diagram.js';
+import { benchFit } from './fit.js';
 import { benchSolver } from './solver.js';
 
 /** `npm run bench`: every benchmark of the project, printed. Timings depend on the machine. */
 const benches: [string, () => void | Promise<void>][] = [
   ['solver', benchSolver],
   ['diagram', benchDiagram],
+  ['fit', benchFit],
   ['crossover', benchCrossover],
 ];
 

@@ -1,10 +1,10 @@
-import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
 import { resolve } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { splitLabels, withError } from '../cli/commands/fit.js';
 import { memoryIo } from '../cli/io.js';
 import { run } from '../cli/program.js';
+import { ensureBuilt } from './cliRunner.js';
 
 const root = resolve(import.meta.dirname, '..');
 const main = resolve(root, 'dist/cli/main.js');
@@ -161,8 +161,7 @@ describe('withError', () => {
 
 describe('termsplit fit (end to end)', () => {
   beforeAll(() => {
-    if (!existsSync(main))
-      execFileSync('npx', ['tsc', '-p', 'tsconfig.json'], { cwd: root, stdio: 'ignore' });
+    ensureBuilt();
   }, 120_000);
 
   it('prints the fit for the issue’s command line and exits 0', () => {

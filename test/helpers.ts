@@ -16,15 +16,3 @@ export function expectClose(actual: number | undefined, expected: number, rel = 
 export function fixture<T>(path: string): T {
   return JSON.parse(readFileSync(resolve(import.meta.dirname, '../fixtures', path), 'utf8')) as T;
 }
-
-/** A seeded pseudo-random generator (mulberry32), uniform on [0, 1). */
-export function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}

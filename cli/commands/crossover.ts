@@ -8,8 +8,11 @@ import {
   type CrossoverCaution,
   crossoverAnalysis,
   crossoverCautions,
+  DEFAULT_C_OVER_B,
+  type FitSolution,
   type FreeIon,
   findIon,
+  fitBands,
   type Geometry,
   GROUND_MAP_DEFAULTS,
   groundStateMap,
@@ -26,6 +29,7 @@ import {
   pairingEnergy,
   parseConfiguration,
   parseEnergy,
+  parseEnergyList,
   type SampleVerdict,
   SETTLED_SIGMAS,
   sampleVerdict,
@@ -38,6 +42,7 @@ import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import { type Io, progress } from '../io.js';
 import { geometryOption, ratioChoice } from '../options.js';
+import { solutionJson } from './fit.js';
 
 /** Options of `termsplit crossover`. */
 export interface CrossoverCommandOptions {
@@ -47,6 +52,7 @@ export interface CrossoverCommandOptions {
   cb?: string;
   geometry?: string;
   dq?: string;
+  bands?: string;
   output?: string;
   json?: boolean;
 }
@@ -65,6 +71,10 @@ export function registerCrossover(program: Command, io: Io): void {
     .option('--cb <ratio>', 'C/B instead of --C (default: the free-ion ratio of the ion, else 4.5)')
     .option('--geometry <oct|tet>', 'octahedral or tetrahedral', 'oct')
     .option('--dq <cm-1>', "the sample's Dq, optionally ±σ (e.g. 2300±60), for its side of the crossover")
+    .option(
+      '--bands <list>',
+      "the sample's band maxima instead of --dq and --B: Dq, B (and their errors) come from a band fit",
+    )
     .option('-o, --output <file>', 'write the ground-state map to a .png, .svg or .pdf file')
     .option('--json', 'print one JSON object on stdout')
     .action((configText: string | undefined, opts: CrossoverCommandOptions) => {
@@ -112,6 +122,60 @@ interface Resolved {
   readonly bOrigin: string;
   readonly cOrigin: string;
   readonly C: number;
+}
+
+/** A sample placed by a band fit: its Dq ± σ, the correlation of Dq and B, and the fit itself. */
+interface FittedSample {
+  readonly input: Resolved;
+  readonly dq: { value: number; sigma?: number };
+  readonly correlation?: number;
+  readonly solution: FitSolution;
+  /** Other assignments that fit nearly as well. */
+  readonly alternatives: number;
+}
+
+/**
+ * Fits the bands at the resolved C/B and puts the best solution's B, C and Dq (with standard
+ * errors and their correlation) in place of given ones.
+ */
+function fittedSample(input: Resolved, bandsText: string): FittedSample {
+  const bands = parseEnergyList(bandsText).map((b) =>
+    b.sigma === undefined ? { energy: b.value } : { energy: b.value, sigma: b.sigma },
+  );
+  const result = fitBands({
+    n: input.n,
+    geometry: input.geometry,
+    bands,
+    ...(input.ion ? { freeIon: input.ion } : {}),
+    cOverB: input.B > 0 ? input.C / input.B : DEFAULT_C_OVER_B,
+  });
+  const best = result.solutions[0];
+  if (!best) throw new InputError(`--bands "${bandsText}": no assignment of these bands fits d${input.n}`);
+  const iDq = best.parameters.indexOf('dq');
+  const iB = best.parameters.indexOf('B');
+  const cov = best.covariance;
+  const vDq = cov?.[iDq]?.[iDq];
+  const vB = cov?.[iB]?.[iB];
+  const cDqB = cov?.[iDq]?.[iB];
+  const correlation =
+    vDq !== undefined && vB !== undefined && cDqB !== undefined && vDq > 0 && vB > 0
+      ? cDqB / Math.sqrt(vDq * vB)
+      : undefined;
+  const assignment = best.assignments.map((a) => unicodeLabel(a.label)).join(', ');
+  return {
+    input: {
+      ...input,
+      B: best.B,
+      C: best.C,
+      ...(best.errors.B !== null ? { sigmaB: best.errors.B } : {}),
+      bOrigin: `fitted to the bands as ${assignment}, rms ${fixed(best.rms)} cm⁻¹`,
+      cOrigin: `held at ${fixed(best.C / best.B, 2)} in the fit`,
+    },
+    dq: { value: best.dq, ...(best.errors.dq !== null ? { sigma: best.errors.dq } : {}) },
+    ...(correlation !== undefined ? { correlation } : {}),
+    solution: best,
+    alternatives: result.solutions.length - 1,
+  };
 }
 
 function resolveInput(configText: string | undefined, opts: CrossoverCommandOptions): Resolved {
@@ -225,6 +289,8 @@ function momentStates(analysis: CrossoverAnalysis, verdict: SampleVerdict | unde
 /** Everything the command reports, computed before anything is printed. */
 interface Report {
   readonly input: Resolved;
+  /** The band fit that placed the sample, when --bands was given. */
+  readonly fit?: { readonly solution: FitSolution; readonly alternatives: number };
   readonly sampleSigmaDq?: number;
   readonly analysis: CrossoverAnalysis;
   readonly verdict?: SampleVerdict;
@@ -246,10 +312,17 @@ export function crossoverCommand(
   opts: CrossoverCommandOptions,
   io: Io,
 ): string {
-  const input = resolveInput(configText, opts);
+  if (opts.bands !== undefined && (opts.dq !== undefined || opts.B !== undefined || opts.C !== undefined)) {
+    throw new InputError(
+      '--bands places the sample by a fit: leave out --dq, --B and --C (--cb sets the C/B it holds)',
+    );
+  }
+  const given = resolveInput(configText, opts);
   const format: FigureFormat | undefined = opts.output === undefined ? undefined : formatOfPath(opts.output);
   if (opts.output !== undefined) checkOutputDirectory(resolve(io.cwd, opts.output));
-  const sampleDq = energyOption('--dq', opts.dq);
+  const fitted = opts.bands === undefined ? undefined : fittedSample(given, opts.bands);
+  const input = fitted?.input ?? given;
+  const sampleDq = fitted?.dq ?? energyOption('--dq', opts.dq);
   const { n, geometry, B, C } = input;
   const analysis = crossoverAnalysis({ n, geometry, B, C });
   const verdict = sampleDq
@@ -257,6 +330,7 @@ export function crossoverCommand(
         dq: sampleDq.value,
         ...(sampleDq.sigma !== undefined ? { sigmaDq: sampleDq.sigma } : {}),
         ...(input.sigmaB !== undefined ? { sigmaB: input.sigmaB } : {}),
+        ...(fitted?.correlation !== undefined ? { correlation: fitted.correlation } : {}),
       })
     : undefined;
   const states = oneElectronStates(n, geometry);
@@ -269,6 +343,7 @@ export function crossoverCommand(
   }
   const report: Report = {
     input,
+    ...(fitted ? { fit: { solution: fitted.solution, alternatives: fitted.alternatives } } : {}),
     ...(sampleDq?.sigma !== undefined ? { sampleSigmaDq: sampleDq.sigma } : {}),
     analysis,
     ...(verdict ? { verdict } : {}),
@@ -337,6 +412,7 @@ function reportJson(r: Report) {
     C: input.C,
     cOverB: input.B > 0 ? input.C / input.B : null,
     cOrigin: input.cOrigin,
+    ...(r.fit ? { fit: { ...solutionJson(r.fit.solution), alternatives: r.fit.alternatives } } : {}),
     statement: analysis.statement,
     weakFieldS: analysis.weakFieldS,
     crossings: analysis.crossings.map((c) => ({
@@ -438,9 +514,15 @@ function sampleLines(r: Report, verdict: SampleVerdict): string[] {
   const spread = r.sampleSigmaDq !== undefined ? ` ± ${fixed(r.sampleSigmaDq)}` : '';
   const ratio = Number.isFinite(verdict.deltaOverB) ? `, Δ/B = ${fixed(verdict.deltaOverB, 2)}` : '';
   const lines = [
-    `Sample: Dq = ${fixed(verdict.dq)}${spread} cm⁻¹ (10Dq = ${fixed(verdict.tenDq)}${ratio}): ground state ` +
+    `Sample${r.fit ? ' (from the band fit)' : ''}: Dq = ${fixed(verdict.dq)}${spread} cm⁻¹ (10Dq = ${fixed(verdict.tenDq)}${ratio}): ground state ` +
       `${unicodeLabel(verdict.ground)} (S = ${halfIntegerText(verdict.S)})`,
   ];
+  if (r.fit && r.fit.alternatives > 0) {
+    lines.push(
+      `  caution: ${r.fit.alternatives} other assignment${r.fit.alternatives > 1 ? 's' : ''} of the bands fit nearly as well ` +
+        '(see termsplit fit); they may put the sample elsewhere',
+    );
+  }
   const { margin: m, crossing, sigma: s } = verdict;
   if (!m || !crossing) {
     lines.push('  no crossover for this dⁿ: the spin state does not depend on Δ');

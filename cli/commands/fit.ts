@@ -1,14 +1,20 @@
+import { resolve } from 'node:path';
 import type { Command } from 'commander';
+import { renderDiagram } from '../../charts/diagram.js';
+import { type FigureFormat, formatOfPath } from '../../charts/render.js';
 import {
   cmToNm,
+  DEFAULT_MAX_DELTA_OVER_B,
   type FitResult,
   type FitSolution,
   fitBands,
   InputError,
   parseEnergyList,
   parseUnit,
+  sweepDiagram,
   unicodeLabel,
 } from '../../src/index.js';
+import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import { type Io, progress } from '../io.js';
 import { geometryOption, ionOrCount, ratioChoice } from '../options.js';
@@ -24,6 +30,7 @@ export interface FitOptions {
   fitC?: boolean;
   assign?: string;
   spinForbidden?: boolean;
+  diagram?: string;
   json?: boolean;
 }
 
@@ -53,6 +60,10 @@ export function registerFit(program: Command, io: Io): void {
       'level for each band in order, e.g. 3T2g,3T1g(F),3T1g(P); ? leaves one to the search',
     )
     .option('--spin-forbidden', 'let the search assign bands to spin-forbidden transitions too')
+    .option(
+      '--diagram <file>',
+      'draw the correlation diagram at the fitted C/B with the sample on it (.png, .svg, .pdf)',
+    )
     .option('--json', 'print one JSON object on stdout')
     .action((opts: FitOptions) => {
       io.out(fitCommand(opts, io));
@@ -117,6 +128,31 @@ export function fitFromOptions(
     ...(choice.ion ? { ion: choice.ion.ion } : {}),
     cOrigin: single ? 'not used (one d electron or hole)' : ratio.origin,
   };
+}
+
+/**
+ * The correlation diagram at the best solution's C/B, wide enough to hold the sample, with the
+ * sample at its fitted Δ/B and its observed bands as points.
+ */
+export function fittedDiagram(
+  result: FitResult,
+  best: FitSolution,
+  format: FigureFormat,
+  ion?: string,
+): Buffer {
+  if (best.deltaOverB === null || best.cOverB === null) {
+    throw new InputError(`--diagram: a diagram in units of B needs d2 to d8; d${result.n} has no Racah B`);
+  }
+  const maxDeltaOverB = Math.max(DEFAULT_MAX_DELTA_OVER_B, Math.ceil((1.25 * best.deltaOverB) / 10) * 10);
+  const diagram = sweepDiagram(result.n, { geometry: result.geometry, cOverB: best.cOverB, maxDeltaOverB });
+  return renderDiagram(
+    diagram,
+    { format },
+    {
+      sample: { dq: best.dq, B: best.B, bands: result.bands.map((b) => b.energy), label: 'fitted sample' },
+      ...(ion ? { ion } : {}),
+    },
+  );
 }
 
 /** Whether only Dq was fitted (d¹, d⁹). */
@@ -300,6 +336,9 @@ function fitText(result: FitResult, ion: string | undefined, cOrigin: string): s
 }
 
 function fitCommand(opts: FitOptions, io: Io): string {
+  const diagramPath = opts.diagram === undefined ? undefined : resolve(io.cwd, opts.diagram);
+  const diagramFormat = opts.diagram === undefined ? undefined : formatOfPath(opts.diagram);
+  if (diagramPath !== undefined) checkOutputDirectory(diagramPath);
   const bar = progress(io, 'fitting');
   let fitted: ReturnType<typeof fitFromOptions>;
   try {
@@ -308,8 +347,17 @@ function fitCommand(opts: FitOptions, io: Io): string {
     bar.end();
   }
   const { result, ion, cOrigin } = fitted;
-  if (!opts.json) return fitText(result, ion, cOrigin);
+  const best = result.solutions[0];
+  if (diagramPath !== undefined && diagramFormat !== undefined && best) {
+    writeFileAtomic(diagramPath, fittedDiagram(result, best, diagramFormat, ion));
+  }
+  const figureNote =
+    diagramPath !== undefined && best
+      ? `Correlation diagram with the sample written to ${opts.diagram}\n`
+      : '';
+  if (!opts.json) return fitText(result, ion, cOrigin) + figureNote;
   return jsonText({
+    ...(diagramPath !== undefined ? { diagram: best ? opts.diagram : null } : {}),
     ...(ion ? { ion } : {}),
     n: result.n,
     geometry: result.geometry,
