@@ -3,6 +3,7 @@ import { InputError } from '../src/index.js';
 import { registerDemo } from './commands/demo.js';
 import { registerIons } from './commands/ions.js';
 import { registerLevels } from './commands/levels.js';
+import { registerSpectrum } from './commands/spectrum.js';
 import { registerTerms } from './commands/terms.js';
 import type { Io } from './io.js';
 
@@ -21,7 +22,8 @@ export function buildProgram(io: Io): Command {
     .showHelpAfterError('(run with --help for usage)')
     .configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) })
     .exitOverride();
-  for (const register of [registerTerms, registerLevels, registerIons, registerDemo]) register(program, io);
+  for (const register of [registerTerms, registerLevels, registerIons, registerDemo, registerSpectrum])
+    register(program, io);
   for (const c of program.commands)
     c.exitOverride().configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) });
   return program;

@@ -2,7 +2,46 @@
  * termsplit: ligand-field analysis of transition-metal ions. The public surface of the library;
  * every name here is documented where it is defined.
  */
+
+// Measured spectra: reading, units, band finding, fit input.
+export {
+  type AbsorptionOptions,
+  type AbsorptionQuantity,
+  type AbsorptionSpectrum,
+  absorptionSpectrum,
+} from './absorptionSpectrum.js';
 export { type Complex, gaunt, threeJ, wignerD, wignerSmallD } from './angular.js';
+export type { BaselineKind } from './bandDecomposition.js';
+export {
+  type BandAnalysis,
+  type BandFindingOptions,
+  type BandFlag,
+  DEFAULT_BASELINE,
+  DEFAULT_MAX_BANDS,
+  DEFAULT_MIN_FWHM,
+  DEFAULT_MIN_RELATIVE_HEIGHT,
+  DEFAULT_SIGNIFICANCE,
+  type FoundBand,
+  findBands,
+  MIN_WINDOW_POINTS,
+  NARROW_BAND_FWHM,
+} from './bandFinding.js';
+export {
+  CENTROSYMMETRIC_EPSILON,
+  CHARGE_TRANSFER_EPSILON,
+  type IntensityRange,
+  intensityRange,
+  OSCILLATOR_STRENGTH_FACTOR,
+  oscillatorStrength,
+  SPIN_FORBIDDEN_EPSILON,
+} from './bandIntensity.js';
+export {
+  type BandObservation,
+  bandObservations,
+  ligandFieldBands,
+  type ObservationOptions,
+  POSITION_WIDTH_FRACTION,
+} from './bandObservations.js';
 export { type Caution, CHARGE_TRANSFER_ONSET, cubicCautions } from './cautions.js';
 export { octahedralFieldMatrix } from './crystalField.js';
 export {
@@ -14,6 +53,19 @@ export {
 } from './cubic.js';
 export { InputError } from './errors.js';
 export { type FreeIonTerm, freeIonTerms, freeIonTermsSlater } from './freeIon.js';
+export {
+  bandSum,
+  baselineValue,
+  DEFAULT_SYNTHETIC_SEED,
+  FOUR_LN2,
+  GAUSSIAN_AREA_FACTOR,
+  type GaussianBand,
+  gaussianArea,
+  gaussianValue,
+  type LinearBaseline,
+  type SyntheticOptions,
+  syntheticSpectrum,
+} from './gaussianBands.js';
 export {
   CROSSING_DEFAULTS,
   type CrossingInput,
@@ -32,9 +84,40 @@ export {
   unicodeLabel,
   unicodeTerm,
 } from './labels.js';
+export {
+  covariance,
+  type GradientModel,
+  LEAST_SQUARES_MAX_ITERATIONS,
+  LEAST_SQUARES_TOLERANCE,
+  type LeastSquaresOptions,
+  type LeastSquaresResult,
+  leastSquares,
+} from './leastSquares.js';
 export { binomial, type Microstate, microstates } from './microstates.js';
+export { ensureMonotonicX, pointPlace, type RawSpectrum } from './rawSpectrum.js';
 export { type DSlaterIntegrals, slaterFromRacah } from './repulsion.js';
 export { brentRoot, DEFAULT_ROOT_TOLERANCE, type RootOptions } from './roots.js';
+export { normalRandom, uniformRandom } from './seededRandom.js';
+export { isJcamp, parseJcampSpectrum } from './spectrumJcamp.js';
+export {
+  type ColumnChoice,
+  DEFAULT_X_COLUMN,
+  DEFAULT_Y_COLUMN,
+  parseSpectrumText,
+  type SpectrumTextOptions,
+} from './spectrumText.js';
+export {
+  chooseUnit,
+  parseXUnit,
+  parseYUnit,
+  type SpectrumXUnit,
+  type SpectrumYUnit,
+  type UnitChoice,
+  X_UNIT_NAMES,
+  xUnitFromLabel,
+  Y_UNIT_NAMES,
+  yUnitFromLabel,
+} from './spectrumUnits.js';
 export { branchTerm, CHARACTERS, CUBIC_IRREPS, type CubicIrrep, IRREP_DIMENSION } from './symmetry.js';
 export {
   type Configuration,
