@@ -13,6 +13,11 @@ import {
   type CubicResult,
   cmToNm,
   cubicCautions,
+  DEFAULT_BASELINE,
+  DEFAULT_MAX_BANDS,
+  DEFAULT_MIN_FWHM,
+  DEFAULT_X_COLUMN,
+  DEFAULT_Y_COLUMN,
   type FoundBand,
   findBands,
   InputError,
@@ -75,8 +80,8 @@ export function registerSpectrum(program: Command, io: Io): void {
     .option('--range <from-to>', 'window, e.g. 330-1300nm, 8000-30000 (cm⁻¹) or 1.2-3.6eV')
     .option('--x-unit <unit>', 'x unit when the file does not say: nm, cm-1 or eV')
     .option('--y-unit <unit>', 'y quantity when the file does not say: A, epsilon, %T, T or arb')
-    .option('--x-col <column>', 'x column, by number (from 1) or header name', '1')
-    .option('--y-col <column>', 'y column, by number (from 1) or header name', '2')
+    .option('--x-col <column>', 'x column, by number (from 1) or header name', String(DEFAULT_X_COLUMN))
+    .option('--y-col <column>', 'y column, by number (from 1) or header name', String(DEFAULT_Y_COLUMN))
     .option('--conc <mol/L>', 'concentration of the metal complex; with --path turns absorbance into ε')
     .option('--path <cm>', 'optical path length; with --conc turns absorbance into ε')
     .option('--dq <cm-1>', 'Dq for predicted transitions (10Dq = Δ)')
@@ -84,9 +89,9 @@ export function registerSpectrum(program: Command, io: Io): void {
     .option('--C <cm-1>', 'Racah C (default: the ion’s free-ion C/B × B)')
     .option('--cb <ratio>', 'C/B instead of --C')
     .option('--include-ct', 'keep bands that look like charge transfer among the ligand-field bands')
-    .option('--max-bands <n>', 'most bands fitted inside the window', '8')
-    .option('--min-width <cm-1>', 'narrowest band (FWHM) looked for', '250')
-    .option('--baseline <kind>', 'baseline fitted with the bands: none, constant or linear', 'linear')
+    .option('--max-bands <n>', 'most bands fitted inside the window', String(DEFAULT_MAX_BANDS))
+    .option('--min-width <cm-1>', 'narrowest band (FWHM) looked for', String(DEFAULT_MIN_FWHM))
+    .option('--baseline <kind>', 'baseline fitted with the bands: none, constant or linear', DEFAULT_BASELINE)
     .option('-o, --output <file>', 'write the overlay figure (.png, .svg or .pdf)')
     .option('--json', 'print one JSON object on stdout')
     .action((file: string, opts: SpectrumOptions) => {
@@ -154,7 +159,10 @@ function analyse(file: string, opts: SpectrumOptions, io: Io): SpectrumReport {
   const raw = inFile(() =>
     isJcamp(text) || /\.(jdx|dx|jcamp)$/i.test(file)
       ? parseJcampSpectrum(text)
-      : parseSpectrumText(text, { xColumn: opts.xCol ?? '1', yColumn: opts.yCol ?? '2' }),
+      : parseSpectrumText(text, {
+          ...(opts.xCol !== undefined ? { xColumn: opts.xCol } : {}),
+          ...(opts.yCol !== undefined ? { yColumn: opts.yCol } : {}),
+        }),
   );
   const spectrum = inFile(() =>
     absorptionSpectrum(raw, {
@@ -249,7 +257,7 @@ const RANGE = new RegExp(
 );
 
 function baselineOption(text: string | undefined): BaselineKind {
-  const t = (text ?? 'linear').trim().toLowerCase();
+  const t = (text ?? DEFAULT_BASELINE).trim().toLowerCase();
   if (t === 'none' || t === 'constant' || t === 'linear') return t;
   throw new InputError(`--baseline "${text}": expected none, constant or linear`);
 }
