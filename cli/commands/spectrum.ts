@@ -419,6 +419,10 @@ function reportText(r: SpectrumReport, opts: SpectrumOptions): string {
           ),
     );
   }
+  if (!r.predicted && (opts.ion !== undefined || opts.d !== undefined)) {
+    lines.push('');
+    lines.push('Give --dq and --B to add the predicted transitions to this report and the figure.');
+  }
   lines.push('');
   lines.push('Cautions:');
   for (const c of r.cautions) lines.push(`  - ${c}`);
