@@ -6,6 +6,7 @@ import { registerDiagram } from './commands/diagram.js';
 import { registerFit } from './commands/fit.js';
 import { registerIons } from './commands/ions.js';
 import { registerLevels } from './commands/levels.js';
+import { registerSpectrum } from './commands/spectrum.js';
 import { registerTerms } from './commands/terms.js';
 import type { Io } from './io.js';
 
@@ -31,6 +32,7 @@ export function buildProgram(io: Io): Command {
     registerFit,
     registerDiagram,
     registerCrossover,
+    registerSpectrum,
     registerDemo,
   ])
     register(program, io);

@@ -2,6 +2,14 @@
  * termsplit: ligand-field analysis of transition-metal ions. The public surface of the library;
  * every name here is documented where it is defined.
  */
+
+// Measured spectra: reading, units, band finding, fit input.
+export {
+  type AbsorptionOptions,
+  type AbsorptionQuantity,
+  type AbsorptionSpectrum,
+  absorptionSpectrum,
+} from './absorptionSpectrum.js';
 export { type Complex, gaunt, threeJ, wignerD, wignerSmallD } from './angular.js';
 // Band fitting: assignment search, Levenberg–Marquardt, errors and warnings.
 export {
@@ -13,6 +21,30 @@ export {
   type SearchBand,
   searchAssignments,
 } from './assignment.js';
+export type { BaselineKind } from './bandDecomposition.js';
+export {
+  type BandAnalysis,
+  type BandFindingOptions,
+  type BandFlag,
+  DEFAULT_BASELINE,
+  DEFAULT_MAX_BANDS,
+  DEFAULT_MIN_FWHM,
+  DEFAULT_MIN_RELATIVE_HEIGHT,
+  DEFAULT_SIGNIFICANCE,
+  type FoundBand,
+  findBands,
+  MIN_WINDOW_POINTS,
+  NARROW_BAND_FWHM,
+} from './bandFinding.js';
+export {
+  CENTROSYMMETRIC_EPSILON,
+  CHARGE_TRANSFER_EPSILON,
+  type IntensityRange,
+  intensityRange,
+  OSCILLATOR_STRENGTH_FACTOR,
+  oscillatorStrength,
+  SPIN_FORBIDDEN_EPSILON,
+} from './bandIntensity.js';
 export {
   type FieldParameters,
   fieldSlope,
@@ -21,6 +53,13 @@ export {
   type Transitions,
   transitions,
 } from './bandModel.js';
+export {
+  type BandObservation,
+  bandObservations,
+  ligandFieldBands,
+  type ObservationOptions,
+  POSITION_WIDTH_FRACTION,
+} from './bandObservations.js';
 export { type Caution, CHARGE_TRANSFER_ONSET, cubicCautions } from './cautions.js';
 export {
   type Crossover,
@@ -72,6 +111,19 @@ export {
 export { FIT_WARNING_LIMITS, type FitWarning, type FitWarningCode } from './fitWarnings.js';
 export { type FreeIonTerm, freeIonTerms, freeIonTermsSlater } from './freeIon.js';
 export {
+  bandSum,
+  baselineValue,
+  DEFAULT_SYNTHETIC_SEED,
+  FOUR_LN2,
+  GAUSSIAN_AREA_FACTOR,
+  type GaussianBand,
+  gaussianArea,
+  gaussianValue,
+  type LinearBaseline,
+  type SyntheticOptions,
+  syntheticSpectrum,
+} from './gaussianBands.js';
+export {
   GROUND_MAP_DEFAULTS,
   type GroundMapOptions,
   type GroundStateMap,
@@ -99,6 +151,12 @@ export {
   unicodeTerm,
 } from './labels.js';
 export {
+  CURVE_FIT_TOLERANCE,
+  type CurveFitOptions,
+  type CurveFitResult,
+  covariance,
+  fitCurve,
+  type GradientModel,
   inverseNormalMatrix,
   LEAST_SQUARES_DEFAULTS,
   type LeastSquaresOptions,
@@ -134,8 +192,30 @@ export {
   type ScanPoint,
   singleTerm,
 } from './ratioScan.js';
+export { ensureMonotonicX, pointPlace, type RawSpectrum } from './rawSpectrum.js';
 export { type DSlaterIntegrals, slaterFromRacah } from './repulsion.js';
 export { brentRoot, DEFAULT_ROOT_TOLERANCE, type RootOptions } from './roots.js';
+export { normalRandom, uniformRandom } from './seededRandom.js';
+export { isJcamp, parseJcampSpectrum } from './spectrumJcamp.js';
+export {
+  type ColumnChoice,
+  DEFAULT_X_COLUMN,
+  DEFAULT_Y_COLUMN,
+  parseSpectrumText,
+  type SpectrumTextOptions,
+} from './spectrumText.js';
+export {
+  chooseUnit,
+  parseXUnit,
+  parseYUnit,
+  type SpectrumXUnit,
+  type SpectrumYUnit,
+  type UnitChoice,
+  X_UNIT_NAMES,
+  xUnitFromLabel,
+  Y_UNIT_NAMES,
+  yUnitFromLabel,
+} from './spectrumUnits.js';
 export { branchTerm, CHARACTERS, CUBIC_IRREPS, type CubicIrrep, IRREP_DIMENSION } from './symmetry.js';
 export {
   type Configuration,

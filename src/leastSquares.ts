@@ -239,3 +239,108 @@ export function inverseNormalMatrix(
   }
   return out;
 }
+
+/**
+ * A model of one curve point: returns its value at `x` and fills `gradient[k]` with
+ * ∂value/∂p[k] (`gradient` has the length of p).
+ */
+export type GradientModel = (p: Float64Array, x: number, gradient: Float64Array) => number;
+
+/** Options of {@link fitCurve}. */
+export interface CurveFitOptions {
+  /** Lower bounds of the parameters. @default none */
+  readonly min?: ArrayLike<number>;
+  /** Upper bounds of the parameters. @default none */
+  readonly max?: ArrayLike<number>;
+  /** Iteration limit. @default LEAST_SQUARES_DEFAULTS.maxIterations */
+  readonly maxIterations?: number;
+  /** Stop when a step lowers the sum of squares by less than this fraction. @default 1e-9 */
+  readonly relativeTolerance?: number;
+}
+
+/** Default relative tolerance of {@link fitCurve}: a curve of noisy data needs no more. */
+export const CURVE_FIT_TOLERANCE = 1e-9;
+
+/** A fitted curve: parameters, χ² = Σ residual², JᵀJ (row-major) and iterations. */
+export interface CurveFitResult {
+  readonly p: Float64Array;
+  readonly chi2: number;
+  readonly curvature: Float64Array;
+  readonly iterations: number;
+  readonly reason: StopReason;
+}
+
+/**
+ * Fits y ≈ model(p, x) by {@link levenbergMarquardt}, with the model's analytic gradient as the
+ * Jacobian: the form the band decomposition of spectra needs.
+ */
+export function fitCurve(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  model: GradientModel,
+  p0: ArrayLike<number>,
+  options: CurveFitOptions = {},
+): CurveFitResult {
+  const P = p0.length;
+  const g = new Float64Array(P);
+  const residuals = (p: readonly number[]) => {
+    const q = Float64Array.from(p);
+    const r = new Array<number>(x.length);
+    for (let i = 0; i < x.length; i++) r[i] = (y[i] as number) - model(q, x[i] as number, g);
+    return r;
+  };
+  const jacobian = (p: readonly number[]) => {
+    const q = Float64Array.from(p);
+    const rows: number[][] = [];
+    for (let i = 0; i < x.length; i++) {
+      g.fill(0);
+      model(q, x[i] as number, g);
+      rows.push(Array.from(g, (v) => -v));
+    }
+    return rows;
+  };
+  const result = levenbergMarquardt(
+    {
+      start: Array.from(p0),
+      residuals,
+      jacobian,
+      ...(options.min ? { lower: Array.from(options.min) } : {}),
+      ...(options.max ? { upper: Array.from(options.max) } : {}),
+    },
+    {
+      maxIterations: options.maxIterations ?? LEAST_SQUARES_DEFAULTS.maxIterations,
+      reductionTolerance: options.relativeTolerance ?? CURVE_FIT_TOLERANCE,
+    },
+  );
+  const curvature = new Float64Array(P * P);
+  for (const row of result.jacobian) {
+    for (let j = 0; j < P; j++) {
+      const a = row[j] ?? 0;
+      if (a === 0) continue;
+      for (let k = 0; k < P; k++) curvature[j * P + k] = (curvature[j * P + k] as number) + a * (row[k] ?? 0);
+    }
+  }
+  return {
+    p: Float64Array.from(result.parameters),
+    chi2: result.sumOfSquares,
+    curvature,
+    iterations: result.iterations,
+    reason: result.reason,
+  };
+}
+
+/**
+ * The covariance s² (JᵀJ)⁻¹ (row-major) from a curvature matrix JᵀJ; `undefined` when JᵀJ is
+ * singular (a parameter the data do not determine).
+ */
+export function covariance(curvature: Float64Array, size: number, s2: number): Float64Array | undefined {
+  const a = new Matrix(size, size);
+  for (let j = 0; j < size; j++)
+    for (let k = 0; k < size; k++) a.set(j, k, curvature[j * size + k] as number);
+  const chol = new CholeskyDecomposition(a);
+  if (!chol.isPositiveDefinite()) return undefined;
+  const inv = chol.solve(Matrix.eye(size, size));
+  const out = new Float64Array(size * size);
+  for (let j = 0; j < size; j++) for (let k = 0; k < size; k++) out[j * size + k] = s2 * inv.get(j, k);
+  return out;
+}

@@ -1,0 +1,499 @@
+import { resolve } from 'node:path';
+import type { Command } from 'commander';
+import { formatOfPath } from '../../charts/render.js';
+import { type PredictedTransition, quantityTitle, renderSpectrumFigure } from '../../charts/spectrum.js';
+import {
+  type AbsorptionSpectrum,
+  absorptionSpectrum,
+  type BandAnalysis,
+  type BandObservation,
+  type BaselineKind,
+  bandObservations,
+  CHARGE_TRANSFER_EPSILON,
+  type CubicResult,
+  cmToNm,
+  cubicCautions,
+  DEFAULT_BASELINE,
+  DEFAULT_MAX_BANDS,
+  DEFAULT_MIN_FWHM,
+  DEFAULT_X_COLUMN,
+  DEFAULT_Y_COLUMN,
+  type FoundBand,
+  findBands,
+  InputError,
+  isJcamp,
+  ligandFieldBands,
+  NARROW_BAND_FWHM,
+  POSITION_WIDTH_FRACTION,
+  parseEnergy,
+  parseJcampSpectrum,
+  parseSpectrumText,
+  parseUnit,
+  parseXUnit,
+  parseYUnit,
+  type RawSpectrum,
+  unicodeLabel,
+  X_UNIT_NAMES,
+  Y_UNIT_NAMES,
+} from '../../src/index.js';
+import { readTextFile, writeFileAtomic } from '../files.js';
+import { fixed, jsonText, table } from '../format.js';
+import type { Io } from '../io.js';
+import { geometryOption, ionOrCount, numberOption } from '../options.js';
+import { levelJson, levelsFromOptions } from './levels.js';
+
+/** Options of `termsplit spectrum`. */
+export interface SpectrumOptions {
+  ion?: string;
+  d?: string;
+  geometry?: string;
+  range?: string;
+  xUnit?: string;
+  yUnit?: string;
+  xCol?: string;
+  yCol?: string;
+  conc?: string;
+  path?: string;
+  dq?: string;
+  B?: string;
+  C?: string;
+  cb?: string;
+  includeCt?: boolean;
+  maxBands?: string;
+  minWidth?: string;
+  baseline?: string;
+  output?: string;
+  json?: boolean;
+}
+
+/** `termsplit spectrum <file>`: bands of a measured UV-vis-NIR spectrum, with an overlay figure. */
+export function registerSpectrum(program: Command, io: Io): void {
+  program
+    .command('spectrum')
+    .description(
+      'find the d–d bands of a measured UV-vis-NIR spectrum (CSV/TSV/text or JCAMP-DX) and draw them',
+    )
+    .argument('<file>', 'the spectrum: delimited text (x and y columns) or JCAMP-DX (.jdx, .dx)')
+    .option('--ion <name>', 'the metal ion, e.g. Cr3+ (with --dq and --B: predicted transitions)')
+    .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
+    .option('--geometry <oct|tet>', 'octahedral or tetrahedral', 'oct')
+    .option('--range <from-to>', 'window, e.g. 330-1300nm, 8000-30000 (cm⁻¹) or 1.2-3.6eV')
+    .option('--x-unit <unit>', 'x unit when the file does not say: nm, cm-1 or eV')
+    .option('--y-unit <unit>', 'y quantity when the file does not say: A, epsilon, %T, T or arb')
+    .option('--x-col <column>', 'x column, by number (from 1) or header name', String(DEFAULT_X_COLUMN))
+    .option('--y-col <column>', 'y column, by number (from 1) or header name', String(DEFAULT_Y_COLUMN))
+    .option('--conc <mol/L>', 'concentration of the metal complex; with --path turns absorbance into ε')
+    .option('--path <cm>', 'optical path length; with --conc turns absorbance into ε')
+    .option('--dq <cm-1>', 'Dq for predicted transitions (10Dq = Δ)')
+    .option('--B <cm-1>', 'Racah B for predicted transitions')
+    .option('--C <cm-1>', 'Racah C (default: the ion’s free-ion C/B × B)')
+    .option('--cb <ratio>', 'C/B instead of --C')
+    .option('--include-ct', 'keep bands that look like charge transfer among the ligand-field bands')
+    .option('--max-bands <n>', 'most bands fitted inside the window', String(DEFAULT_MAX_BANDS))
+    .option('--min-width <cm-1>', 'narrowest band (FWHM) looked for', String(DEFAULT_MIN_FWHM))
+    .option('--baseline <kind>', 'baseline fitted with the bands: none, constant or linear', DEFAULT_BASELINE)
+    .option('-o, --output <file>', 'write the overlay figure (.png, .svg or .pdf)')
+    .option('--json', 'print one JSON object on stdout')
+    .action((file: string, opts: SpectrumOptions) => {
+      io.out(spectrumCommand(file, opts, io));
+    });
+}
+
+/** Everything the command works out, before it is written as text or JSON. */
+interface SpectrumReport {
+  readonly file: string;
+  readonly raw: RawSpectrum;
+  readonly spectrum: AbsorptionSpectrum;
+  readonly analysis: BandAnalysis;
+  readonly ligandField: readonly FoundBand[];
+  readonly observations: readonly BandObservation[];
+  readonly predicted?: { result: CubicResult; cOrigin: string; ion?: string };
+  readonly cautions: readonly string[];
+  readonly figure?: string;
+}
+
+/** Runs the command and returns its stdout text; the figure, if asked for, is written first. */
+export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): string {
+  const report = analyse(file, opts, io);
+  return opts.json ? jsonText(reportJson(report)) : reportText(report, opts);
+}
+
+function analyse(file: string, opts: SpectrumOptions, io: Io): SpectrumReport {
+  const xUnit = opts.xUnit === undefined ? undefined : parseXUnit(opts.xUnit);
+  const yUnit = opts.yUnit === undefined ? undefined : parseYUnit(opts.yUnit);
+  const conc = numberOption('--conc', opts.conc, { positive: true, what: 'a positive number of mol/L' });
+  const path = numberOption('--path', opts.path, { positive: true, what: 'a positive number of cm' });
+  if ((conc === undefined) !== (path === undefined)) {
+    throw new InputError('give both --conc (mol/L) and --path (cm) to turn absorbance into ε');
+  }
+  const range = opts.range === undefined ? undefined : parseRange(opts.range);
+  const maxBands = numberOption('--max-bands', opts.maxBands, {
+    integer: true,
+    min: 1,
+    what: 'a whole number',
+  });
+  const minFwhm = numberOption('--min-width', opts.minWidth, {
+    positive: true,
+    what: 'a positive number of cm⁻¹',
+  });
+  const baseline = baselineOption(opts.baseline);
+  if (opts.dq === undefined && (opts.B !== undefined || opts.C !== undefined || opts.cb !== undefined)) {
+    throw new InputError('--B, --C and --cb give predicted transitions only together with --dq');
+  }
+  geometryOption(opts.geometry);
+  if (opts.ion !== undefined || opts.d !== undefined) ionOrCount(opts.ion, opts.d);
+  const predicted = opts.dq === undefined ? undefined : levelsFromOptions(opts);
+  const outPath = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
+  const format = outPath === undefined ? undefined : formatOfPath(outPath);
+
+  const full = resolve(io.cwd, file);
+  const text = readTextFile(full);
+  const inFile = <T>(work: () => T): T => {
+    try {
+      return work();
+    } catch (e) {
+      if (e instanceof InputError) throw new InputError(`${file}: ${e.message}`);
+      throw e;
+    }
+  };
+  const raw = inFile(() =>
+    isJcamp(text) || /\.(jdx|dx|jcamp)$/i.test(file)
+      ? parseJcampSpectrum(text)
+      : parseSpectrumText(text, {
+          ...(opts.xCol !== undefined ? { xColumn: opts.xCol } : {}),
+          ...(opts.yCol !== undefined ? { yColumn: opts.yCol } : {}),
+        }),
+  );
+  const spectrum = inFile(() =>
+    absorptionSpectrum(raw, {
+      ...(xUnit ? { xUnit } : {}),
+      ...(yUnit ? { yUnit } : {}),
+      ...(conc !== undefined && path !== undefined ? { concentration: conc, pathLength: path } : {}),
+    }),
+  );
+  const analysis = inFile(() =>
+    findBands(spectrum, {
+      ...(range ? { range } : {}),
+      ...(maxBands !== undefined ? { maxBands } : {}),
+      ...(minFwhm !== undefined ? { minFwhm } : {}),
+      baseline,
+    }),
+  );
+  const choice = { includeChargeTransfer: opts.includeCt === true };
+  const ligandField = ligandFieldBands(analysis.bands, choice);
+  if (ligandField.length === 0) {
+    const { from, to } = analysis.window;
+    const ct = analysis.bands.length > 0;
+    throw new InputError(
+      `${file}: no d–d bands found in ${fixed(from)}–${fixed(to)} cm⁻¹` +
+        (ct
+          ? ` (only ${analysis.bands.length === 1 ? 'a band that looks' : `${analysis.bands.length} bands that look`} like charge transfer or lie beyond the window${opts.includeCt ? '' : '; --include-ct keeps intense or high-energy ones'})`
+          : ` (noise σ = ${analysis.noise.toPrecision(2)}: nothing stands out above it)`),
+    );
+  }
+  const observations = bandObservations(analysis.bands, choice);
+  const cautions = spectrumCautions(analysis, spectrum, predicted?.result);
+  const transitions: PredictedTransition[] = predicted
+    ? predicted.result.levels
+        .filter((l) => l !== predicted.result.ground)
+        .map((l) => ({ label: l.label, energy: l.energy, spinAllowed: l.spinAllowed }))
+    : [];
+  if (outPath !== undefined && format !== undefined) {
+    const bytes = renderSpectrumFigure(
+      {
+        measured: { x: spectrum.wavenumber, y: spectrum.value },
+        quantity: analysis.quantity,
+        window: analysis.window,
+        bands: analysis.bands,
+        baseline: analysis.baseline,
+        transitions,
+      },
+      { format, title: `termsplit spectrum ${file}` },
+    );
+    writeFileAtomic(outPath, bytes);
+  }
+  return {
+    file,
+    raw,
+    spectrum,
+    analysis,
+    ligandField,
+    observations,
+    ...(predicted ? { predicted } : {}),
+    cautions,
+    ...(opts.output !== undefined ? { figure: opts.output } : {}),
+  };
+}
+
+/**
+ * Parses `--range`: two energies joined by a hyphen or dash, with one unit for both
+ * (`330-1300nm`, `330nm-1300nm`, `8000-30000`, `1.2-3.6 eV`); bare numbers are cm⁻¹.
+ * @returns the window in cm⁻¹, lower end first.
+ */
+export function parseRange(text: string): { from: number; to: number } {
+  const m = RANGE.exec(text);
+  if (!m) {
+    throw new InputError(
+      `--range "${text}": expected two energies such as 330-1300nm, 8000-30000 or 1.2-3.6eV`,
+    );
+  }
+  const [, first = '', firstUnit, second = '', secondUnit] = m;
+  if (firstUnit && secondUnit && parseUnit(firstUnit) !== parseUnit(secondUnit)) {
+    throw new InputError(`--range "${text}": the two ends are in different units`);
+  }
+  const unitText = secondUnit ?? firstUnit;
+  const unit = unitText === undefined ? 'cm-1' : parseUnit(unitText);
+  const a = parseEnergy(first, unit).value;
+  const b = parseEnergy(second, unit).value;
+  if (a === b) throw new InputError(`--range "${text}": the two ends are the same`);
+  return { from: Math.min(a, b), to: Math.max(a, b) };
+}
+
+const RANGE_NUMBER = String.raw`(\d+(?:\.\d*)?|\.\d+)`;
+const RANGE_UNIT = String.raw`(nm|cm-1|cm\^-1|cm⁻¹|1/cm|ev|kk)`;
+const RANGE = new RegExp(
+  String.raw`^\s*${RANGE_NUMBER}\s*${RANGE_UNIT}?\s*[-–—]\s*${RANGE_NUMBER}\s*${RANGE_UNIT}?\s*$`,
+  'i',
+);
+
+function baselineOption(text: string | undefined): BaselineKind {
+  const t = (text ?? DEFAULT_BASELINE).trim().toLowerCase();
+  if (t === 'none' || t === 'constant' || t === 'linear') return t;
+  throw new InputError(`--baseline "${text}": expected none, constant or linear`);
+}
+
+/** Sentences about where the result could mislead, for the report. */
+function spectrumCautions(
+  analysis: BandAnalysis,
+  spectrum: AbsorptionSpectrum,
+  predicted?: CubicResult,
+): string[] {
+  const out: string[] = [];
+  const { from, to } = analysis.window;
+  if (analysis.clipped) {
+    out.push(
+      `the range asked for reaches beyond the data; the window used is ${fixed(from)}–${fixed(to)} cm⁻¹`,
+    );
+  }
+  const blue = analysis.bands.find((b) => b.flags.includes('blue-edge'));
+  if (blue) {
+    out.push(
+      `band ${blue.number} rises at the blue end of the window (maximum beyond ${fixed(to)} cm⁻¹): if it is a ` +
+        'charge-transfer or ligand band, it can hide or distort d–d bands near the edge; if a d–d band, widen the window',
+    );
+  }
+  const red = analysis.bands.find((b) => b.flags.includes('red-edge'));
+  if (red) {
+    out.push(
+      `band ${red.number} is the wing of a band whose maximum lies below ${fixed(from)} cm⁻¹: record further into the ` +
+        'near infrared to measure it; it is not used as a ligand-field band',
+    );
+  }
+  for (const b of analysis.bands.filter((b) => b.flags.includes('intense'))) {
+    out.push(
+      `band ${b.number} has ε ≈ ${fixed(b.height)} L mol⁻¹ cm⁻¹, in the charge-transfer range (≥ ${CHARGE_TRANSFER_EPSILON}; common practice, no source)`,
+    );
+  }
+  const narrow = analysis.bands.filter((b) => b.flags.includes('narrow') && !b.chargeTransfer);
+  if (narrow.length > 0) {
+    out.push(
+      `band${narrow.length > 1 ? 's' : ''} ${narrow.map((b) => b.number).join(', ')} narrower than ${NARROW_BAND_FWHM} cm⁻¹: ` +
+        'possibly spin-forbidden (sharp intraconfigurational bands); assign before fitting',
+    );
+  }
+  const ratio = analysis.residualRms / analysis.noise;
+  if (ratio > 2) {
+    out.push(
+      `the fit leaves ${fixed(ratio, 1)} × the noise: the bands are not all Gaussian (asymmetric, structured or ` +
+        'Jahn–Teller split), so some components may model shape rather than separate transitions',
+    );
+  }
+  if (spectrum.quantity !== 'epsilon') {
+    out.push(
+      spectrum.quantity === 'absorbance'
+        ? 'intensities are absorbances: give --conc and --path to compare ε with the usual ranges'
+        : 'intensities are in arbitrary units: no comparison with the usual ε ranges',
+    );
+  }
+  out.push(
+    'band positions are centres of Gaussian components (vertical transitions); a ligand-field fit to band maxima ' +
+      'ignores vibronic structure and the Stokes shift, so Dq and B carry that approximation',
+  );
+  if (predicted) out.push(...cubicCautions(predicted).map((c) => c.message));
+  return out;
+}
+
+const FLAG_TEXT: Readonly<Record<FoundBand['flags'][number], string>> = {
+  intense: 'intense: charge transfer?',
+  'high-energy': 'high energy: charge transfer?',
+  'blue-edge': 'maximum beyond the blue end (rising edge)',
+  'red-edge': 'maximum below the red end (wing only)',
+  narrow: 'narrow: spin-forbidden?',
+};
+
+function reportText(r: SpectrumReport, opts: SpectrumOptions): string {
+  const { raw, spectrum, analysis } = r;
+  const lines: string[] = [];
+  const { from, to } = analysis.window;
+  lines.push(`termsplit spectrum — ${r.file}`);
+  lines.push(`Read ${raw.x.length} points (${raw.format}).`);
+  lines.push(
+    `  x: "${raw.xLabel}" in ${X_UNIT_NAMES[spectrum.xUnit.unit]} (${originText(spectrum.xUnit.origin)})`,
+  );
+  lines.push(
+    `  y: "${raw.yLabel}" as ${Y_UNIT_NAMES[spectrum.yUnit.unit]} (${originText(spectrum.yUnit.origin)})`,
+  );
+  for (const c of spectrum.conversions) lines.push(`  converted: ${c}`);
+  lines.push(
+    `Window ${fixed(from)}–${fixed(to)} cm⁻¹ (${fixed(cmToNm(to))}–${fixed(cmToNm(from))} nm), ${analysis.points} points; ` +
+      `noise σ = ${sig(analysis.noise)}, fit residual ${sig(analysis.residualRms)} (${fixed(analysis.residualRms / analysis.noise, 1)} × noise).`,
+  );
+  const b = analysis.baseline;
+  lines.push(
+    analysis.baselineKind === 'none'
+      ? 'Baseline: none fitted.'
+      : `Baseline (${analysis.baselineKind}, fitted with the bands): ${sig(b.offset)}${analysis.baselineKind === 'linear' ? ` ${b.slope < 0 ? '−' : '+'} ${sig(Math.abs(b.slope))} × (ν̃ − ${fixed(b.reference)} cm⁻¹)` : ''}.`,
+  );
+  lines.push('');
+  const unit = spectrum.quantity === 'epsilon' ? 'ε' : spectrum.quantity === 'absorbance' ? 'A' : 'y';
+  lines.push(`Bands (Gaussian components; ${quantityTitle(spectrum.quantity)}):`);
+  const rows = analysis.bands.map((band) => {
+    const edge = band.flags.includes('blue-edge') || band.flags.includes('red-edge');
+    return [
+      String(band.number),
+      edge ? `(${fixed(band.center)})` : fixed(band.center),
+      edge || !Number.isFinite(band.centerSigma) ? '—' : fixed(band.centerSigma),
+      edge ? '—' : fixed(cmToNm(band.center), 1),
+      fixed(band.fwhm),
+      sig(band.height),
+      sig(band.area),
+      band.oscillatorStrength === undefined ? '—' : band.oscillatorStrength.toExponential(1),
+      band.intensityRange ?? '—',
+      [...band.flags.map((f) => FLAG_TEXT[f]), r.ligandField.includes(band) ? '' : 'not a ligand-field band']
+        .filter((t) => t !== '')
+        .join('; '),
+    ];
+  });
+  lines.push(
+    table(
+      [
+        '#',
+        'max / cm⁻¹',
+        '± fit',
+        'nm',
+        'FWHM / cm⁻¹',
+        `height (${unit})`,
+        `area (${unit}·cm⁻¹)`,
+        'f',
+        'usual ε range of',
+        'notes',
+      ],
+      rows,
+    ),
+  );
+  lines.push('');
+  lines.push(
+    `Ligand-field bands for a fit of Dq and B (σ = fit ⊕ ${fixed(100 * POSITION_WIDTH_FRACTION)} % of FWHM${opts.includeCt ? '; charge-transfer-like bands kept' : ''}):`,
+  );
+  lines.push(`  ${r.observations.map((o) => `${fixed(o.energy)}±${fixed(o.sigma)}`).join(', ')} cm⁻¹`);
+  if (r.predicted) {
+    const { result, cOrigin, ion } = r.predicted;
+    lines.push('');
+    lines.push(
+      `Predicted transitions, ${ion ?? `d${result.n}`} ${result.geometry === 'oct' ? 'octahedral' : 'tetrahedral'}, ` +
+        `Dq = ${fixed(result.dq)}, B = ${fixed(result.B)}, C = ${fixed(result.C)} cm⁻¹ (C: ${cOrigin}), ` +
+        `from ${unicodeLabel(result.ground.label)}, inside the window:`,
+    );
+    const inside = result.levels.filter((l) => l !== result.ground && l.energy >= from && l.energy <= to);
+    lines.push(
+      inside.length === 0
+        ? '  none'
+        : table(
+            ['level', 'cm⁻¹', 'nm', 'spin'],
+            inside.map((l) => [
+              unicodeLabel(l.label),
+              fixed(l.energy),
+              fixed(cmToNm(l.energy), 1),
+              l.spinAllowed ? 'allowed' : 'forbidden',
+            ]),
+          ),
+    );
+  }
+  if (!r.predicted && (opts.ion !== undefined || opts.d !== undefined)) {
+    lines.push('');
+    lines.push('Give --dq and --B to add the predicted transitions to this report and the figure.');
+  }
+  lines.push('');
+  lines.push('Cautions:');
+  for (const c of r.cautions) lines.push(`  - ${c}`);
+  if (r.figure) {
+    lines.push('');
+    lines.push(`Figure written to ${r.figure}.`);
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+function originText(origin: string): string {
+  return origin.startsWith('--') ? `given by ${origin}` : `from the ${origin}`;
+}
+
+/** Three significant figures, for values of any size (powers of ten outside 10⁻³ … 10⁶). */
+function sig(v: number): string {
+  if (!Number.isFinite(v)) return '—';
+  if (v === 0) return '0';
+  const a = Math.abs(v);
+  return a >= 1e6 || a < 1e-3 ? v.toExponential(2) : String(Number(v.toPrecision(3)));
+}
+
+function reportJson(r: SpectrumReport) {
+  const { raw, spectrum, analysis } = r;
+  return {
+    file: r.file,
+    format: raw.format,
+    points: raw.x.length,
+    x: { label: raw.xLabel, unit: spectrum.xUnit.unit, origin: spectrum.xUnit.origin },
+    y: { label: raw.yLabel, unit: spectrum.yUnit.unit, origin: spectrum.yUnit.origin },
+    conversions: spectrum.conversions,
+    quantity: analysis.quantity,
+    window: { from: analysis.window.from, to: analysis.window.to, clipped: analysis.clipped },
+    windowPoints: analysis.points,
+    noise: analysis.noise,
+    residualRms: analysis.residualRms,
+    baseline: { kind: analysis.baselineKind, ...analysis.baseline },
+    bands: analysis.bands.map((b) => ({
+      number: b.number,
+      center: b.center,
+      centerSigma: Number.isFinite(b.centerSigma) ? b.centerSigma : null,
+      wavelength: cmToNm(b.center),
+      fwhm: b.fwhm,
+      fwhmSigma: Number.isFinite(b.fwhmSigma) ? b.fwhmSigma : null,
+      height: b.height,
+      heightSigma: Number.isFinite(b.heightSigma) ? b.heightSigma : null,
+      area: b.area,
+      areaSigma: Number.isFinite(b.areaSigma) ? b.areaSigma : null,
+      oscillatorStrength: b.oscillatorStrength ?? null,
+      intensityRange: b.intensityRange ?? null,
+      flags: b.flags,
+      chargeTransfer: b.chargeTransfer,
+      ligandField: r.ligandField.includes(b),
+    })),
+    observations: r.observations,
+    ...(r.predicted
+      ? {
+          predicted: {
+            ...(r.predicted.ion ? { ion: r.predicted.ion } : {}),
+            n: r.predicted.result.n,
+            geometry: r.predicted.result.geometry,
+            dq: r.predicted.result.dq,
+            B: r.predicted.result.B,
+            C: r.predicted.result.C,
+            cOrigin: r.predicted.cOrigin,
+            ground: r.predicted.result.ground.label,
+            levels: r.predicted.result.levels.map(levelJson),
+          },
+        }
+      : {}),
+    cautions: r.cautions,
+    figure: r.figure ?? null,
+  };
+}
