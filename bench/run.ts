@@ -2,6 +2,7 @@ import { benchCrossover } from './crossover.js';
 import { benchDiagram } from './diagram.js';
 import { benchFit } from './fit.js';
 import { benchSolver } from './solver.js';
+import { benchSpectrum } from './spectrum.js';
 
 /** `npm run bench`: every benchmark of the project, printed. Timings depend on the machine. */
 const benches: [string, () => void | Promise<void>][] = [
@@ -9,6 +10,7 @@ const benches: [string, () => void | Promise<void>][] = [
   ['diagram', benchDiagram],
   ['fit', benchFit],
   ['crossover', benchCrossover],
+  ['spectrum', benchSpectrum],
 ];
 
 console.log(`termsplit benchmark — Node ${process.version}, ${new Date().toISOString().slice(0, 10)}\n`);

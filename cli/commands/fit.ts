@@ -227,7 +227,28 @@ function solutionSummary(s: FitSolution): string {
   );
 }
 
-function fitText(result: FitResult, ion: string | undefined, cOrigin: string): string {
+/** The JSON form of a fit result (solutions best first). */
+export function fitJson(result: FitResult, ion: string | undefined, cOrigin: string) {
+  return {
+    ...(ion ? { ion } : {}),
+    n: result.n,
+    geometry: result.geometry,
+    cOverB: result.cOverB,
+    cOrigin,
+    fitC: result.fitC,
+    freeIon: result.freeIon,
+    bands: result.bands.map((b) => ({ energy: b.energy, sigma: b.sigma ?? null })),
+    weighting: result.weighting,
+    tried: result.tried,
+    refined: result.refined,
+    omitted: result.omitted,
+    solutions: result.solutions.map(solutionJson),
+    warnings: result.warnings,
+  };
+}
+
+/** The human form of a fit result. */
+export function fitText(result: FitResult, ion: string | undefined, cOrigin: string): string {
   const best = result.solutions[0];
   if (!best) throw new Error('fit returned no solution');
   const geometryName = result.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
@@ -358,19 +379,6 @@ function fitCommand(opts: FitOptions, io: Io): string {
   if (!opts.json) return fitText(result, ion, cOrigin) + figureNote;
   return jsonText({
     ...(diagramPath !== undefined ? { diagram: best ? opts.diagram : null } : {}),
-    ...(ion ? { ion } : {}),
-    n: result.n,
-    geometry: result.geometry,
-    cOverB: result.cOverB,
-    cOrigin,
-    fitC: result.fitC,
-    freeIon: result.freeIon,
-    bands: result.bands.map((b) => ({ energy: b.energy, sigma: b.sigma ?? null })),
-    weighting: result.weighting,
-    tried: result.tried,
-    refined: result.refined,
-    omitted: result.omitted,
-    solutions: result.solutions.map(solutionJson),
-    warnings: result.warnings,
+    ...fitJson(result, ion, cOrigin),
   });
 }

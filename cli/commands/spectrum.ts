@@ -18,8 +18,10 @@ import {
   DEFAULT_MIN_FWHM,
   DEFAULT_X_COLUMN,
   DEFAULT_Y_COLUMN,
+  type FitResult,
   type FoundBand,
   findBands,
+  fitBands,
   InputError,
   isJcamp,
   ligandFieldBands,
@@ -39,7 +41,8 @@ import {
 import { readTextFile, writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
-import { geometryOption, ionOrCount, numberOption } from '../options.js';
+import { geometryOption, ionOrCount, numberOption, ratioChoice } from '../options.js';
+import { fitJson, fitText } from './fit.js';
 import { levelJson, levelsFromOptions } from './levels.js';
 
 /** Options of `termsplit spectrum`. */
@@ -59,6 +62,8 @@ export interface SpectrumOptions {
   C?: string;
   cb?: string;
   includeCt?: boolean;
+  spinForbidden?: boolean;
+  fitC?: boolean;
   maxBands?: string;
   minWidth?: string;
   baseline?: string;
@@ -89,6 +94,11 @@ export function registerSpectrum(program: Command, io: Io): void {
     .option('--C <cm-1>', 'Racah C (default: the ion’s free-ion C/B × B)')
     .option('--cb <ratio>', 'C/B instead of --C')
     .option('--include-ct', 'keep bands that look like charge transfer among the ligand-field bands')
+    .option(
+      '--spin-forbidden',
+      'fit narrow bands too, letting the fit assign them to spin-forbidden transitions',
+    )
+    .option('--fit-c', 'fit C as well as Dq and B (needs at least 3 bands, one depending on C)')
     .option('--max-bands <n>', 'most bands fitted inside the window', String(DEFAULT_MAX_BANDS))
     .option('--min-width <cm-1>', 'narrowest band (FWHM) looked for', String(DEFAULT_MIN_FWHM))
     .option('--baseline <kind>', 'baseline fitted with the bands: none, constant or linear', DEFAULT_BASELINE)
@@ -108,6 +118,7 @@ interface SpectrumReport {
   readonly ligandField: readonly FoundBand[];
   readonly observations: readonly BandObservation[];
   readonly predicted?: { result: CubicResult; cOrigin: string; ion?: string };
+  readonly fit?: SpectrumFit;
   readonly cautions: readonly string[];
   readonly figure?: string;
 }
@@ -137,8 +148,10 @@ function analyse(file: string, opts: SpectrumOptions, io: Io): SpectrumReport {
     what: 'a positive number of cm⁻¹',
   });
   const baseline = baselineOption(opts.baseline);
-  if (opts.dq === undefined && (opts.B !== undefined || opts.C !== undefined || opts.cb !== undefined)) {
-    throw new InputError('--B, --C and --cb give predicted transitions only together with --dq');
+  if (opts.dq === undefined && (opts.B !== undefined || opts.C !== undefined)) {
+    throw new InputError(
+      '--B and --C give predicted transitions only together with --dq (without them the bands are fitted)',
+    );
   }
   geometryOption(opts.geometry);
   if (opts.ion !== undefined || opts.d !== undefined) ionOrCount(opts.ion, opts.d);
@@ -192,10 +205,17 @@ function analyse(file: string, opts: SpectrumOptions, io: Io): SpectrumReport {
     );
   }
   const observations = bandObservations(analysis.bands, choice);
-  const cautions = spectrumCautions(analysis, spectrum, predicted?.result);
-  const transitions: PredictedTransition[] = predicted
-    ? predicted.result.levels
-        .filter((l) => l !== predicted.result.ground)
+  const fit =
+    predicted || (opts.ion === undefined && opts.d === undefined)
+      ? undefined
+      : spectrumFit(ligandField, opts);
+  const best = fit && 'result' in fit ? fit.result.solutions[0] : undefined;
+  const levels = predicted?.result ?? best?.levels;
+  const cautions = spectrumCautions(analysis, spectrum, levels);
+  if (fit && 'failure' in fit) cautions.push(`no ligand-field fit: ${fit.failure}`);
+  const transitions: PredictedTransition[] = levels
+    ? levels.levels
+        .filter((l) => l !== levels.ground)
         .map((l) => ({ label: l.label, energy: l.energy, spinAllowed: l.spinAllowed }))
     : [];
   if (outPath !== undefined && format !== undefined) {
@@ -220,9 +240,60 @@ function analyse(file: string, opts: SpectrumOptions, io: Io): SpectrumReport {
     ligandField,
     observations,
     ...(predicted ? { predicted } : {}),
+    ...(fit ? { fit } : {}),
     cautions,
     ...(opts.output !== undefined ? { figure: opts.output } : {}),
   };
+}
+
+/** The band fit of a spectrum, or why there is none. */
+type SpectrumFit =
+  | {
+      readonly result: FitResult;
+      readonly ion?: string;
+      readonly cOrigin: string;
+      /** Numbers of the bands fitted and of the narrow ones left out. */
+      readonly used: readonly number[];
+      readonly leftOut: readonly number[];
+    }
+  | { readonly failure: string };
+
+/**
+ * Fits Dq and B (and C with --fit-c) to the ligand-field bands. Narrow bands are left out unless
+ * --spin-forbidden (they are most often spin-forbidden, and an all-spin-allowed search would
+ * misassign them); if only narrow bands are left, they are fitted. A fit that cannot be made
+ * (too few bands for the parameters) is reported, not an error: the bands stand on their own.
+ */
+function spectrumFit(ligandField: readonly FoundBand[], opts: SpectrumOptions): SpectrumFit {
+  const choice = ionOrCount(opts.ion, opts.d);
+  const geometry = geometryOption(opts.geometry);
+  const broad = opts.spinForbidden
+    ? [...ligandField]
+    : ligandField.filter((b) => !b.flags.includes('narrow'));
+  const use = broad.length > 0 ? broad : [...ligandField];
+  const ratio = ratioChoice(undefined, undefined, opts.cb, choice.ion);
+  const observations = bandObservations(use, { includeChargeTransfer: true });
+  try {
+    const result = fitBands({
+      n: choice.n,
+      geometry,
+      bands: observations.map((o) => ({ energy: o.energy, sigma: o.sigma })),
+      ...(choice.ion ? { freeIon: choice.ion } : {}),
+      cOverB: ratio.cOverB,
+      fitC: opts.fitC === true,
+      includeSpinForbidden: opts.spinForbidden === true,
+    });
+    return {
+      result,
+      ...(choice.ion ? { ion: choice.ion.ion } : {}),
+      cOrigin: ratio.origin,
+      used: use.map((b) => b.number),
+      leftOut: ligandField.filter((b) => !use.includes(b)).map((b) => b.number),
+    };
+  } catch (e) {
+    if (e instanceof InputError) return { failure: e.message };
+    throw e;
+  }
 }
 
 /**
@@ -419,9 +490,23 @@ function reportText(r: SpectrumReport, opts: SpectrumOptions): string {
           ),
     );
   }
-  if (!r.predicted && (opts.ion !== undefined || opts.d !== undefined)) {
+  if (r.fit && 'result' in r.fit) {
+    const { result, ion, cOrigin, used, leftOut } = r.fit;
     lines.push('');
-    lines.push('Give --dq and --B to add the predicted transitions to this report and the figure.');
+    lines.push(
+      `Ligand-field fit of band${used.length > 1 ? 's' : ''} ${used.join(', ')}` +
+        (leftOut.length > 0
+          ? ` (narrow band${leftOut.length > 1 ? 's' : ''} ${leftOut.join(', ')} left out as possibly spin-forbidden; --spin-forbidden lets the fit assign them)`
+          : '') +
+        ':',
+    );
+    lines.push(fitText(result, ion, cOrigin).trimEnd());
+  }
+  if (!r.predicted && !r.fit) {
+    lines.push('');
+    lines.push(
+      'Give --ion (or --d) to fit Dq and B to these bands, or --dq and --B for predicted transitions.',
+    );
   }
   lines.push('');
   lines.push('Cautions:');
@@ -492,6 +577,17 @@ function reportJson(r: SpectrumReport) {
             levels: r.predicted.result.levels.map(levelJson),
           },
         }
+      : {}),
+    ...(r.fit
+      ? 'result' in r.fit
+        ? {
+            fit: {
+              ...fitJson(r.fit.result, r.fit.ion, r.fit.cOrigin),
+              usedBands: r.fit.used,
+              leftOutBands: r.fit.leftOut,
+            },
+          }
+        : { fit: { failure: r.fit.failure } }
       : {}),
     cautions: r.cautions,
     figure: r.figure ?? null,
