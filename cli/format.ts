@@ -24,7 +24,10 @@ function width(s: string): number {
 
 /** A number with a fixed number of decimals. */
 export function fixed(x: number, digits = 0): string {
-  return Number.isFinite(x) ? x.toFixed(digits) : '—';
+  if (!Number.isFinite(x)) return '—';
+  const text = x.toFixed(digits);
+  // A value that rounds to zero is printed without a sign.
+  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
 }
 
 /** Rounds every number in a JSON-bound value to `digits` decimals, to drop floating-point noise. */

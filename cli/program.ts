@@ -6,9 +6,11 @@ import { registerDiagram } from './commands/diagram.js';
 import { registerFit } from './commands/fit.js';
 import { registerIons } from './commands/ions.js';
 import { registerLevels } from './commands/levels.js';
+import { registerReport } from './commands/report.js';
 import { registerSpectrum } from './commands/spectrum.js';
 import { registerTerms } from './commands/terms.js';
 import type { Io } from './io.js';
+import { VERSION } from './version.js';
 
 /** Exit codes: 0 success, 1 an internal failure, 2 bad input. */
 export const EXIT_OK = 0;
@@ -33,6 +35,7 @@ export function buildProgram(io: Io): Command {
     registerDiagram,
     registerCrossover,
     registerSpectrum,
+    registerReport,
     registerDemo,
   ])
     register(program, io);
@@ -40,8 +43,6 @@ export function buildProgram(io: Io): Command {
     c.exitOverride().configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) });
   return program;
 }
-
-const VERSION = '0.1.0';
 
 /**
  * Runs the program on `argv` (the words after `termsplit`) and returns the exit code. Input

@@ -147,6 +147,7 @@ export {
   parseStateLabel,
   stateSymbol,
   unicodeConfiguration,
+  unicodeIon,
   unicodeLabel,
   unicodeTerm,
 } from './labels.js';
@@ -244,6 +245,17 @@ export {
 
 // Correlation-diagram data (sweep of Δ/B at fixed C/B).
 
+export { type FitSpinVerdict, fitCorrelation, fitSpinVerdict } from './fitVerdict.js';
+export {
+  parseSampleSheet,
+  type SampleSheet,
+  type SampleSpec,
+  type SheetFormat,
+  type SheetProblem,
+  type SpectrumSpec,
+  splitCsvLine,
+} from './sampleSheet.js';
+export { type IonOrder, type SeriesEntry, seriesOrders, seriesTable } from './series.js';
 export {
   type CorrelationDiagram,
   CSV_DIGITS,

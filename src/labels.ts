@@ -113,3 +113,11 @@ export function unicodeTerm(term: string): string {
   const sub = [...j].map((c) => SUBSCRIPT[c] ?? c).join('');
   return `${prefix}${sup}${letter}${sub}`;
 }
+
+/** Unicode rendering of an ion name, e.g. `Cr3+` → `Cr³⁺`. */
+export function unicodeIon(name: string): string {
+  const m = /^([A-Z][a-z]?)(\d*)([+-])$/.exec(name);
+  if (!m) return name;
+  const [, element = '', charge = '', sign = ''] = m;
+  return `${element}${[...charge].map((c) => SUPERSCRIPT[c] ?? c).join('')}${sign === '+' ? '⁺' : '⁻'}`;
+}

@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { expect, it } from 'vitest';
 import * as api from '../src/index.js';
 
@@ -76,7 +77,9 @@ it('the public API exports exactly the reviewed names (update this list on purpo
       "findBands",
       "findIon",
       "fitBands",
+      "fitCorrelation",
       "fitCurve",
+      "fitSpinVerdict",
       "freeIonRatio",
       "freeIonTerms",
       "freeIonTermsSlater",
@@ -110,6 +113,7 @@ it('the public API exports exactly the reviewed names (update this list on purpo
       "parseEnergy",
       "parseEnergyList",
       "parseJcampSpectrum",
+      "parseSampleSheet",
       "parseSpectrumText",
       "parseStateLabel",
       "parseUnit",
@@ -119,11 +123,14 @@ it('the public API exports exactly the reviewed names (update this list on purpo
       "ratioScan",
       "sampleVerdict",
       "searchAssignments",
+      "seriesOrders",
+      "seriesTable",
       "singleTerm",
       "slaterFromRacah",
       "solveAt",
       "solveCubic",
       "spinOnlyMoment",
+      "splitCsvLine",
       "standardErrors",
       "stateSymbol",
       "sweepDiagram",
@@ -134,6 +141,7 @@ it('the public API exports exactly the reviewed names (update this list on purpo
       "toWavenumber",
       "transitions",
       "unicodeConfiguration",
+      "unicodeIon",
       "unicodeLabel",
       "unicodeTerm",
       "uniformRandom",
@@ -143,4 +151,10 @@ it('the public API exports exactly the reviewed names (update this list on purpo
       "yUnitFromLabel",
     ]
   `);
+});
+
+it('the program version is package.json’s', async () => {
+  const { VERSION } = await import('../cli/version.js');
+  const pkg = JSON.parse(readFileSync(new URL('../package.json', import.meta.url), 'utf8'));
+  expect(VERSION).toBe(pkg.version);
 });

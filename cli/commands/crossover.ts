@@ -13,6 +13,7 @@ import {
   type FreeIon,
   findIon,
   fitBands,
+  fitCorrelation,
   type Geometry,
   GROUND_MAP_DEFAULTS,
   groundStateMap,
@@ -151,16 +152,7 @@ function fittedSample(input: Resolved, bandsText: string): FittedSample {
   });
   const best = result.solutions[0];
   if (!best) throw new InputError(`--bands "${bandsText}": no assignment of these bands fits d${input.n}`);
-  const iDq = best.parameters.indexOf('dq');
-  const iB = best.parameters.indexOf('B');
-  const cov = best.covariance;
-  const vDq = cov?.[iDq]?.[iDq];
-  const vB = cov?.[iB]?.[iB];
-  const cDqB = cov?.[iDq]?.[iB];
-  const correlation =
-    vDq !== undefined && vB !== undefined && cDqB !== undefined && vDq > 0 && vB > 0
-      ? cDqB / Math.sqrt(vDq * vB)
-      : undefined;
+  const correlation = fitCorrelation(best, 'dq', 'B');
   const assignment = best.assignments.map((a) => unicodeLabel(a.label)).join(', ');
   return {
     input: {

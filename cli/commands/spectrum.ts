@@ -1,6 +1,6 @@
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { formatOfPath } from '../../charts/render.js';
+import { type FigureFormat, formatOfPath } from '../../charts/render.js';
 import { type PredictedTransition, quantityTitle, renderSpectrumFigure } from '../../charts/spectrum.js';
 import {
   type AbsorptionSpectrum,
@@ -110,7 +110,7 @@ export function registerSpectrum(program: Command, io: Io): void {
 }
 
 /** Everything the command works out, before it is written as text or JSON. */
-interface SpectrumReport {
+export interface SpectrumReport {
   readonly file: string;
   readonly raw: RawSpectrum;
   readonly spectrum: AbsorptionSpectrum;
@@ -119,17 +119,23 @@ interface SpectrumReport {
   readonly observations: readonly BandObservation[];
   readonly predicted?: { result: CubicResult; cOrigin: string; ion?: string };
   readonly fit?: SpectrumFit;
+  /** Transitions marked on the figure: from the fit's best solution, or from --dq/--B. */
+  readonly transitions: readonly PredictedTransition[];
   readonly cautions: readonly string[];
   readonly figure?: string;
 }
 
 /** Runs the command and returns its stdout text; the figure, if asked for, is written first. */
 export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): string {
-  const report = analyse(file, opts, io);
+  const report = analyseSpectrum(file, opts, io);
   return opts.json ? jsonText(reportJson(report)) : reportText(report, opts);
 }
 
-function analyse(file: string, opts: SpectrumOptions, io: Io): SpectrumReport {
+/**
+ * Reads a spectrum file, finds its bands, fits them (with --ion or --d) or predicts transitions
+ * (with --dq/--B), and writes the figure if `opts.output` names one.
+ */
+export function analyseSpectrum(file: string, opts: SpectrumOptions, io: Io): SpectrumReport {
   const xUnit = opts.xUnit === undefined ? undefined : parseXUnit(opts.xUnit);
   const yUnit = opts.yUnit === undefined ? undefined : parseYUnit(opts.yUnit);
   const conc = numberOption('--conc', opts.conc, { positive: true, what: 'a positive number of mol/L' });
@@ -218,21 +224,7 @@ function analyse(file: string, opts: SpectrumOptions, io: Io): SpectrumReport {
         .filter((l) => l !== levels.ground)
         .map((l) => ({ label: l.label, energy: l.energy, spinAllowed: l.spinAllowed }))
     : [];
-  if (outPath !== undefined && format !== undefined) {
-    const bytes = renderSpectrumFigure(
-      {
-        measured: { x: spectrum.wavenumber, y: spectrum.value },
-        quantity: analysis.quantity,
-        window: analysis.window,
-        bands: analysis.bands,
-        baseline: analysis.baseline,
-        transitions,
-      },
-      { format, title: `termsplit spectrum ${file}` },
-    );
-    writeFileAtomic(outPath, bytes);
-  }
-  return {
+  const report: SpectrumReport = {
     file,
     raw,
     spectrum,
@@ -241,13 +233,32 @@ function analyse(file: string, opts: SpectrumOptions, io: Io): SpectrumReport {
     observations,
     ...(predicted ? { predicted } : {}),
     ...(fit ? { fit } : {}),
+    transitions,
     cautions,
     ...(opts.output !== undefined ? { figure: opts.output } : {}),
   };
+  if (outPath !== undefined && format !== undefined) writeFileAtomic(outPath, spectrumFigure(report, format));
+  return report;
+}
+
+/** The overlay figure of an analysed spectrum: data, bands, their sum, marked transitions. */
+export function spectrumFigure(report: SpectrumReport, format: FigureFormat): Buffer {
+  const { spectrum, analysis } = report;
+  return renderSpectrumFigure(
+    {
+      measured: { x: spectrum.wavenumber, y: spectrum.value },
+      quantity: analysis.quantity,
+      window: analysis.window,
+      bands: analysis.bands,
+      baseline: analysis.baseline,
+      transitions: report.transitions,
+    },
+    { format, title: `termsplit spectrum ${report.file}` },
+  );
 }
 
 /** The band fit of a spectrum, or why there is none. */
-type SpectrumFit =
+export type SpectrumFit =
   | {
       readonly result: FitResult;
       readonly ion?: string;

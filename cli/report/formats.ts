@@ -1,0 +1,126 @@
+import type { Block, TableBlock } from './document.js';
+
+/**
+ * The report's blocks written as Markdown (figures linked as files), as one self-contained HTML
+ * page (figures embedded as SVG, styles inline, no scripts, opens in any browser with no
+ * server), and each table as CSV.
+ */
+
+function mdEscape(text: string): string {
+  return text.replace(/\|/g, '\\|').replace(/\n/g, ' ');
+}
+
+/** Markdown of the blocks. */
+export function toMarkdown(blocks: readonly Block[]): string {
+  const out: string[] = [];
+  for (const b of blocks) {
+    switch (b.kind) {
+      case 'heading':
+        out.push(`${'#'.repeat(b.level)} ${b.text}`);
+        break;
+      case 'paragraph':
+        out.push(b.text);
+        break;
+      case 'note':
+        out.push(`> **${b.text}**`);
+        break;
+      case 'list':
+        out.push(b.items.map((i) => `- ${i}`).join('\n'));
+        break;
+      case 'table':
+        out.push(
+          [
+            `| ${b.headers.map(mdEscape).join(' | ')} |`,
+            `| ${b.headers.map(() => '---').join(' | ')} |`,
+            ...b.rows.map((r) => `| ${r.map(mdEscape).join(' | ')} |`),
+          ].join('\n'),
+        );
+        break;
+      case 'figure':
+        out.push(`![${mdEscape(b.caption)}](${b.path})\n\n*${b.caption}*`);
+        break;
+    }
+  }
+  return `${out.join('\n\n')}\n`;
+}
+
+/** Escapes text for HTML content and attribute values. */
+export function htmlEscape(text: string): string {
+  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+}
+
+/** The SVG element of an SVG document, for inlining (the XML declaration dropped, a role and title added). */
+function inlineSvg(svg: string, caption: string): string {
+  const start = svg.indexOf('<svg');
+  const body = start >= 0 ? svg.slice(start) : svg;
+  return body.replace(/<svg\b/, `<svg role="img" aria-label="${htmlEscape(caption)}"`);
+}
+
+const STYLE = `
+body { font-family: "DejaVu Sans", "Segoe UI", Helvetica, Arial, sans-serif; color: #222; margin: 2rem auto; max-width: 64rem; padding: 0 1rem; line-height: 1.45; }
+h1 { font-size: 1.7rem; } h2 { font-size: 1.35rem; border-bottom: 1px solid #ccd; padding-bottom: .2rem; margin-top: 2.2rem; } h3 { font-size: 1.12rem; margin-top: 1.8rem; }
+table { border-collapse: collapse; margin: .6rem 0 1rem; font-size: .92rem; }
+th, td { border-bottom: 1px solid #dde; padding: .25rem .6rem; text-align: left; vertical-align: top; }
+th { background: #f2f4f7; }
+td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+.note { background: #fff4e0; border-left: 4px solid #d08a1e; padding: .6rem .9rem; }
+figure { margin: 1rem 0 1.6rem; } figure svg { width: 100%; height: auto; border: 1px solid #eee; }
+figcaption { font-size: .9rem; color: #555; margin-top: .3rem; }
+ul { padding-left: 1.3rem; } li { margin: .2rem 0; }
+`;
+
+const NUMERIC = /^[-+−]?[\d.,]+( ± [\d.,]+)?$|^—$/;
+
+/** One self-contained HTML page of the blocks. */
+export function toHtml(blocks: readonly Block[], title: string): string {
+  const body: string[] = [];
+  for (const b of blocks) {
+    switch (b.kind) {
+      case 'heading':
+        body.push(
+          `<h${b.level}${b.id ? ` id="${htmlEscape(b.id)}"` : ''}>${htmlEscape(b.text)}</h${b.level}>`,
+        );
+        break;
+      case 'paragraph':
+        body.push(`<p>${htmlEscape(b.text)}</p>`);
+        break;
+      case 'note':
+        body.push(`<p class="note"><strong>${htmlEscape(b.text)}</strong></p>`);
+        break;
+      case 'list':
+        body.push(`<ul>${b.items.map((i) => `<li>${htmlEscape(i)}</li>`).join('')}</ul>`);
+        break;
+      case 'table':
+        body.push(
+          `<table><thead><tr>${b.headers.map((h) => `<th>${htmlEscape(h)}</th>`).join('')}</tr></thead><tbody>` +
+            b.rows
+              .map(
+                (r) =>
+                  `<tr>${r.map((c) => `<td${NUMERIC.test(c) ? ' class="num"' : ''}>${htmlEscape(c)}</td>`).join('')}</tr>`,
+              )
+              .join('') +
+            '</tbody></table>',
+        );
+        break;
+      case 'figure':
+        body.push(
+          `<figure>${inlineSvg(b.svg, b.caption)}<figcaption>${htmlEscape(b.caption)}</figcaption></figure>`,
+        );
+        break;
+    }
+  }
+  return (
+    '<!DOCTYPE html>\n<html lang="en">\n<head>\n<meta charset="utf-8">\n' +
+    `<meta name="viewport" content="width=device-width, initial-scale=1">\n<title>${htmlEscape(title)}</title>\n` +
+    `<style>${STYLE}</style>\n</head>\n<body>\n${body.join('\n')}\n</body>\n</html>\n`
+  );
+}
+
+function csvCell(text: string): string {
+  return /[",\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+}
+
+/** CSV text of a table (header row, then the rows; UTF-8). */
+export function toCsv(table: TableBlock): string {
+  return `${[table.headers, ...table.rows].map((r) => r.map(csvCell).join(',')).join('\n')}\n`;
+}
