@@ -1,7 +1,7 @@
 import { adaptedBlocks } from './cubicBasis.js';
 import { bilinear, clusterSorted, column, symmetricEigen } from './eigen.js';
 import { ensure } from './errors.js';
-import { type FreeIonTerm, freeIonTerms } from './freeIon.js';
+import { freeIonTerms } from './freeIon.js';
 import { configurationText, type Geometry, irrepName, stateSymbol } from './labels.js';
 import { branchTerm, CUBIC_IRREPS, type CubicIrrep, decomposeCubic, IRREP_DIMENSION } from './symmetry.js';
 
@@ -102,14 +102,6 @@ interface RawLevel {
   weights: number[];
 }
 
-let parentMemo: { key: string; terms: FreeIonTerm[] } | undefined;
-
-function freeIonOrder(n: number, B: number, C: number): FreeIonTerm[] {
-  const key = `${n}:${B}:${C}`;
-  if (parentMemo?.key !== key) parentMemo = { key, terms: freeIonTerms(n, B, C) };
-  return parentMemo.terms;
-}
-
 /**
  * The levels for a signed, octahedral-convention Dq (a tetrahedral field is a negative one),
  * named for `geometry`: each symmetry-adapted block (k, S, C₂′ parity) is diagonalised, equal
@@ -192,6 +184,79 @@ export function cubicLevels(n: number, dqOct: number, B: number, C: number, geom
   return finish(n, dqOct, B, C, geometry, raw);
 }
 
+/** The label, symbol and parent of the i-th lowest level of one (S, irrep). */
+interface PlannedLabel {
+  readonly label: string;
+  readonly symbol: string;
+  readonly parent: string;
+}
+
+const planCache = new Map<string, Map<string, PlannedLabel[]>>();
+const PLAN_CACHE_SIZE = 64;
+
+/**
+ * Labels of every level of dⁿ, by (S, irrep) and rank in energy: the i-th lowest level of a
+ * symbol comes from the i-th lowest free-ion component of it (levels of one symbol never cross);
+ * a symbol that occurs more than once gets its parent term letter, and one that still repeats an
+ * ordinal. Only the order of the free-ion terms matters, and it depends on C/B alone, so the plan
+ * is computed once per (n, geometry, C/B); terms degenerate in the free ion are ordered by L then
+ * S, so that the plan does not depend on rounding.
+ */
+function labelPlan(n: number, B: number, C: number, geometry: Geometry): Map<string, PlannedLabel[]> {
+  const ratio = B > 0 ? C / B : Number.NaN;
+  const key = `${n}:${geometry}:${Number.isNaN(ratio) ? 'none' : ratio.toPrecision(12)}`;
+  const cached = planCache.get(key);
+  if (cached) return cached;
+  const terms = freeIonTerms(n, B > 0 ? 1000 : 0, B > 0 ? 1000 * ratio : 0)
+    .map((t) => ({ t, e: Math.round(t.energy * 1e3) }))
+    .sort((a, b) => a.e - b.e || a.t.L - b.t.L || a.t.S - b.t.S)
+    .map((x) => x.t);
+  const entries: { key: string; symbol: string; parent: string }[] = [];
+  for (const term of terms) {
+    const branches = branchTerm(term.L);
+    for (const irrep of CUBIC_IRREPS) {
+      for (let c = 0; c < branches[irrep]; c++) {
+        entries.push({
+          key: `${term.S}:${irrep}`,
+          symbol: stateSymbol(term.S, irrep, geometry),
+          parent: term.name,
+        });
+      }
+    }
+  }
+  const symbolCount = countBy(entries.map((e) => e.symbol));
+  const withParent = entries.map((e) =>
+    (symbolCount.get(e.symbol) ?? 0) > 1 ? `${e.symbol}(${e.parent.replace(/\d+/, '')})` : e.symbol,
+  );
+  const labelCount = countBy(withParent);
+  const ordinal = new Map<string, number>();
+  const plan = new Map<string, PlannedLabel[]>();
+  entries.forEach((e, i) => {
+    let label = withParent[i] ?? e.symbol;
+    if ((labelCount.get(label) ?? 0) > 1) {
+      const k = (ordinal.get(label) ?? 0) + 1;
+      ordinal.set(label, k);
+      label = `${label.slice(0, -1)},${k})`;
+    }
+    plan.set(e.key, [...(plan.get(e.key) ?? []), { label, symbol: e.symbol, parent: e.parent }]);
+  });
+  if (planCache.size >= PLAN_CACHE_SIZE) planCache.clear();
+  planCache.set(key, plan);
+  return plan;
+}
+
+const configurationTexts = new Map<string, string>();
+
+function configurationTextOf(t2: number, e: number, geometry: Geometry): string {
+  const key = `${t2}:${e}:${geometry}`;
+  let text = configurationTexts.get(key);
+  if (text === undefined) {
+    text = configurationText(t2, e, geometry);
+    configurationTexts.set(key, text);
+  }
+  return text;
+}
+
 function finish(
   n: number,
   dqOct: number,
@@ -203,52 +268,32 @@ function finish(
   raw.sort((a, b) => a.energy - b.energy);
   const groundRaw = raw[0];
   if (!groundRaw) throw new Error(`no levels for d${n}`);
-  const terms = freeIonOrder(n, B, C);
-  // Parents: the i-th lowest level of a symbol ↔ the i-th lowest free-ion component of it.
-  const parentsOf = new Map<string, string[]>();
-  for (const term of terms) {
-    const branches = branchTerm(term.L);
-    for (const irrep of CUBIC_IRREPS) {
-      const key = `${term.S}:${irrep}`;
-      const list = parentsOf.get(key) ?? [];
-      for (let c = 0; c < branches[irrep]; c++) list.push(term.name);
-      parentsOf.set(key, list);
-    }
-  }
-  const used = new Map<string, number>();
-  const partial = raw.map((r) => {
-    const key = `${r.S}:${r.irrep}`;
-    const i = used.get(key) ?? 0;
-    used.set(key, i + 1);
-    const parent = parentsOf.get(key)?.[i] ?? '?';
-    return { ...r, parent, symbol: stateSymbol(r.S, r.irrep, geometry) };
-  });
-  const symbolCount = countBy(partial.map((p) => p.symbol));
-  const withParent = partial.map((p) =>
-    (symbolCount.get(p.symbol) ?? 0) > 1 ? `${p.symbol}(${p.parent.replace(/\d+/, '')})` : p.symbol,
-  );
-  const labelCount = countBy(withParent);
-  const ordinal = new Map<string, number>();
-  const levels: CubicLevel[] = partial.map((p, i) => {
-    let label = withParent[i] ?? p.symbol;
-    if ((labelCount.get(label) ?? 0) > 1) {
-      const k = (ordinal.get(label) ?? 0) + 1;
-      ordinal.set(label, k);
-      label = `${label.slice(0, -1)},${k})`;
-    }
-    const configurations = p.weights
-      .map((weight, e) => ({ t2: n - e, e, text: configurationText(n - e, e, geometry), weight }))
-      .filter((c) => c.t2 >= 0 && c.t2 <= 6 && c.weight > 1e-12)
-      .sort((a, b) => b.weight - a.weight);
+  const plan = labelPlan(n, B, C, geometry);
+  const rank = new Map<string, number>();
+  const levels: CubicLevel[] = raw.map((p) => {
+    const key = `${p.S}:${p.irrep}`;
+    const i = rank.get(key) ?? 0;
+    rank.set(key, i + 1);
+    const planned = plan.get(key)?.[i];
+    if (!planned)
+      throw new Error(`cubic labelling: no free-ion parent for level ${i + 1} of ${key} in d${n}`);
+    const configurations: ConfigurationWeight[] = [];
+    p.weights.forEach((weight, e) => {
+      const t2 = n - e;
+      if (t2 >= 0 && t2 <= 6 && weight > 1e-12) {
+        configurations.push({ t2, e, text: configurationTextOf(t2, e, geometry), weight });
+      }
+    });
+    configurations.sort((a, b) => b.weight - a.weight);
     return {
-      label,
-      symbol: p.symbol,
+      label: planned.label,
+      symbol: planned.symbol,
       S: p.S,
       irrep: irrepName(p.irrep, geometry),
       cubicIrrep: p.irrep,
       energy: p.energy - groundRaw.energy,
       degeneracy: Math.round((2 * p.S + 1) * IRREP_DIMENSION[p.irrep]),
-      parent: p.parent,
+      parent: planned.parent,
       configurations,
       configuration: configurations[0]?.text ?? '',
       spinAllowed: p.S === groundRaw.S,

@@ -48,6 +48,8 @@ export function rotationCharacter(L: number, angle: number): number {
  * reduction formula n(Γ) = (1/24) Σ_classes N_c χ_Γ(c) χ_L(θ_c) (Bethe, Ann. Phys. 3, 133, 1929).
  */
 export function branchTerm(L: number): Record<CubicIrrep, number> {
+  const cached = branchCache.get(L);
+  if (cached) return { ...cached };
   const out = { A1: 0, A2: 0, E: 0, T1: 0, T2: 0 };
   for (const irrep of CUBIC_IRREPS) {
     let sum = 0;
@@ -56,8 +58,11 @@ export function branchTerm(L: number): Record<CubicIrrep, number> {
     });
     out[irrep] = Math.round(sum / 24);
   }
-  return out;
+  branchCache.set(L, out);
+  return { ...out };
 }
+
+const branchCache = new Map<number, Record<CubicIrrep, number>>();
 
 /**
  * Decomposes a degenerate eigenspace of fixed S into irreps of O.
