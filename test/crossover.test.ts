@@ -5,6 +5,7 @@ import {
   InputError,
   sampleVerdict,
   solveCubic,
+  sweepDiagram,
   TETRAHEDRAL_DELTA_CEILING,
 } from '../src/index.js';
 
@@ -181,5 +182,23 @@ describe('sampleVerdict', () => {
     expect(() => sampleVerdict(analysis, { dq: -1 })).toThrow(InputError);
     expect(() => sampleVerdict(analysis, { dq: 1000, sigmaB: -3 })).toThrow(/σ\(B\)/);
     expect(() => sampleVerdict(analysis, { dq: 1000, sigmaDq: 3, correlation: 1.5 })).toThrow(/correlation/);
+  });
+});
+
+describe('crossoverAnalysis and the correlation diagram', () => {
+  it('the crossover is where every curve of the d⁴–d⁷ diagrams jumps (the sweep inserts the same root)', () => {
+    for (const n of [4, 5, 6, 7]) {
+      const cb = 4.8;
+      const diagram = sweepDiagram(n, { cOverB: cb });
+      const analysis = crossoverAnalysis({ n, B: 800, C: cb * 800 });
+      expect(diagram.crossings).toHaveLength(1);
+      expect(
+        Math.abs((diagram.crossings[0]?.deltaOverB ?? 0) - (analysis.crossings[0]?.deltaOverB ?? 0)),
+      ).toBeLessThan(1e-6);
+      // The grid holds that Δ/B itself, so every curve has its kink drawn at the root.
+      const x = diagram.crossings[0]?.deltaOverB ?? 0;
+      const i = diagram.deltaOverB.findIndex((v) => Math.abs(v - x) < 1e-12);
+      expect(i).toBeGreaterThan(0);
+    }
   });
 });
