@@ -23,6 +23,7 @@ export const ASSIGNMENT_DEFAULTS = {
   includeSpinForbidden: false,
   extraCandidates: 2,
   extraCandidatesWithForbidden: 8,
+  maxSpinChange: 1,
   startsPerAssignment: 2,
 } as const;
 
@@ -38,6 +39,18 @@ export interface AssignmentSearchOptions {
    * @default 2 with spin-allowed transitions only, 8 with spin-forbidden ones too
    */
   readonly extraCandidates?: number;
+  /**
+   * Largest |ΔS| of a spin-forbidden transition offered to the search. Transitions with
+   * |ΔS| = 2 (e.g. sextet → doublet) are weaker again by orders of magnitude than those with
+   * |ΔS| = 1 and are practically never seen (common practice, no source); they can still be
+   * assigned by name. @default 1
+   */
+  readonly maxSpinChange?: number;
+  /**
+   * Hold the scale along each ray (B; Dq for d¹/d⁹) at this value instead of fitting it in closed
+   * form: the search for a fit with B held. @default undefined (fitted)
+   */
+  readonly fixedScale?: number;
   /** Local minima along the scan kept as starting values per assignment. @default 2 */
   readonly startsPerAssignment?: number;
 }
@@ -139,6 +152,7 @@ export function searchAssignments(
   options: AssignmentSearchOptions = {},
 ): AssignmentSearch {
   const includeSpinForbidden = options.includeSpinForbidden ?? ASSIGNMENT_DEFAULTS.includeSpinForbidden;
+  const maxSpinChange = options.maxSpinChange ?? ASSIGNMENT_DEFAULTS.maxSpinChange;
   const extra =
     options.extraCandidates ??
     (includeSpinForbidden
@@ -174,7 +188,9 @@ export function searchAssignments(
     if (!groundsSeen.has(ground.label)) groundsSeen.set(ground.label, false);
     const byKey = new Map(point.excited.map((l) => [l.key, l]));
     const pool = point.excited.filter(
-      (l) => !fixedKeys.has(l.key) && (includeSpinForbidden || l.spinAllowed),
+      (l) =>
+        !fixedKeys.has(l.key) &&
+        (l.spinAllowed || (includeSpinForbidden && Math.abs(l.S - ground.S) <= maxSpinChange + 1e-9)),
     );
     const offered = Math.min(pool.length, free.length + extra);
     if (offered < free.length) return;
@@ -196,7 +212,7 @@ export function searchAssignments(
         num += b.weight * b.energy * e;
         den += b.weight * e * e;
       }
-      const scale = den > 0 ? num / den : 0;
+      const scale = options.fixedScale ?? (den > 0 ? num / den : 0);
       if (!(scale > 0)) return;
       let chiSquare = 0;
       for (let i = 0; i < bands.length; i++) {

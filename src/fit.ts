@@ -9,9 +9,9 @@ import { type FieldParameters, levelKeys, solveAt, type Transitions, transitions
 import type { CubicResult } from './cubic.js';
 import { ensure, InputError } from './errors.js';
 import { type ErrorBasis, type FitErrors, type ParameterName, standardErrors } from './fitErrors.js';
-import { type FitWarning, solutionWarnings } from './fitWarnings.js';
+import { FIT_WARNING_LIMITS, type FitWarning, solutionWarnings } from './fitWarnings.js';
 import { DEFAULT_C_OVER_B } from './ions.js';
-import type { Geometry } from './labels.js';
+import { type Geometry, parseStateLabel } from './labels.js';
 import {
   type LeastSquaresOptions,
   levenbergMarquardt,
@@ -87,6 +87,18 @@ export interface FitInput {
   /** Let the search assign bands to spin-forbidden transitions too. @default false */
   readonly includeSpinForbidden?: boolean;
   /**
+   * Hold Racah B at this value (cm⁻¹; C at C/B times it) and fit Dq alone: for spectra with one
+   * band, such as high-spin d⁴ and d⁶ (one spin-allowed band, at exactly 10Dq). β is then not a
+   * result but follows from the value given. @default undefined (B fitted)
+   */
+  readonly fixedB?: number;
+  /**
+   * The ground state's spin when it is known (from magnetic measurement, say): `high` keeps only
+   * assignments from the ground states of the largest S met on the scan, `low` those of the
+   * smallest. @default undefined (both)
+   */
+  readonly spinState?: 'high' | 'low';
+  /**
    * Transitions offered beyond the number of searched bands (see {@link searchAssignments}).
    * @default 2, or 8 with spin-forbidden transitions ({@link ASSIGNMENT_DEFAULTS})
    */
@@ -156,6 +168,8 @@ export interface FitSolution {
   readonly beta: number | null;
   /** Whether C was a free parameter of this solution (false when held at C/B). */
   readonly cFitted: boolean;
+  /** Whether B was held at a given value (only Dq fitted). */
+  readonly bHeld: boolean;
   /** Names of the free parameters, in the order of `covariance`. */
   readonly parameters: readonly ('dq' | 'B' | 'C')[];
   readonly errors: FitErrors;
@@ -234,17 +248,25 @@ interface Context {
   fitC: boolean;
   scan: RatioScan;
   freeB: number | null;
+  /** B held fixed (only Dq is fitted), when given. */
+  fixedB?: number;
   start?: FitInput['start'];
   leastSquares?: LeastSquaresOptions;
 }
 
 function parameterSet(ctx: Context, fitC: boolean): ParameterName[] {
-  return singleTerm(ctx.n) ? ['dq'] : fitC ? ['dq', 'B', 'C'] : ['dq', 'B'];
+  return singleTerm(ctx.n) || ctx.fixedB !== undefined ? ['dq'] : fitC ? ['dq', 'B', 'C'] : ['dq', 'B'];
 }
 
-function fieldOf(names: readonly ParameterName[], p: readonly number[], cOverB: number): FieldParameters {
+function fieldOf(
+  names: readonly ParameterName[],
+  p: readonly number[],
+  cOverB: number,
+  fixedB?: number,
+): FieldParameters {
   const dq = p[0] ?? 0;
-  if (names.length === 1) return { dq, B: 0, C: 0 };
+  if (names.length === 1)
+    return fixedB === undefined ? { dq, B: 0, C: 0 } : { dq, B: fixedB, C: cOverB * fixedB };
   const B = p[1] ?? 0;
   return { dq, B, C: names.length === 3 ? (p[2] ?? 0) : cOverB * B };
 }
@@ -307,7 +329,7 @@ function refine(ctx: Context, candidate: AssignmentCandidate): Refined | undefin
     : candidate.start;
   const solve = cachedSolver(n, geometry);
   const modelFor = (names: readonly ParameterName[]) => (p: readonly number[]) =>
-    transitions(solve(fieldOf(names, p, ctx.cOverB)), candidate.groundKey, candidate.keys);
+    transitions(solve(fieldOf(names, p, ctx.cOverB, ctx.fixedB)), candidate.groundKey, candidate.keys);
   const vectorOf = (names: readonly ParameterName[], f: FieldParameters) =>
     names.map((name) => (name === 'dq' ? f.dq : name === 'B' ? f.B : f.C));
 
@@ -340,7 +362,7 @@ function refine(ctx: Context, candidate: AssignmentCandidate): Refined | undefin
   const p = fit.parameters;
   // A parameter driven to its bound (B → 0, say) marks no genuine minimum of this assignment.
   if (p.some((x) => x <= LOWER_BOUND * (1 + 1e-9))) return undefined;
-  const field = fieldOf(names, p, ctx.cOverB);
+  const field = fieldOf(names, p, ctx.cOverB, ctx.fixedB);
   const levels = solve(field);
   const keys = levelKeys(levels);
   // The assignment was made from one ground state; an optimum where another level lies lower
@@ -356,7 +378,8 @@ function refine(ctx: Context, candidate: AssignmentCandidate): Refined | undefin
   const rms = Math.sqrt(differences.reduce((s, d) => s + d * d, 0) / m);
   const weightedRms = Math.sqrt(chiSquare / m);
 
-  const single = names.length === 1;
+  // d¹ and d⁹ have no B at all; with B held, Δ/B and β follow from the value given.
+  const single = names.length === 1 && ctx.fixedB === undefined;
   const { dq, B, C } = field;
   const cFitted = names.length === 3;
   const deltaOverB = single ? null : (10 * dq) / B;
@@ -432,6 +455,7 @@ function refine(ctx: Context, candidate: AssignmentCandidate): Refined | undefin
       deltaOverB,
       beta,
       cFitted,
+      bHeld: ctx.fixedB !== undefined,
       parameters: names,
       errors,
       errorBasis,
@@ -559,11 +583,21 @@ export function fitBands(input: FitInput): FitResult {
     Number.isInteger(maxRefined) && maxRefined >= 1,
     `most refined ${maxRefined}: expected a whole number ≥ 1`,
   );
-  const names = single ? ['Dq'] : fitC ? ['Dq', 'B', 'C'] : ['Dq', 'B'];
+  const fixedB = input.fixedB;
+  ensure(
+    fixedB === undefined || (Number.isFinite(fixedB) && fixedB > 0),
+    `held B = ${fixedB}: expected a positive number of cm⁻¹`,
+  );
+  ensure(!(fixedB !== undefined && single), `holding B: d${n} has a single free-ion term and no B`);
+  ensure(!(fixedB !== undefined && fitC), 'holding B and fitting C: fit C only with B free');
+  const names = single || fixedB !== undefined ? ['Dq'] : fitC ? ['Dq', 'B', 'C'] : ['Dq', 'B'];
   ensure(
     bands.length >= names.length,
     `${bands.length} band${bands.length === 1 ? '' : 's'} for ${names.length} free parameters (${names.join(', ')}): ` +
-      `give at least ${names.length} bands${fitC ? ', or hold C/B fixed' : ''}`,
+      `give at least ${names.length} bands${fitC ? ', or hold C/B fixed' : ''}` +
+      (names.length === 2 && bands.length === 1
+        ? ` — with one band (high-spin d4 or d6 has just one spin-allowed band, at 10Dq), hold B at a value (fixedB, --B)`
+        : ''),
   );
   const assignments = input.assignments ?? [];
   ensure(
@@ -597,7 +631,7 @@ export function fitBands(input: FitInput): FitResult {
   // another C/B than the starting one still gets a start near its optimum.
   const ratios = fitC ? [...new Set([cOverB, ...FIT_DEFAULTS.cOverBScan])] : [cOverB];
   const progress = (done: number, total: number) => input.onProgress?.(done, total);
-  const search = mergeSearches(
+  let search = mergeSearches(
     ratios.map((ratio, i) => {
       progress(i, ratios.length + maxRefined);
       return searchAssignments(
@@ -606,11 +640,19 @@ export function fitBands(input: FitInput): FitResult {
         {
           fixed,
           includeSpinForbidden: input.includeSpinForbidden ?? FIT_DEFAULTS.includeSpinForbidden,
+          ...(fixedB !== undefined ? { fixedScale: fixedB } : {}),
           ...(input.extraCandidates !== undefined ? { extraCandidates: input.extraCandidates } : {}),
         },
       );
     }),
   );
+  const spinOf = (c: AssignmentCandidate) =>
+    (Number(parseStateLabel(c.groundLabel)?.multiplicity ?? 1) - 1) / 2;
+  if (input.spinState !== undefined && search.candidates.length > 0) {
+    const spins = search.candidates.map(spinOf);
+    const wanted = input.spinState === 'high' ? Math.max(...spins) : Math.min(...spins);
+    search = { ...search, candidates: search.candidates.filter((c) => spinOf(c) === wanted) };
+  }
   if (search.candidates.length === 0) {
     const m = bands.length;
     const most = Math.max(...scan.points.map((pt) => pt.excited.length));
@@ -628,10 +670,15 @@ export function fitBands(input: FitInput): FitResult {
 
   const m = bands.length;
   const scanRms = (c: AssignmentCandidate) => Math.sqrt(c.chiSquare / m);
-  const bestScan = scanRms(search.candidates[0] as AssignmentCandidate);
+  // The scan's best fit is judged per ground state: a high-spin assignment must not be cut
+  // because a low-spin one scans better (or the other way round).
+  const bestScan = new Map<string, number>();
+  for (const c of search.candidates) {
+    bestScan.set(c.groundKey, Math.min(bestScan.get(c.groundKey) ?? Number.POSITIVE_INFINITY, scanRms(c)));
+  }
   const seenAssignments = new Set<string>();
-  const toRefine = search.candidates
-    .filter((c) => scanRms(c) <= FIT_DEFAULTS.refineFactor * Math.max(bestScan, 1))
+  const eligible = search.candidates
+    .filter((c) => scanRms(c) <= FIT_DEFAULTS.refineFactor * Math.max(bestScan.get(c.groundKey) ?? 0, 1))
     .filter((c) => {
       if (!input.start) return true;
       // From a given start, each assignment needs fitting only once.
@@ -639,8 +686,24 @@ export function fitBands(input: FitInput): FitResult {
       if (seenAssignments.has(id)) return false;
       seenAssignments.add(id);
       return true;
-    })
-    .slice(0, maxRefined);
+    });
+  // The scan ranks candidates of different ground states on one scale, but its minima are only
+  // starting points: a high-spin assignment that scans worse than many low-spin ones may still
+  // refine best. So each ground state keeps its own best few, then the rest fill the quota.
+  const perGround = Math.max(1, Math.floor(maxRefined / 4));
+  const kept = new Set<AssignmentCandidate>();
+  const byGround = new Map<string, number>();
+  for (const c of eligible) {
+    const k = byGround.get(c.groundKey) ?? 0;
+    if (k < perGround) {
+      kept.add(c);
+      byGround.set(c.groundKey, k + 1);
+    }
+  }
+  for (const c of eligible) if (kept.size < Math.max(maxRefined, kept.size) && !kept.has(c)) kept.add(c);
+  const toRefine = eligible
+    .filter((c) => kept.has(c))
+    .slice(0, Math.max(maxRefined, byGround.size * perGround));
   const ctx: Context = {
     n,
     geometry,
@@ -651,6 +714,7 @@ export function fitBands(input: FitInput): FitResult {
     fitC,
     scan,
     freeB,
+    ...(fixedB !== undefined ? { fixedB } : {}),
     ...(input.start ? { start: input.start } : {}),
     ...(input.leastSquares ? { leastSquares: input.leastSquares } : {}),
   };
@@ -669,14 +733,29 @@ export function fitBands(input: FitInput): FitResult {
   }
   const floor = (r: Refined) => Math.max(r.solution.weightedRms, 1);
   const best = Math.min(...refined.map(floor));
+  // Fewer spin-forbidden assignments rank first only between solutions from the same ground spin:
+  // from a sextet ground state (high-spin d⁵) every band is spin-forbidden.
+  const sameSpin = (a: Refined, b: Refined) => a.solution.levels.ground.S === b.solution.levels.ground.S;
+  // A β outside (lowBeta, 1] is physically implausible for a complex: such solutions are listed
+  // after every plausible one, whatever their residuals.
+  const implausible = (r: Refined) => {
+    const beta = r.solution.beta;
+    return Number(beta !== null && (beta > 1 || beta < FIT_WARNING_LIMITS.lowBeta));
+  };
   const order = (a: Refined, b: Refined) =>
+    implausible(a) - implausible(b) ||
     floor(a) - floor(b) ||
-    Number((a.solution.beta ?? 0) > 1) - Number((b.solution.beta ?? 0) > 1) ||
-    a.spinForbidden - b.spinForbidden ||
+    (sameSpin(a, b) ? a.spinForbidden - b.spinForbidden : 0) ||
     a.skipped - b.skipped ||
     a.solution.weightedRms - b.solution.weightedRms;
   const accepted = refined.filter((r) => r.solution.weightedRms <= ambiguityFactor * best).sort(order);
-  const solutions = accepted.slice(0, maxSolutions).map((r, i) => ({ rank: i + 1, ...r.solution }));
+  // The best solution of every ground spin stays in the list even beyond maxSolutions: whether a
+  // d⁴–d⁷ sample is high- or low-spin is for the chemist to settle, not for a cut-off.
+  const shown = accepted.slice(0, maxSolutions);
+  for (const r of accepted) {
+    if (!shown.some((x) => x.solution.levels.ground.S === r.solution.levels.ground.S)) shown.push(r);
+  }
+  const solutions = shown.map((r, i) => ({ rank: i + 1, ...r.solution }));
 
   const warnings: FitWarning[] = [];
   if (solutions.length > 1) {
@@ -686,6 +765,15 @@ export function fitBands(input: FitInput): FitResult {
         `${solutions.length} assignments fit nearly as well (weighted rms within a factor of ${ambiguityFactor} of ` +
         'the best, or within the band uncertainties): the band positions alone do not decide; weigh intensities, ' +
         'band widths and β < 1',
+    });
+  }
+  if ([1, 4, 6, 9].includes(n) && m >= 2) {
+    warnings.push({
+      code: 'jahn-teller-pair',
+      message:
+        `high-spin d${n} has a single spin-allowed band (${n === 1 || n === 6 ? 'to an E state' : 'from an E ground state'}), ` +
+        'which a Jahn–Teller distortion often splits into two components: if two of these bands are such a pair, ' +
+        '10Dq is about their mean — fit that one value with B held (--B)',
     });
   }
   for (const label of search.groundsWithout) {
@@ -707,7 +795,7 @@ export function fitBands(input: FitInput): FitResult {
     bands,
     weighting: given ? 'given' : 'equal',
     solutions,
-    omitted: Math.max(0, accepted.length - maxSolutions),
+    omitted: accepted.length - shown.length,
     tried: search.tried,
     refined: toRefine.length,
     warnings,

@@ -16,6 +16,7 @@ export type FitWarningCode =
   | 'charge-transfer'
   | 'spin-state'
   | 'beta-above-one'
+  | 'beta-very-low'
   | 'range-edge'
   | 'unusual-c-over-b'
   | 'rms-high'
@@ -24,6 +25,7 @@ export type FitWarningCode =
   | 'c-held'
   | 'spin-forbidden-band'
   | 'ambiguous'
+  | 'jahn-teller-pair'
   | 'ground-without-assignment';
 
 /** One warning: a short code for programs and a sentence for people. */
@@ -40,6 +42,11 @@ export const FIT_WARNING_LIMITS = {
   reducedChiSquare: 3,
   /** C/B outside this range is unusual for 3d complexes (common practice, no source). */
   cOverB: [3, 6] as readonly [number, number],
+  /**
+   * β below this is implausible for a 3d complex: even the most covalent ligands (sulfides,
+   * cyanide) leave β near 0.4–0.5 (common practice, no source).
+   */
+  lowBeta: 0.4,
 } as const;
 
 /** What {@link solutionWarnings} looks at. */
@@ -162,6 +169,14 @@ export function solutionWarnings(ctx: WarningContext): FitWarning[] {
       message:
         `β = ${ctx.beta.toFixed(2)} > 1: B above the free-ion value is unphysical for a complex (the nephelauxetic ` +
         'effect lowers B); this assignment is unlikely',
+    });
+  }
+  if (ctx.beta !== null && ctx.beta < FIT_WARNING_LIMITS.lowBeta) {
+    out.push({
+      code: 'beta-very-low',
+      message:
+        `β = ${ctx.beta.toFixed(2)} < ${FIT_WARNING_LIMITS.lowBeta}: a B this far below the free-ion value is implausible ` +
+        'for a 3d complex (common practice, no source); this assignment is unlikely',
     });
   }
   const [lo, hi] = ctx.scanRange;

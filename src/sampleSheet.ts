@@ -42,6 +42,8 @@ export interface SampleSpec {
   readonly assign?: readonly string[];
   /** Let the assignment search use spin-forbidden transitions too. @default false */
   readonly spinForbidden: boolean;
+  /** The ground-state spin when it is known (from magnetism, say); the fit then keeps only that. */
+  readonly spinState?: 'high' | 'low';
   readonly notes?: string;
 }
 
@@ -96,6 +98,7 @@ const sampleSchema = z
     bands: bandsField.optional(),
     spectrum: spectrumSchema.optional(),
     assign: listField.optional(),
+    spinState: z.enum(['high', 'low']).optional(),
     notes: z.string().optional(),
     ...optionsShape,
   })
@@ -230,6 +233,7 @@ function checkSample(
       fitC: s.fitC ?? defaults.fitC ?? false,
       ...(assign ? { assign } : {}),
       spinForbidden: s.spinForbidden ?? defaults.spinForbidden ?? false,
+      ...(s.spinState ? { spinState: s.spinState } : {}),
       ...(s.notes ? { notes: s.notes } : {}),
     },
   };
@@ -254,6 +258,7 @@ const CSV_COLUMNS: Readonly<Record<string, string>> = {
   fit_c: 'fitC',
   assign: 'assign',
   spin_forbidden: 'spinForbidden',
+  spin_state: 'spinState',
   notes: 'notes',
 };
 

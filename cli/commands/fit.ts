@@ -17,7 +17,7 @@ import {
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import { type Io, progress } from '../io.js';
-import { geometryOption, ionOrCount, ratioChoice } from '../options.js';
+import { geometryOption, ionOrCount, numberOption, ratioChoice } from '../options.js';
 
 /** Options of `termsplit fit`. */
 export interface FitOptions {
@@ -30,6 +30,8 @@ export interface FitOptions {
   fitC?: boolean;
   assign?: string;
   spinForbidden?: boolean;
+  spinState?: string;
+  B?: string;
   diagram?: string;
   json?: boolean;
 }
@@ -60,6 +62,14 @@ export function registerFit(program: Command, io: Io): void {
       'level for each band in order, e.g. 3T2g,3T1g(F),3T1g(P); ? leaves one to the search',
     )
     .option('--spin-forbidden', 'let the search assign bands to spin-forbidden transitions too')
+    .option(
+      '--spin-state <high|low>',
+      'the ground-state spin when it is known (e.g. from magnetism): fit only that',
+    )
+    .option(
+      '--B <cm-1>',
+      'hold Racah B at this value and fit Dq alone (for one band, e.g. high-spin d4 or d6)',
+    )
     .option(
       '--diagram <file>',
       'draw the correlation diagram at the fitted C/B with the sample on it (.png, .svg, .pdf)',
@@ -92,6 +102,14 @@ export function splitLabels(text: string): string[] {
   return out;
 }
 
+/** Parses `--spin-state`. */
+export function spinStateOption(text: string): 'high' | 'low' {
+  const t = text.trim().toLowerCase();
+  if (t === 'high' || t === 'hs' || t === 'high-spin') return 'high';
+  if (t === 'low' || t === 'ls' || t === 'low-spin') return 'low';
+  throw new InputError(`--spin-state "${text}": expected high or low`);
+}
+
 /** The fit from the command's options, with the ion's name and the origin of C/B. */
 export function fitFromOptions(
   opts: FitOptions,
@@ -107,6 +125,7 @@ export function fitFromOptions(
     b.sigma === undefined ? { energy: b.value } : { energy: b.value, sigma: b.sigma },
   );
   const single = choice.n === 1 || choice.n === 9;
+  const heldB = numberOption('--B', opts.B, { positive: true, what: 'a positive number of cm⁻¹' });
   const ratio = ratioChoice(undefined, undefined, opts.cb, choice.ion);
   const assignments =
     opts.assign === undefined
@@ -120,6 +139,8 @@ export function fitFromOptions(
     cOverB: ratio.cOverB,
     fitC: Boolean(opts.fitC),
     includeSpinForbidden: Boolean(opts.spinForbidden),
+    ...(opts.spinState !== undefined ? { spinState: spinStateOption(opts.spinState) } : {}),
+    ...(heldB !== undefined ? { fixedB: heldB } : {}),
     ...(assignments ? { assignments } : {}),
     ...(onProgress ? { onProgress } : {}),
   });
@@ -157,7 +178,7 @@ export function fittedDiagram(
 
 /** Whether only Dq was fitted (d¹, d⁹). */
 function single(s: FitSolution): boolean {
-  return s.parameters.length === 1;
+  return s.parameters.length === 1 && !s.bHeld;
 }
 
 /** JSON form of one solution (the solver's full levels left out). */
@@ -170,6 +191,7 @@ export function solutionJson(s: FitSolution) {
     C: single(s) ? null : s.C,
     cOverB: s.cOverB,
     cFitted: s.cFitted,
+    bHeld: s.bHeld,
     deltaOverB: s.deltaOverB,
     beta: s.beta,
     rms: s.rms,
@@ -261,9 +283,11 @@ export function fitText(result: FitResult, ion: string | undefined, cOrigin: str
   );
   const cLine = single(best)
     ? 'only Dq enters (one d electron or hole)'
-    : result.fitC
-      ? `C fitted, starting from C/B ${fixed(result.cOverB, 2)} (${cOrigin})`
-      : `C/B held at ${fixed(result.cOverB, 2)} (${cOrigin})`;
+    : best.bHeld
+      ? `B held at ${fixed(best.B)} cm⁻¹ (given) and C/B at ${fixed(result.cOverB, 2)} (${cOrigin}); only Dq fitted`
+      : result.fitC
+        ? `C fitted, starting from C/B ${fixed(result.cOverB, 2)} (${cOrigin})`
+        : `C/B held at ${fixed(result.cOverB, 2)} (${cOrigin})`;
   lines.push(
     `${cLine}; bands weighted ${result.weighting === 'given' ? 'by their given uncertainties' : 'equally (no uncertainties given)'}`,
   );
@@ -278,7 +302,7 @@ export function fitText(result: FitResult, ion: string | undefined, cOrigin: str
     `  Dq   = ${withError(best.dq, e.dq, 1)} cm⁻¹   (10Dq = Δ = ${withError(best.tenDq, e.tenDq)} cm⁻¹)`,
   );
   if (!single(best)) {
-    lines.push(`  B    = ${withError(best.B, e.B)} cm⁻¹`);
+    lines.push(`  B    = ${withError(best.B, e.B)} cm⁻¹${best.bHeld ? '   (held)' : ''}`);
     lines.push(
       best.cFitted
         ? `  C    = ${withError(best.C, e.C)} cm⁻¹   (C/B = ${withError(best.cOverB ?? 0, e.cOverB, 2)})`

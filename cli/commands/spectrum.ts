@@ -42,7 +42,7 @@ import { readTextFile, writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 import { geometryOption, ionOrCount, numberOption, ratioChoice } from '../options.js';
-import { fitJson, fitText } from './fit.js';
+import { fitJson, fitText, spinStateOption } from './fit.js';
 import { levelJson, levelsFromOptions } from './levels.js';
 
 /** Options of `termsplit spectrum`. */
@@ -63,6 +63,7 @@ export interface SpectrumOptions {
   cb?: string;
   includeCt?: boolean;
   spinForbidden?: boolean;
+  spinState?: string;
   fitC?: boolean;
   maxBands?: string;
   minWidth?: string;
@@ -99,6 +100,7 @@ export function registerSpectrum(program: Command, io: Io): void {
       'fit narrow bands too, letting the fit assign them to spin-forbidden transitions',
     )
     .option('--fit-c', 'fit C as well as Dq and B (needs at least 3 bands, one depending on C)')
+    .option('--spin-state <high|low>', 'the ground-state spin when it is known: fit only that')
     .option('--max-bands <n>', 'most bands fitted inside the window', String(DEFAULT_MAX_BANDS))
     .option('--min-width <cm-1>', 'narrowest band (FWHM) looked for', String(DEFAULT_MIN_FWHM))
     .option('--baseline <kind>', 'baseline fitted with the bands: none, constant or linear', DEFAULT_BASELINE)
@@ -293,6 +295,7 @@ function spectrumFit(ligandField: readonly FoundBand[], opts: SpectrumOptions): 
       cOverB: ratio.cOverB,
       fitC: opts.fitC === true,
       includeSpinForbidden: opts.spinForbidden === true,
+      ...(opts.spinState !== undefined ? { spinState: spinStateOption(opts.spinState) } : {}),
     });
     return {
       result,

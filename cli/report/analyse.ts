@@ -122,6 +122,7 @@ function analyse(task: SampleTask): SampleResult {
       cOverB: ratio.cOverB,
       fitC: sample.fitC,
       includeSpinForbidden: sample.spinForbidden,
+      ...(sample.spinState ? { spinState: sample.spinState } : {}),
       ...(sample.assign ? { assignments: sample.assign } : {}),
     });
   } else if (sample.spectrum) {
@@ -141,6 +142,7 @@ function analyse(task: SampleTask): SampleResult {
         ...(spec.path !== undefined ? { path: String(spec.path) } : {}),
         ...(sample.cOverB !== undefined ? { cb: String(sample.cOverB) } : {}),
         spinForbidden: sample.spinForbidden,
+        ...(sample.spinState ? { spinState: sample.spinState } : {}),
         fitC: sample.fitC,
       },
       memoryIo(dirname(resolve(task.sheetDir, spec.file))),
