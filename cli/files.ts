@@ -42,6 +42,43 @@ export function checkOutputDirectory(path: string): void {
   }
 }
 
+/**
+ * Writes several files all or none: each to a temporary name beside its target first; only when
+ * every one is written are they renamed into place, so a failure leaves every existing file as
+ * it was.
+ * @throws InputError naming the path that failed and the reason.
+ */
+export function writeFilesAtomic(files: readonly { path: string; data: string | Uint8Array }[]): void {
+  const temps: { temp: string; path: string }[] = [];
+  try {
+    for (const f of files) {
+      const dir = dirname(f.path);
+      if (!existsSync(dir) || !statSync(dir).isDirectory()) {
+        throw new InputError(`cannot write ${f.path}: directory ${dir} does not exist`);
+      }
+      if (existsSync(f.path) && statSync(f.path).isDirectory()) {
+        throw new InputError(`cannot write ${f.path}: it is a directory`);
+      }
+      const temp = `${f.path}.${randomBytes(4).toString('hex')}.tmp`;
+      temps.push({ temp, path: f.path });
+      try {
+        writeFileSync(temp, f.data);
+      } catch (e) {
+        throw new InputError(`cannot write ${f.path}: ${reason(e)}`);
+      }
+    }
+    for (const t of temps) {
+      try {
+        renameSync(t.temp, t.path);
+      } catch (e) {
+        throw new InputError(`cannot write ${t.path}: ${reason(e)}`);
+      }
+    }
+  } finally {
+    for (const t of temps) rmSync(t.temp, { force: true });
+  }
+}
+
 /** Reads a text file. @throws InputError naming the path. */
 export function readTextFile(path: string): string {
   try {

@@ -25,7 +25,9 @@ export function numberOption(
   if (text.trim() === '' || !Number.isFinite(value)) throw fail(what);
   if (rule.integer && !Number.isInteger(value)) throw fail(`a whole number`);
   if (rule.positive && !(value > 0)) throw fail(`a positive ${what.replace(/^an? (positive )?/, '')}`);
-  if (rule.min !== undefined && value < rule.min) throw fail(`${what} ≥ ${rule.min}`);
+  // "non-negative" already says ≥ 0.
+  if (rule.min !== undefined && value < rule.min)
+    throw fail(rule.min === 0 && /non-negative/.test(what) ? what : `${what} ≥ ${rule.min}`);
   return value;
 }
 
@@ -79,7 +81,7 @@ export function ionOrCount(
 /** Racah C and where it came from. */
 export interface RatioChoice {
   readonly cOverB: number;
-  /** Human-readable origin, e.g. `"given"`, `"free-ion ratio of Cr3+"`, `"default 4.5 (no ion named)"`. */
+  /** Human-readable origin, e.g. `"given"`, `"free-ion ratio of Cr3+"`, `"default 4.5, no ion named"`. */
   readonly origin: string;
 }
 
@@ -106,7 +108,7 @@ export function ratioChoice(
   return {
     cOverB: DEFAULT_C_OVER_B,
     origin: ion
-      ? `default ${DEFAULT_C_OVER_B} (no free-ion C/B for ${ion.ion})`
-      : `default ${DEFAULT_C_OVER_B} (no ion named)`,
+      ? `default ${DEFAULT_C_OVER_B}, no free-ion C/B for ${ion.ion}`
+      : `default ${DEFAULT_C_OVER_B}, no ion named`,
   };
 }

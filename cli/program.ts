@@ -24,8 +24,7 @@ export function buildProgram(io: Io): Command {
       'Ligand-field analysis of transition-metal ions: terms, cubic levels, diagrams, fits, spin state.',
     )
     .version(VERSION)
-    .showHelpAfterError('(run with --help for usage)')
-    .configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) })
+    .configureOutput(output(io))
     .exitOverride();
   for (const register of [
     registerTerms,
@@ -39,9 +38,26 @@ export function buildProgram(io: Io): Command {
     registerDemo,
   ])
     register(program, io);
-  for (const c of program.commands)
-    c.exitOverride().configureOutput({ writeOut: (t) => io.out(t), writeErr: (t) => io.err(t) });
+  for (const c of program.commands) c.exitOverride().configureOutput(output(io));
   return program;
+}
+
+/**
+ * Where commander writes: help on stdout; its own errors (unknown option, missing value) as one
+ * line `termsplit: …` on stderr, like every other input error, with a pointer to --help.
+ */
+function output(io: Io) {
+  return {
+    writeOut: (t: string) => io.out(t),
+    writeErr: (t: string) => io.err(t),
+    outputError: (t: string, write: (s: string) => void) =>
+      write(
+        `termsplit: ${t
+          .trim()
+          .replace(/^error: /, '')
+          .replace(/\n+/g, ' ')} (see --help)\n`,
+      ),
+  };
 }
 
 /**
@@ -50,6 +66,10 @@ export function buildProgram(io: Io): Command {
  */
 export async function run(argv: readonly string[], io: Io): Promise<number> {
   const program = buildProgram(io);
+  if (argv.length === 0) {
+    io.out(program.helpInformation());
+    return EXIT_OK;
+  }
   try {
     await program.parseAsync([...argv], { from: 'user' });
     return EXIT_OK;

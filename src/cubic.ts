@@ -92,7 +92,25 @@ export function solveCubic(input: CubicInput): CubicResult {
   ensure(Number.isFinite(dq) && dq >= 0, `Dq = ${dq}: expected a non-negative number of cm⁻¹`);
   ensure(Number.isFinite(B) && B >= 0, `Racah B = ${B}: expected a non-negative number of cm⁻¹`);
   ensure(Number.isFinite(C) && C >= 0, `Racah C = ${C}: expected a non-negative number of cm⁻¹`);
+  checkMagnitudes(dq, B, C);
   return cubicLevels(n, geometry === 'oct' ? dq : -dq, B, C, geometry);
+}
+
+/**
+ * Largest Dq, B or C accepted, cm⁻¹: far above any ion (Dq of 3d complexes stays below about
+ * 5000, B below 1300), yet small enough that the eigenvalues stay accurate.
+ */
+export const MAX_PARAMETER = 1e6;
+
+/** Refuses a Dq, B or C beyond {@link MAX_PARAMETER}. */
+export function checkMagnitudes(dq: number, B: number, C: number): void {
+  for (const [name, v] of [
+    ['Dq', dq],
+    ['Racah B', B],
+    ['Racah C', C],
+  ] as const) {
+    ensure(Math.abs(v) <= MAX_PARAMETER, `${name} = ${v}: expected at most ${MAX_PARAMETER} cm⁻¹`);
+  }
 }
 
 interface RawLevel {
@@ -109,6 +127,7 @@ interface RawLevel {
  * from how its components fall into the blocks.
  */
 export function cubicLevels(n: number, dqOct: number, B: number, C: number, geometry: Geometry): CubicResult {
+  checkMagnitudes(dqOct, B, C);
   const blocks = adaptedBlocks(n);
   const pool: { block: number; j: number; value: number }[] = [];
   const eigs = blocks.map((block, bi) => {

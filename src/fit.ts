@@ -6,11 +6,11 @@ import {
   searchAssignments,
 } from './assignment.js';
 import { type FieldParameters, levelKeys, solveAt, type Transitions, transitions } from './bandModel.js';
-import type { CubicResult } from './cubic.js';
+import { type CubicResult, MAX_PARAMETER } from './cubic.js';
 import { ensure, InputError } from './errors.js';
 import { type ErrorBasis, type FitErrors, type ParameterName, standardErrors } from './fitErrors.js';
 import { FIT_WARNING_LIMITS, type FitWarning, solutionWarnings } from './fitWarnings.js';
-import { DEFAULT_C_OVER_B } from './ions.js';
+import { DEFAULT_C_OVER_B, MAX_C_OVER_B } from './ions.js';
 import { type Geometry, parseStateLabel } from './labels.js';
 import {
   type LeastSquaresOptions,
@@ -354,6 +354,8 @@ function refine(ctx: Context, candidate: AssignmentCandidate): Refined | undefin
     {
       start: vectorOf(names, startField),
       lower: names.map(() => LOWER_BOUND),
+      // The solver accepts parameters up to MAX_PARAMETER; a trial step may not go beyond.
+      upper: names.map(() => MAX_PARAMETER),
       residuals: (p) => model(p).energies.map((x, i) => (x - (observed[i] ?? 0)) / (sigmas[i] ?? 1)),
       jacobian: (p) => weigh(energyJacobian(names, p, model(p), model)),
     },
@@ -566,7 +568,10 @@ export function fitBands(input: FitInput): FitResult {
       ? input.freeIon.C / input.freeIon.B
       : undefined;
   const cOverB = input.cOverB ?? freeRatio ?? DEFAULT_C_OVER_B;
-  ensure(Number.isFinite(cOverB) && cOverB > 0, `C/B = ${cOverB}: expected a positive number`);
+  ensure(
+    Number.isFinite(cOverB) && cOverB > 0 && cOverB <= MAX_C_OVER_B,
+    `C/B = ${cOverB}: expected a positive number up to ${MAX_C_OVER_B}`,
+  );
   const cOverBSource =
     input.cOverB !== undefined ? 'given' : freeRatio !== undefined ? 'free-ion' : 'default';
   const bandPrecision = input.bandPrecision ?? FIT_DEFAULTS.bandPrecision;

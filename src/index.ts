@@ -256,6 +256,7 @@ export {
   splitCsvLine,
 } from './sampleSheet.js';
 export { type IonOrder, type SeriesEntry, seriesOrders, seriesTable } from './series.js';
+export { type FoundBandFit, type FoundBandFitOptions, fitFoundBands } from './spectrumFit.js';
 export {
   type CorrelationDiagram,
   CSV_DIGITS,

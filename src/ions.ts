@@ -84,6 +84,9 @@ export function findIon(name: string): FreeIon {
  */
 export const DEFAULT_C_OVER_B = 4.5;
 
+/** Largest C/B accepted anywhere: 3d ions have 3–6; beyond 100 nothing is physical. */
+export const MAX_C_OVER_B = 100;
+
 /** C/B of an ion's free-ion parameters, or undefined where B and C are not defined. */
 export function freeIonRatio(ion: FreeIon): number | undefined {
   return ion.B !== undefined && ion.C !== undefined ? ion.C / ion.B : undefined;

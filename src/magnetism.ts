@@ -40,12 +40,19 @@ export interface MomentEstimate {
 /** α of μ_eff = μ_so(1 − αλ/10Dq) for orbital singlet and doublet ground terms (Figgis 1966, from memory). */
 const SECOND_ORDER_ALPHA: Partial<Record<CubicIrrep, number>> = { A2: 4, E: 2 };
 
-/** The spin-only moment of a cubic state, with a note on the orbital contribution of its term. */
-export function momentEstimate(state: {
-  readonly label: string;
-  readonly S: number;
-  readonly cubicIrrep: CubicIrrep;
-}): MomentEstimate {
+/**
+ * The spin-only moment of a cubic state of dⁿ, with a note on the orbital contribution of its
+ * term. The sign of the second-order shift follows λ = ±ζ/2S: positive below half filling
+ * (n < 5: moment below spin-only), negative above it (n > 5: above spin-only).
+ */
+export function momentEstimate(
+  state: {
+    readonly label: string;
+    readonly S: number;
+    readonly cubicIrrep: CubicIrrep;
+  },
+  n: number,
+): MomentEstimate {
   const spinOnly = spinOnlyMoment(state.S);
   const base = { state: state.label, S: state.S, spinOnly };
   if (state.S === 0) {
@@ -72,8 +79,10 @@ export function momentEstimate(state: {
       orbital: 'second-order',
       note:
         `orbital ${irrep === 'E' ? 'doublet (E)' : 'singlet (A₂)'}: no first-order orbital moment; spin–orbit mixing ` +
-        `with an excited T₂ term shifts it slightly, μ ≈ μ_so(1 − ${alpha}λ/10Dq) (Figgis 1966, from memory), ` +
-        'above spin-only for a more than half-filled shell (λ < 0)',
+        `with an excited T₂ term shifts it slightly, μ ≈ μ_so(1 − ${alpha}λ/10Dq) (Figgis 1966, from memory): ` +
+        (n < 5
+          ? `for d${n}, a less than half-filled shell, λ > 0 and the moment lies a little below spin-only`
+          : `for d${n}, a more than half-filled shell, λ < 0 and the moment lies a little above spin-only`),
     };
   }
   return {

@@ -65,7 +65,7 @@ function checkShell(l: number, n: number): void {
   const cap = 2 * (2 * l + 1);
   if (!Number.isInteger(n) || n < 0 || n > cap) {
     throw new InputError(
-      `electron count ${n} for a ${SHELL_LETTERS[l]} shell: expected a whole number from 0 to ${cap}`,
+      `electron count ${n} for ${l === 0 || l === 3 ? 'an' : 'a'} ${SHELL_LETTERS[l]} shell: expected a whole number from 0 to ${cap}`,
     );
   }
 }

@@ -166,6 +166,45 @@ export function parseSampleSheet(text: string, format: SheetFormat): SampleSheet
 
 type Defaults = z.infer<z.ZodObject<typeof optionsShape>>;
 
+/** What each field of a sample takes, for messages that say what was expected. */
+const EXPECTED: Readonly<Record<string, string>> = {
+  name: 'a non-empty name',
+  ion: 'an ion such as "Ni2+"',
+  geometry: '"oct" or "tet"',
+  bands: 'band maxima as text ("8500, 13800±200, 395nm") or a list of them',
+  spectrum:
+    'a file path, or an object with file and optionally xUnit, yUnit, xColumn, yColumn, range, conc, path',
+  'spectrum.file': 'a file path',
+  'spectrum.conc': 'a positive number (mol/L)',
+  'spectrum.path': 'a positive number (cm)',
+  cb: 'a positive number (C/B)',
+  fitC: 'true or false',
+  spinForbidden: 'true or false',
+  spinState: '"high" or "low"',
+  assign: 'level labels as text ("3T2g,3T1g(F)") or a list of them',
+  notes: 'text',
+};
+
+/** The field and a message naming what was expected and what was found, from a schema issue. */
+function problemOf(issue: z.core.$ZodIssue | undefined, item: unknown): { field: string; message: string } {
+  if (!issue) return { field: '(sample)', message: 'not a valid sample' };
+  if (issue.code === 'unrecognized_keys') {
+    return {
+      field: issue.keys.join(', '),
+      message: `unknown field; a sample takes ${Object.keys(EXPECTED)
+        .filter((k) => !k.includes('.'))
+        .join(', ')}`,
+    };
+  }
+  const field = issue.path.join('.') || '(sample)';
+  let value: unknown = item;
+  for (const key of issue.path)
+    value = value && typeof value === 'object' ? (value as Record<PropertyKey, unknown>)[key] : undefined;
+  const expected = EXPECTED[field] ?? EXPECTED[String(issue.path[0])];
+  const got = value === undefined ? 'missing' : `got ${JSON.stringify(value)}`;
+  return { field, message: expected ? `expected ${expected}, ${got}` : `${issue.message}, ${got}` };
+}
+
 function checkSample(
   item: unknown,
   defaults: Defaults,
@@ -174,13 +213,7 @@ function checkSample(
   const parsed = sampleSchema.safeParse(item);
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
-    return {
-      problem: {
-        sample: name,
-        field: issue?.path.join('.') || '(sample)',
-        message: issue?.message ?? 'invalid',
-      },
-    };
+    return { problem: { sample: name, ...problemOf(issue, item) } };
   }
   const s = parsed.data;
   const fail = (field: string, message: string) => ({ problem: { sample: s.name, field, message } });

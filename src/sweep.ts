@@ -2,7 +2,7 @@ import type { Caution } from './cautions.js';
 import { cubicLevels } from './cubic.js';
 import { ensure } from './errors.js';
 import { groundStateCrossings } from './groundState.js';
-import { DEFAULT_C_OVER_B } from './ions.js';
+import { DEFAULT_C_OVER_B, MAX_C_OVER_B } from './ions.js';
 import type { Geometry } from './labels.js';
 
 /**
@@ -25,6 +25,9 @@ export const DEFAULT_MAX_DELTA_OVER_B = 40;
 
 /** Number of evenly spaced Δ/B values of a sweep unless given. */
 export const DEFAULT_SWEEP_POINTS = 400;
+
+/** Largest Δ/B a sweep accepts: far beyond the strong-field limit of any diagram. */
+export const MAX_SWEEP_DELTA_OVER_B = 1000;
 
 /** Most points a sweep accepts (each is one full diagonalisation). */
 export const MAX_SWEEP_POINTS = 100_000;
@@ -124,10 +127,13 @@ export function sweepDiagram(n: number, options: SweepOptions = {}): Correlation
     `d-electron count ${n}: expected a whole number from 1 to 9`,
   );
   ensure(geometry === 'oct' || geometry === 'tet', `geometry "${geometry}": expected oct or tet`);
-  ensure(Number.isFinite(cOverB) && cOverB > 0, `C/B ${cOverB}: expected a positive number`);
   ensure(
-    Number.isFinite(maxDeltaOverB) && maxDeltaOverB > 0,
-    `largest Δ/B ${maxDeltaOverB}: expected a positive number`,
+    Number.isFinite(cOverB) && cOverB > 0 && cOverB <= MAX_C_OVER_B,
+    `C/B ${cOverB}: expected a positive number up to ${MAX_C_OVER_B}`,
+  );
+  ensure(
+    Number.isFinite(maxDeltaOverB) && maxDeltaOverB > 0 && maxDeltaOverB <= MAX_SWEEP_DELTA_OVER_B,
+    `largest Δ/B ${maxDeltaOverB}: expected a positive number up to ${MAX_SWEEP_DELTA_OVER_B}`,
   );
   ensure(
     Number.isInteger(points) && points >= 2 && points <= MAX_SWEEP_POINTS,

@@ -77,14 +77,16 @@ export function parseConfiguration(text: string): Configuration {
   const n = Number(countText);
   const cap = 2 * (2 * l + 1);
   if (n > cap) {
-    throw new InputError(`configuration "${text}": a ${letter} shell holds 0 to ${cap} electrons, got ${n}`);
+    throw new InputError(
+      `configuration "${text}": ${/^[fs]$/i.test(letter) ? 'an' : 'a'} ${letter} shell holds 0 to ${cap} electrons, got ${n}`,
+    );
   }
   let principal: number | undefined;
   if (principalText !== '') {
     principal = Number(principalText);
     if (principal < l + 1) {
       throw new InputError(
-        `configuration "${text}": a ${letter} shell needs principal quantum number ≥ ${l + 1}, got ${principal}`,
+        `configuration "${text}": ${/^[fs]$/i.test(letter) ? 'an' : 'a'} ${letter} shell needs principal quantum number ≥ ${l + 1}, got ${principal}`,
       );
     }
   }

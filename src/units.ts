@@ -106,10 +106,10 @@ function splitNumber(part: string, whole: string): { number: number; unit: strin
 
 /** Parses a comma-separated list of energies (see {@link parseEnergy}). */
 export function parseEnergyList(text: string, defaultUnit: EnergyUnit = 'cm-1'): ParsedEnergy[] {
-  const items = text
-    .split(/[,;]/)
-    .map((s) => s.trim())
-    .filter((s) => s !== '');
-  if (items.length === 0) throw new InputError(`energy list "${text}": expected one or more values`);
+  const items = text.split(/[,;]/).map((s) => s.trim());
+  if (items.every((s) => s === ''))
+    throw new InputError(`energy list "${text}": expected one or more values`);
+  const empty = items.findIndex((s) => s === '');
+  if (empty >= 0) throw new InputError(`energy list "${text}": item ${empty + 1} is empty`);
   return items.map((s) => parseEnergy(s, defaultUnit));
 }

@@ -79,6 +79,7 @@ it('the public API exports exactly the reviewed names (update this list on purpo
       "fitBands",
       "fitCorrelation",
       "fitCurve",
+      "fitFoundBands",
       "fitSpinVerdict",
       "freeIonRatio",
       "freeIonTerms",

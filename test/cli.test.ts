@@ -87,7 +87,7 @@ describe('termsplit levels', () => {
 
   it('levels --d 3 without --C or --cb says it used C/B = 4.5', async () => {
     const r = await runInProcess(['levels', '--d', '3', '--dq', '1740', '--B', '725']);
-    expect(r.stdout).toContain('default 4.5 (no ion named)');
+    expect(r.stdout).toContain('default 4.5, no ion named');
     expect(r.stdout).toContain('Predicted spin-allowed bands');
   });
 

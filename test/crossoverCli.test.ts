@@ -80,7 +80,7 @@ describe('termsplit crossover (in process)', () => {
   });
 
   it('writes the map to the file named by -o, and the map is a PNG', async () => {
-    const { code, out } = await cli('d6', '--ion', 'Co3+', '--dq', '2200', '-o', 'map.png');
+    const { code, out } = await cli('d6', '--ion', 'Co3+', '--B', '650', '--dq', '2200', '-o', 'map.png');
     expect(code).toBe(0);
     expect(out).toMatch(/Ground-state map written to map\.png/);
     const bytes = readFileSync(join(dir, 'map.png'));
@@ -123,9 +123,13 @@ describe('termsplit crossover (end to end)', () => {
   });
 
   it('prints one JSON object and exits 0', () => {
-    const r = spawnSync(process.execPath, [main, 'crossover', '--ion', 'Fe2+', '--dq', '1200', '--json'], {
-      encoding: 'utf8',
-    });
+    const r = spawnSync(
+      process.execPath,
+      [main, 'crossover', '--ion', 'Fe2+', '--B', '800', '--dq', '1200', '--json'],
+      {
+        encoding: 'utf8',
+      },
+    );
     expect(r.status).toBe(0);
     const json = JSON.parse(r.stdout);
     expect(json.n).toBe(6);
@@ -139,5 +143,20 @@ describe('termsplit crossover (end to end)', () => {
     expect(r.stdout).toBe('');
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
     expect(r.stderr).toMatch(/^termsplit: --B/);
+  });
+});
+
+describe('termsplit crossover refuses a sample without its own B', () => {
+  it('exits 2 for --dq without --B: the free-ion B would misplace the sample', async () => {
+    const { code, out, err } = await cli('--ion', 'Fe2+', '--dq', '1200');
+    expect(code).toBe(2);
+    expect(out).toBe('');
+    expect(err).toMatch(/--dq needs --B/);
+  });
+
+  it('states that d3 has no crossover without asking for B', async () => {
+    const { code, out } = await cli('d3');
+    expect(code).toBe(0);
+    expect(out).toMatch(/no choice of spin/);
   });
 });

@@ -73,3 +73,15 @@ describe('spectrum → fit', () => {
     expect(r.stdout).toMatch(/narrow bands 1, 2 left out as possibly spin-forbidden/);
   });
 });
+
+describe('outputs written all or none', () => {
+  it('diagram leaves an existing figure untouched when its data file cannot be written', async () => {
+    const { mkdirSync, writeFileSync } = await import('node:fs');
+    const here = join(dir, 'all-or-none');
+    mkdirSync(join(here, 'dd.csv'), { recursive: true });
+    writeFileSync(join(here, 'keep.png'), 'precious');
+    const r = await runInProcess(['diagram', 'd6', '-o', 'keep.png', '--data', 'dd.csv'], here);
+    expect(r.code).toBe(2);
+    expect(readFileSync(join(here, 'keep.png'), 'utf8')).toBe('precious');
+  });
+});

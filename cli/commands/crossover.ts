@@ -170,6 +170,14 @@ function fittedSample(input: Resolved, bandsText: string): FittedSample {
   };
 }
 
+/** B used where none is given and none is needed (dⁿ without a spin choice), cm⁻¹. */
+const NOMINAL_B = 1000;
+
+/** Whether the ground state of dⁿ can change spin as Δ grows: d⁴–d⁷ in Oh, d³–d⁶ in Td. */
+function hasSpinChoice(n: number, geometry: Geometry): boolean {
+  return geometry === 'oct' ? n >= 4 && n <= 7 : n >= 3 && n <= 6;
+}
+
 function resolveInput(configText: string | undefined, opts: CrossoverCommandOptions): Resolved {
   const { n, ion } = electronCount(configText, opts.ion);
   const geometry = geometryOption(opts.geometry);
@@ -186,6 +194,10 @@ function resolveInput(configText: string | undefined, opts: CrossoverCommandOpti
   } else if (single) {
     B = 0;
     bOrigin = 'not used (one d electron or hole)';
+  } else if (!hasSpinChoice(n, geometry)) {
+    // No crossover exists whatever B is; a nominal B only serves the one-electron picture.
+    B = NOMINAL_B;
+    bOrigin = `not needed: d${n} ${geometry === 'oct' ? 'octahedral' : 'tetrahedral'} has no choice of spin; ${NOMINAL_B} cm⁻¹ used for the levels`;
   } else {
     throw new InputError(
       `d${n}: give --B (Racah B of the complex, cm⁻¹)${ion ? '' : ' or --ion to use its free-ion B'}`,
@@ -266,7 +278,7 @@ function momentStates(analysis: CrossoverAnalysis, verdict: SampleVerdict | unde
     const level = label ? r.levels.find((l) => l.label === label) : r.ground;
     if (level && !labels.has(level.symbol)) {
       labels.add(level.symbol);
-      out.push(momentEstimate({ ...level, label: level.symbol }));
+      out.push(momentEstimate({ ...level, label: level.symbol }, n));
     }
   };
   for (const c of analysis.crossings) {
@@ -307,6 +319,11 @@ export function crossoverCommand(
   if (opts.bands !== undefined && (opts.dq !== undefined || opts.B !== undefined || opts.C !== undefined)) {
     throw new InputError(
       '--bands places the sample by a fit: leave out --dq, --B and --C (--cb sets the C/B it holds)',
+    );
+  }
+  if (opts.dq !== undefined && opts.B === undefined) {
+    throw new InputError(
+      '--dq needs --B of the same complex: the crossover Dq scales with B, so the free-ion B would misplace the sample; give --B, or --bands to fit both',
     );
   }
   const given = resolveInput(configText, opts);

@@ -1,4 +1,3 @@
-import { rmSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { renderDiagram } from '../../charts/diagram.js';
@@ -21,7 +20,7 @@ import {
   sweepDiagram,
   unicodeLabel,
 } from '../../src/index.js';
-import { writeFileAtomic } from '../files.js';
+import { writeFilesAtomic } from '../files.js';
 import { fixed, jsonText } from '../format.js';
 import { type Io, progress } from '../io.js';
 import { geometryOption, numberOption, ratioChoice } from '../options.js';
@@ -175,7 +174,7 @@ export function diagramCommand(configText: string | undefined, opts: DiagramOpti
       data: dataKind === 'csv' ? diagramCsv(diagram) : jsonText(diagramJson(diagram)),
     });
   }
-  writeAll(outputs);
+  writeFilesAtomic(outputs);
 
   const cautions = diagramCautions(diagram).map((c) => c.message);
   if (sample) {
@@ -205,20 +204,6 @@ export function diagramCommand(configText: string | undefined, opts: DiagramOpti
     });
   }
   return summaryText(diagram, { ion: ion?.ion, cOrigin, sample, figurePath, dataPath, cautions });
-}
-
-/** Writes every file whole, or none: a file already written is removed when a later one fails. */
-function writeAll(outputs: readonly { path: string; data: string | Uint8Array }[]): void {
-  const written: string[] = [];
-  try {
-    for (const o of outputs) {
-      writeFileAtomic(o.path, o.data);
-      written.push(o.path);
-    }
-  } catch (e) {
-    for (const path of written) rmSync(path, { force: true });
-    throw e;
-  }
 }
 
 function summaryText(

@@ -285,15 +285,18 @@ export function fitText(result: FitResult, ion: string | undefined, cOrigin: str
     ? 'only Dq enters (one d electron or hole)'
     : best.bHeld
       ? `B held at ${fixed(best.B)} cm⁻¹ (given) and C/B at ${fixed(result.cOverB, 2)} (${cOrigin}); only Dq fitted`
-      : result.fitC
+      : result.fitC && best.cFitted
         ? `C fitted, starting from C/B ${fixed(result.cOverB, 2)} (${cOrigin})`
-        : `C/B held at ${fixed(result.cOverB, 2)} (${cOrigin})`;
+        : result.fitC
+          ? `C asked to be fitted, but no assigned band depends on it: held at C/B ${fixed(result.cOverB, 2)} (${cOrigin})`
+          : `C/B held at ${fixed(result.cOverB, 2)} (${cOrigin})`;
   lines.push(
     `${cLine}; bands weighted ${result.weighting === 'given' ? 'by their given uncertainties' : 'equally (no uncertainties given)'}`,
   );
   lines.push(
-    `${result.tried} assignment${result.tried === 1 ? '' : 's'} tried on the Δ/B scan, ${result.refined} refined by least squares, ` +
-      `${result.solutions.length} solution${result.solutions.length === 1 ? '' : 's'} kept.`,
+    `${result.tried} assignment${result.tried === 1 ? '' : 's'} tried on the Δ/B scan, ${result.refined} starting point${result.refined === 1 ? '' : 's'} refined by least squares, ` +
+      `${result.solutions.length} solution${result.solutions.length === 1 ? '' : 's'} shown` +
+      `${result.omitted > 0 ? ` (and ${result.omitted} more that fit nearly as well)` : ''}.`,
   );
   lines.push('');
   lines.push(`Best solution${result.solutions.length > 1 ? ` (1 of ${result.solutions.length})` : ''}:`);
@@ -350,7 +353,7 @@ export function fitText(result: FitResult, ion: string | undefined, cOrigin: str
   } else {
     lines.push('Alternatives that fit nearly as well:');
     for (const s of alternatives) lines.push(`  ${solutionSummary(s)}`);
-    if (result.omitted > 0) lines.push(`  … and ${result.omitted} more (not shown)`);
+    if (result.omitted > 0) lines.push(`  … and ${result.omitted} more that fit nearly as well (not shown)`);
   }
   lines.push('');
   const shown = best.predicted.filter((p) => p.energy <= PREDICTION_LIMIT);

@@ -195,13 +195,13 @@ export function reportJson(model: ReportModel) {
 export function reportSummary(run: ReportRun): string {
   const { model, dir } = run;
   const lines = [
-    `${model.title}${model.invented ? ' (invented data)' : ''}: ${model.samples.length} sample${model.samples.length === 1 ? '' : 's'} reported` +
+    `${model.title}${model.invented && !/invented/i.test(model.title) ? ' (invented data)' : ''}: ${model.samples.length} sample${model.samples.length === 1 ? '' : 's'} reported` +
       (model.problems.length > 0
         ? `, ${new Set(model.problems.map((p) => p.sample)).size} with problems (see above)`
         : ''),
     '',
     table(
-      ['sample', 'ion', '10Dq / cm⁻¹', 'B / cm⁻¹', 'β', 'rms', 'spin state'],
+      ['sample', 'ion', '10Dq / cm⁻¹', 'B / cm⁻¹', 'β', 'rms / cm⁻¹', 'spin state'],
       model.series.map((e) => {
         const s = model.samples.find((x) => x.name === e.name) as SampleResult | undefined;
         return [

@@ -21,7 +21,7 @@ import {
   type FitResult,
   type FoundBand,
   findBands,
-  fitBands,
+  fitFoundBands,
   InputError,
   isJcamp,
   ligandFieldBands,
@@ -272,38 +272,23 @@ export type SpectrumFit =
   | { readonly failure: string };
 
 /**
- * Fits Dq and B (and C with --fit-c) to the ligand-field bands. Narrow bands are left out unless
- * --spin-forbidden (they are most often spin-forbidden, and an all-spin-allowed search would
- * misassign them); if only narrow bands are left, they are fitted. A fit that cannot be made
- * (too few bands for the parameters) is reported, not an error: the bands stand on their own.
+ * The fit of the ligand-field bands (see {@link fitFoundBands}). A fit that cannot be made (too
+ * few bands for the parameters) is reported, not an error: the bands stand on their own.
  */
 function spectrumFit(ligandField: readonly FoundBand[], opts: SpectrumOptions): SpectrumFit {
   const choice = ionOrCount(opts.ion, opts.d);
-  const geometry = geometryOption(opts.geometry);
-  const broad = opts.spinForbidden
-    ? [...ligandField]
-    : ligandField.filter((b) => !b.flags.includes('narrow'));
-  const use = broad.length > 0 ? broad : [...ligandField];
   const ratio = ratioChoice(undefined, undefined, opts.cb, choice.ion);
-  const observations = bandObservations(use, { includeChargeTransfer: true });
   try {
-    const result = fitBands({
+    const fit = fitFoundBands(ligandField, {
       n: choice.n,
-      geometry,
-      bands: observations.map((o) => ({ energy: o.energy, sigma: o.sigma })),
+      geometry: geometryOption(opts.geometry),
       ...(choice.ion ? { freeIon: choice.ion } : {}),
       cOverB: ratio.cOverB,
       fitC: opts.fitC === true,
       includeSpinForbidden: opts.spinForbidden === true,
       ...(opts.spinState !== undefined ? { spinState: spinStateOption(opts.spinState) } : {}),
     });
-    return {
-      result,
-      ...(choice.ion ? { ion: choice.ion.ion } : {}),
-      cOrigin: ratio.origin,
-      used: use.map((b) => b.number),
-      leftOut: ligandField.filter((b) => !use.includes(b)).map((b) => b.number),
-    };
+    return { ...fit, ...(choice.ion ? { ion: choice.ion.ion } : {}), cOrigin: ratio.origin };
   } catch (e) {
     if (e instanceof InputError) return { failure: e.message };
     throw e;

@@ -170,7 +170,7 @@ function sampleBlocks(s: SampleResult): Block[] {
   const out: Block[] = [{ kind: 'heading', level: 3, text: s.name, id: `sample-${s.slug}` }];
   const source =
     s.source === 'spectrum'
-      ? `band maxima found in the spectrum ${s.spectrumFile ?? ''}`
+      ? `band maxima found in the spectrum ${s.spectrumFile ?? ''} (a path relative to the sample sheet)`
       : 'band maxima from the sample sheet';
   out.push({
     kind: 'paragraph',

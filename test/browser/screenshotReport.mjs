@@ -1,7 +1,8 @@
 // Opens a report's HTML page in headless Chromium (Debian's `chromium` package) and saves a
 // full-page screenshot, to look at the page as a reader would. Not part of `npm test`:
-//   npm run build && node dist/cli/main.js demo -o /tmp/demo
-//   node test/browser/screenshotReport.mjs /tmp/demo/report.html /tmp/demo.png
+//   npm run test:browser
+// or, for any report folder,
+//   node test/browser/screenshotReport.mjs <report folder>/report.html screenshot.png
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
