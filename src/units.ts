@@ -109,7 +109,7 @@ export function parseEnergyList(text: string, defaultUnit: EnergyUnit = 'cm-1'):
   const items = text.split(/[,;]/).map((s) => s.trim());
   if (items.every((s) => s === ''))
     throw new InputError(`energy list "${text}": expected one or more values`);
-  const empty = items.findIndex((s) => s === '');
+  const empty = items.indexOf('');
   if (empty >= 0) throw new InputError(`energy list "${text}": item ${empty + 1} is empty`);
   return items.map((s) => parseEnergy(s, defaultUnit));
 }

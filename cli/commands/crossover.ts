@@ -410,6 +410,41 @@ function mapBytes(
   );
 }
 
+/** JSON form of the crossings of an analysis. */
+export function crossingsJson(analysis: CrossoverAnalysis) {
+  return analysis.crossings.map((c) => ({
+    dq: c.dq,
+    tenDq: c.tenDq,
+    deltaOverB: c.deltaOverB,
+    from: c.from,
+    to: c.to,
+    fromSymbol: c.fromSymbol,
+    toSymbol: c.toSymbol,
+    fromS: c.fromS,
+    toS: c.toS,
+  }));
+}
+
+/** JSON form of a sample's verdict (missing values as null). */
+export function verdictJson(verdict: SampleVerdict) {
+  return {
+    dq: verdict.dq,
+    tenDq: verdict.tenDq,
+    deltaOverB: verdict.deltaOverB,
+    ground: verdict.ground,
+    groundSymbol: verdict.groundSymbol,
+    S: verdict.S,
+    side: verdict.side,
+    margin: verdict.margin ?? null,
+    sigma: verdict.sigma ?? null,
+    sigmas: verdict.sigmas ?? null,
+    settled: verdict.settled ?? null,
+    near: verdict.near ?? null,
+    other: verdict.other ?? null,
+    gap: verdict.gap ?? null,
+  };
+}
+
 function reportJson(r: Report) {
   const { input, analysis, verdict, states } = r;
   return {
@@ -424,37 +459,10 @@ function reportJson(r: Report) {
     ...(r.fit ? { fit: { ...solutionJson(r.fit.solution), alternatives: r.fit.alternatives } } : {}),
     statement: analysis.statement,
     weakFieldS: analysis.weakFieldS,
-    crossings: analysis.crossings.map((c) => ({
-      dq: c.dq,
-      tenDq: c.tenDq,
-      deltaOverB: c.deltaOverB,
-      from: c.from,
-      to: c.to,
-      fromSymbol: c.fromSymbol,
-      toSymbol: c.toSymbol,
-      fromS: c.fromS,
-      toS: c.toS,
-    })),
+    crossings: crossingsJson(analysis),
     outOfReach: analysis.outOfReach ?? null,
     sample: verdict
-      ? {
-          dq: verdict.dq,
-          tenDq: verdict.tenDq,
-          deltaOverB: verdict.deltaOverB,
-          sigmaDq: r.sampleSigmaDq ?? null,
-          sigmaB: input.sigmaB ?? null,
-          ground: verdict.ground,
-          groundSymbol: verdict.groundSymbol,
-          S: verdict.S,
-          side: verdict.side,
-          margin: verdict.margin ?? null,
-          sigma: verdict.sigma ?? null,
-          sigmas: verdict.sigmas ?? null,
-          settled: verdict.settled ?? null,
-          near: verdict.near ?? null,
-          other: verdict.other ?? null,
-          gap: verdict.gap ?? null,
-        }
+      ? { ...verdictJson(verdict), sigmaDq: r.sampleSigmaDq ?? null, sigmaB: input.sigmaB ?? null }
       : null,
     oneElectron: {
       highSpin: states.highSpin,

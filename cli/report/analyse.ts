@@ -12,6 +12,7 @@ import {
   type SampleSpec,
   type SeriesEntry,
 } from '../../src/index.js';
+import { crossingsJson, verdictJson } from '../commands/crossover.js';
 import { fitJson, fittedDiagram, solutionJson } from '../commands/fit.js';
 import { analyseSpectrum, spectrumFigure } from '../commands/spectrum.js';
 import { memoryIo } from '../io.js';
@@ -31,18 +32,12 @@ export interface SampleTask {
   readonly slug: string;
 }
 
-/** The spin-state verdict of a sample, as reported. */
-export interface SpinReport {
+/** The spin-state verdict of a sample, as reported: the crossings, the sample's side and margin, cautions. */
+export type SpinReport = ReturnType<typeof verdictJson> & {
   readonly statement: string;
-  readonly crossings: readonly { dq: number; deltaOverB: number; from: string; to: string }[];
-  readonly side: string;
-  readonly ground: string;
-  readonly margin: { dq: number; tenDq: number; percent: number } | null;
-  readonly sigma: { dq: number; tenDq: number; percent: number } | null;
-  readonly settled: boolean | null;
-  readonly near: boolean | null;
+  readonly crossings: ReturnType<typeof crossingsJson>;
   readonly cautions: readonly string[];
-}
+};
 
 /** A sample that was analysed. */
 export interface SampleResult {
@@ -195,19 +190,9 @@ function spinReport(n: number, geometry: 'oct' | 'tet', best: FitSolution): Spin
   const { analysis, verdict } = fitSpinVerdict(n, geometry, best);
   if (analysis.crossings.length === 0) return undefined;
   return {
+    ...verdictJson(verdict),
     statement: analysis.statement,
-    crossings: analysis.crossings.map((c) => ({
-      dq: c.dq,
-      deltaOverB: c.deltaOverB,
-      from: c.from,
-      to: c.to,
-    })),
-    side: verdict.side,
-    ground: verdict.ground,
-    margin: verdict.margin ?? null,
-    sigma: verdict.sigma ?? null,
-    settled: verdict.settled ?? null,
-    near: verdict.near ?? null,
+    crossings: crossingsJson(analysis),
     cautions: crossoverCautions(analysis).map((c) => c.message),
   };
 }
