@@ -1,8 +1,10 @@
+import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { ensureBuilt, runBinary, runInProcess } from './cliRunner.js';
+import { VERSION } from '../cli/version.js';
+import { ensureBuilt, ROOT, runBinary, runInProcess } from './cliRunner.js';
 import { expectClose } from './helpers.js';
 
 describe('termsplit terms', () => {
@@ -137,6 +139,12 @@ describe('termsplit end to end (built binary)', () => {
   beforeAll(() => {
     ensureBuilt();
   }, 120_000);
+
+  it('npx termsplit runs the installed command (executable, with its shebang), as the README says', () => {
+    const r = spawnSync('npx', ['termsplit', '--version'], { cwd: ROOT, encoding: 'utf8' });
+    expect(r.status).toBe(0);
+    expect(r.stdout.trim()).toBe(VERSION);
+  });
 
   it('node dist/cli/main.js terms d3 --B 918 --C 3850 --json exits 0 with JSON', () => {
     const r = runBinary(['terms', 'd3', '--B', '918', '--C', '3850', '--json']);

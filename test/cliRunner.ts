@@ -34,7 +34,7 @@ export function ensureBuilt(): void {
   const sources = Math.max(...['src', 'cli', 'charts'].map((d) => newestSource(resolve(ROOT, d))));
   const stale = !existsSync(BIN) || statSync(BIN).mtimeMs < sources;
   if (stale) {
-    const r = spawnSync('npx', ['tsc', '-p', 'tsconfig.json'], { cwd: ROOT, encoding: 'utf8' });
+    const r = spawnSync('npm', ['run', 'build'], { cwd: ROOT, encoding: 'utf8' });
     if (r.status !== 0) throw new Error(`build failed: ${r.stdout}${r.stderr}`);
   }
 }
