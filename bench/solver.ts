@@ -1,8 +1,8 @@
-import { solveCubic } from '../src/cubic.js';
-import { adaptedBlocks } from '../src/cubicBasis.js';
-import { symmetricEigen } from '../src/eigen.js';
-import { determinantClasses, fullHamiltonian } from '../src/hamiltonian.js';
-import { termsOf } from '../src/terms.js';
+import { termsOf } from '../src/atom/terms.js';
+import { solveCubic } from '../src/field/cubic.js';
+import { adaptedBlocks } from '../src/field/cubicBasis.js';
+import { determinantClasses, fullHamiltonian } from '../src/field/hamiltonian.js';
+import { symmetricEigen } from '../src/numeric/eigen.js';
 import { timeIt } from './timing.js';
 
 /** Solver benchmark: blocked against full-matrix time per dⁿ, block sizes, and a 1000-point d⁵ sweep. */

@@ -1,5 +1,5 @@
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
-import { ensure } from '../src/errors.js';
+import { ensure } from '../src/core/errors.js';
 import { STYLE } from './style.js';
 import { chartContext, drawRuns } from './typeset.js';
 

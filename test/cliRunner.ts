@@ -10,6 +10,11 @@ export const ROOT = resolve(import.meta.dirname, '..');
 /** The built command line; built by `npm ci` (prepare) or `npm run build`. */
 export const BIN = resolve(ROOT, 'dist/cli/main.js');
 
+/** Splits a command line into words, honouring single and double quotes. */
+export function words(line: string): string[] {
+  return [...line.matchAll(/'([^']*)'|"([^"]*)"|(\S+)/g)].map((m) => m[1] ?? m[2] ?? m[3] ?? '');
+}
+
 /** Runs the program in process. */
 export async function runInProcess(
   argv: string[],

@@ -2,7 +2,7 @@ import { mkdtempSync, readFileSync, rmSync, symlinkSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { ROOT, runInProcess } from './cliRunner.js';
+import { ROOT, runInProcess, words } from './cliRunner.js';
 
 /** The `npx termsplit …` commands of the README's shell blocks (continuations joined, comments dropped). */
 function readmeCommands(): string[] {
@@ -12,11 +12,6 @@ function readmeCommands(): string[] {
     .flatMap((b) => b.replace(/\\\n\s*/g, ' ').split('\n'))
     .map((line) => line.replace(/\s+#.*$/, '').trim())
     .filter((line) => line.startsWith('npx termsplit ') && !/^npx termsplit demo\b/.test(line));
-}
-
-/** Splits a command line into words, honouring single and double quotes. */
-function words(line: string): string[] {
-  return [...line.matchAll(/'([^']*)'|"([^"]*)"|(\S+)/g)].map((m) => m[1] ?? m[2] ?? m[3] ?? '');
 }
 
 const dir = mkdtempSync(join(tmpdir(), 'termsplit-readme-'));
