@@ -1,13 +1,34 @@
+/**
+ * Option parsing and option builders shared by the commands: numbers, the ion or configuration,
+ * Racah parameters and where C/B comes from, geometry, spin state and level labels, each checked
+ * once into typed values; the help texts of shared options are built from the named defaults.
+ */
+
+import { DEFAULT_C_OVER_B, DEFAULT_GEOMETRY } from '../src/core/defaults.js';
+import { chooseRatio, type RatioChoice } from '../src/core/ratioChoice.js';
 import {
-  DEFAULT_C_OVER_B,
+  type CubicResult,
   type FreeIon,
   findIon,
-  freeIonRatio,
   type Geometry,
   InputError,
+  parseConfiguration,
+  solveCubic,
 } from '../src/index.js';
 
-/** Option parsing shared by the commands: numbers, ions, Racah parameters, geometry. */
+export type { RatioChoice };
+
+/** The `--geometry` option with its default, for `.option(...GEOMETRY_OPTION)`. */
+export const GEOMETRY_OPTION = [
+  '--geometry <oct|tet>',
+  'octahedral or tetrahedral',
+  DEFAULT_GEOMETRY,
+] as const;
+
+/** Help text of a `--cb` option: what the C/B is for, then where it comes from when not given. */
+export function cbHelp(lead: string): string {
+  return `${lead} (default: the free-ion ratio of the ion, else ${DEFAULT_C_OVER_B})`;
+}
 
 /**
  * Parses a number option. `min` is inclusive unless `positive`.
@@ -44,7 +65,7 @@ export function requiredNumber(
 
 /** Parses `--geometry`. */
 export function geometryOption(text: string | undefined): Geometry {
-  const g = (text ?? 'oct').trim().toLowerCase();
+  const g = (text ?? DEFAULT_GEOMETRY).trim().toLowerCase();
   if (g === 'oct' || g === 'oh' || g === 'octahedral') return 'oct';
   if (g === 'tet' || g === 'td' || g === 'tetrahedral') return 'tet';
   throw new InputError(`--geometry "${text}": expected oct or tet`);
@@ -78,15 +99,29 @@ export function ionOrCount(
   return ion ? { n, ion } : { n };
 }
 
-/** Racah C and where it came from. */
-export interface RatioChoice {
-  readonly cOverB: number;
-  /** Human-readable origin, e.g. `"given"`, `"free-ion ratio of Cr3+"`, `"default 4.5, no ion named"`. */
-  readonly origin: string;
+/**
+ * n and the ion from a configuration argument (`d6`, or a bare `6`) and/or `--ion`, checked
+ * against each other.
+ */
+export function configOrIon(configText: string | undefined, ionText: string | undefined): IonChoice {
+  const ion = ionText === undefined ? undefined : findIon(ionText);
+  if (configText === undefined) {
+    if (!ion) throw new InputError('give the configuration (e.g. d6) or the ion (--ion Co3+)');
+    return { n: ion.n, ion };
+  }
+  const config = parseConfiguration(/^\d$/.test(configText.trim()) ? `d${configText.trim()}` : configText);
+  if (config.l !== 2) {
+    throw new InputError(`configuration ${config.text}: expected a d configuration (expected d1 to d9)`);
+  }
+  if (config.n < 1 || config.n > 9) throw new InputError(`configuration ${config.text}: expected d1 to d9`);
+  if (ion && ion.n !== config.n) {
+    throw new InputError(`configuration ${config.text} disagrees with --ion ${ion.ion}, which is d${ion.n}`);
+  }
+  return ion ? { n: config.n, ion } : { n: config.n };
 }
 
 /**
- * C/B from `--C` (with B), `--cb`, the ion's free-ion ratio, or the default 4.5 — in that order;
+ * C/B from `--C` (with B), `--cb`, the ion's free-ion ratio, or the default — in that order;
  * `--C` and `--cb` together are refused.
  */
 export function ratioChoice(
@@ -102,13 +137,74 @@ export function ratioChoice(
     return { cOverB: C / B, origin: 'given' };
   }
   const cb = numberOption('--cb', cbText, { positive: true, what: 'a positive number' });
-  if (cb !== undefined) return { cOverB: cb, origin: 'given as C/B' };
-  const ratio = ion ? freeIonRatio(ion) : undefined;
-  if (ion && ratio !== undefined) return { cOverB: ratio, origin: `free-ion ratio of ${ion.ion}` };
+  return chooseRatio(cb === undefined ? undefined : { cOverB: cb, origin: 'given as C/B' }, ion);
+}
+
+/** Parses `--spin-state`. */
+export function spinStateOption(text: string): 'high' | 'low' {
+  const t = text.trim().toLowerCase();
+  if (t === 'high' || t === 'hs' || t === 'high-spin') return 'high';
+  if (t === 'low' || t === 'ls' || t === 'low-spin') return 'low';
+  throw new InputError(`--spin-state "${text}": expected high or low`);
+}
+
+/**
+ * Splits a comma-separated list of level labels, keeping commas inside parentheses
+ * (`3T1g(H,1)`).
+ */
+export function splitLabels(text: string): string[] {
+  const out: string[] = [];
+  let depth = 0;
+  let current = '';
+  for (const c of text) {
+    if (c === '(') depth++;
+    if (c === ')') depth = Math.max(0, depth - 1);
+    if (c === ',' && depth === 0) {
+      out.push(current.trim());
+      current = '';
+    } else {
+      current += c;
+    }
+  }
+  out.push(current.trim());
+  return out;
+}
+
+/** Where C comes from for one d electron or hole, where B and C play no part. */
+export const SINGLE_ELECTRON_ORIGIN = 'B and C play no part for one d electron or hole';
+
+/** The options that give levels of dⁿ: the ion or n, geometry, Dq, B and C or C/B. */
+export interface LevelOptions {
+  ion?: string;
+  d?: string;
+  dq?: string;
+  B?: string;
+  C?: string;
+  cb?: string;
+  geometry?: string;
+}
+
+/** Levels solved from options, with where C came from and the ion's name. */
+export interface SolvedLevels {
+  readonly result: CubicResult;
+  readonly cOrigin: string;
+  readonly ion?: string;
+}
+
+/** Checks the level options and solves the levels. */
+export function levelsFromOptions(opts: LevelOptions): SolvedLevels {
+  const choice = ionOrCount(opts.ion, opts.d);
+  const geometry = geometryOption(opts.geometry);
+  const dq = requiredNumber('--dq', opts.dq, { min: 0, what: 'a non-negative number of cm⁻¹' });
+  const single = choice.n === 1 || choice.n === 9;
+  const B = single
+    ? (numberOption('--B', opts.B, { min: 0, what: 'a non-negative number of cm⁻¹' }) ?? 0)
+    : requiredNumber('--B', opts.B, { positive: true, what: 'a positive number of cm⁻¹' });
+  const ratio = ratioChoice(B, opts.C, opts.cb, choice.ion);
+  const result = solveCubic({ n: choice.n, geometry, dq, B, C: B * ratio.cOverB });
   return {
-    cOverB: DEFAULT_C_OVER_B,
-    origin: ion
-      ? `default ${DEFAULT_C_OVER_B}, no free-ion C/B for ${ion.ion}`
-      : `default ${DEFAULT_C_OVER_B}, no ion named`,
+    result,
+    cOrigin: single ? SINGLE_ELECTRON_ORIGIN : ratio.origin,
+    ...(choice.ion ? { ion: choice.ion.ion } : {}),
   };
 }

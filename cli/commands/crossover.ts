@@ -1,19 +1,25 @@
+/**
+ * `termsplit crossover`: checks the configuration or ion, B, C and the sample (its Dq, or its
+ * bands to fit) into one resolved input, asks the library for the crossover analysis, the
+ * sample's verdict, the one-electron picture and spin-only moments, prints them as text or JSON
+ * and draws the ground-state map if asked.
+ */
+
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { renderGroundMap } from '../../charts/groundMap.js';
 import { type FigureFormat, formatOfPath } from '../../charts/render.js';
+import { fittedSample as placeByFit } from '../../src/analysis/fittedSample.js';
+import { hasSpinChoice } from '../../src/analysis/spinChoice.js';
+import { DEFAULT_C_OVER_B, NOMINAL_B } from '../../src/core/defaults.js';
 import {
   type Crossover,
   type CrossoverAnalysis,
   type CrossoverCaution,
   crossoverAnalysis,
   crossoverCautions,
-  DEFAULT_C_OVER_B,
   type FitSolution,
   type FreeIon,
-  findIon,
-  fitBands,
-  fitCorrelation,
   type Geometry,
   GROUND_MAP_DEFAULTS,
   groundStateMap,
@@ -28,7 +34,6 @@ import {
   oneElectronStates,
   pairingCoefficients,
   pairingEnergy,
-  parseConfiguration,
   parseEnergy,
   parseEnergyList,
   type SampleVerdict,
@@ -42,8 +47,9 @@ import {
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import { type Io, progress } from '../io.js';
-import { geometryOption, ratioChoice } from '../options.js';
-import { solutionJson } from './fit.js';
+import { cbHelp, configOrIon, GEOMETRY_OPTION, geometryOption, ratioChoice } from '../options.js';
+import { crossingsJson, verdictJson } from '../present/crossoverPresent.js';
+import { solutionJson } from '../present/fitPresent.js';
 
 /** Options of `termsplit crossover`. */
 export interface CrossoverCommandOptions {
@@ -69,8 +75,8 @@ export function registerCrossover(program: Command, io: Io): void {
     .option('--ion <name>', 'the metal ion, e.g. Co3+ (gives n, and B and C/B when not given)')
     .option('--B <cm-1>', 'Racah B of the complex, cm⁻¹, optionally ±σ (default: the free-ion B of --ion)')
     .option('--C <cm-1>', 'Racah C of the complex, cm⁻¹')
-    .option('--cb <ratio>', 'C/B instead of --C (default: the free-ion ratio of the ion, else 4.5)')
-    .option('--geometry <oct|tet>', 'octahedral or tetrahedral', 'oct')
+    .option('--cb <ratio>', cbHelp('C/B instead of --C'))
+    .option(...GEOMETRY_OPTION)
     .option('--dq <cm-1>', "the sample's Dq, optionally ±σ (e.g. 2300±60), for its side of the crossover")
     .option(
       '--bands <list>',
@@ -92,26 +98,6 @@ function energyOption(name: string, text: string | undefined): { value: number; 
     if (e instanceof InputError) throw new InputError(`${name}: ${e.message}`);
     throw e;
   }
-}
-
-/** n and the ion from the positional configuration and/or --ion, checked against each other. */
-function electronCount(
-  configText: string | undefined,
-  ionText: string | undefined,
-): { n: number; ion?: FreeIon } {
-  const ion = ionText === undefined ? undefined : findIon(ionText);
-  if (configText === undefined) {
-    if (!ion) throw new InputError('give the configuration (e.g. d6) or the ion (--ion Co3+)');
-    return { n: ion.n, ion };
-  }
-  const config = parseConfiguration(configText);
-  if (config.l !== 2 || config.n < 1 || config.n > 9) {
-    throw new InputError(`configuration "${configText}": expected d1 to d9`);
-  }
-  if (ion && ion.n !== config.n) {
-    throw new InputError(`configuration ${config.text} disagrees with --ion ${ion.ion}, which is d${ion.n}`);
-  }
-  return ion ? { n: config.n, ion } : { n: config.n };
 }
 
 interface Resolved {
@@ -136,50 +122,46 @@ interface FittedSample {
 }
 
 /**
- * Fits the bands at the resolved C/B and puts the best solution's B, C and Dq (with standard
- * errors and their correlation) in place of given ones.
+ * Fits the bands at the resolved C/B (library {@link placeByFit}) and puts the best solution's
+ * B, C and Dq with their errors in place of given ones, noting where they came from.
  */
 function fittedSample(input: Resolved, bandsText: string): FittedSample {
   const bands = parseEnergyList(bandsText).map((b) =>
     b.sigma === undefined ? { energy: b.value } : { energy: b.value, sigma: b.sigma },
   );
-  const result = fitBands({
-    n: input.n,
-    geometry: input.geometry,
-    bands,
-    ...(input.ion ? { freeIon: input.ion } : {}),
-    cOverB: input.B > 0 ? input.C / input.B : DEFAULT_C_OVER_B,
-  });
-  const best = result.solutions[0];
-  if (!best) throw new InputError(`--bands "${bandsText}": no assignment of these bands fits d${input.n}`);
-  const correlation = fitCorrelation(best, 'dq', 'B');
+  let placed: ReturnType<typeof placeByFit>;
+  try {
+    placed = placeByFit({
+      n: input.n,
+      geometry: input.geometry,
+      bands,
+      ...(input.ion ? { ion: input.ion } : {}),
+      cOverB: input.B > 0 ? input.C / input.B : DEFAULT_C_OVER_B,
+    });
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError(`--bands "${bandsText}": ${e.message}`);
+    throw e;
+  }
+  const best = placed.solution;
   const assignment = best.assignments.map((a) => unicodeLabel(a.label)).join(', ');
   return {
     input: {
       ...input,
-      B: best.B,
-      C: best.C,
-      ...(best.errors.B !== null ? { sigmaB: best.errors.B } : {}),
+      B: placed.B,
+      C: placed.C,
+      ...(placed.sigmaB !== undefined ? { sigmaB: placed.sigmaB } : {}),
       bOrigin: `fitted to the bands as ${assignment}, rms ${fixed(best.rms)} cm⁻¹`,
       cOrigin: `held at ${fixed(best.C / best.B, 2)} in the fit`,
     },
-    dq: { value: best.dq, ...(best.errors.dq !== null ? { sigma: best.errors.dq } : {}) },
-    ...(correlation !== undefined ? { correlation } : {}),
+    dq: placed.dq,
+    ...(placed.correlation !== undefined ? { correlation: placed.correlation } : {}),
     solution: best,
-    alternatives: result.solutions.length - 1,
+    alternatives: placed.alternatives,
   };
 }
 
-/** B used where none is given and none is needed (dⁿ without a spin choice), cm⁻¹. */
-const NOMINAL_B = 1000;
-
-/** Whether the ground state of dⁿ can change spin as Δ grows: d⁴–d⁷ in Oh, d³–d⁶ in Td. */
-function hasSpinChoice(n: number, geometry: Geometry): boolean {
-  return geometry === 'oct' ? n >= 4 && n <= 7 : n >= 3 && n <= 6;
-}
-
 function resolveInput(configText: string | undefined, opts: CrossoverCommandOptions): Resolved {
-  const { n, ion } = electronCount(configText, opts.ion);
+  const { n, ion } = configOrIon(configText, opts.ion);
   const geometry = geometryOption(opts.geometry);
   const single = n === 1 || n === 9;
   const givenB = energyOption('--B', opts.B);
@@ -286,7 +268,7 @@ function momentStates(analysis: CrossoverAnalysis, verdict: SampleVerdict | unde
     add(c.dq, c.to);
   }
   // Without a crossover the ground spin is the same at every Dq; Δ/B = 10 stands for any.
-  if (analysis.crossings.length === 0) add(verdict?.dq ?? (B > 0 ? B : 1000));
+  if (analysis.crossings.length === 0) add(verdict?.dq ?? (B > 0 ? B : NOMINAL_B));
   return out;
 }
 
@@ -408,41 +390,6 @@ function mapBytes(
         : {}),
     },
   );
-}
-
-/** JSON form of the crossings of an analysis. */
-export function crossingsJson(analysis: CrossoverAnalysis) {
-  return analysis.crossings.map((c) => ({
-    dq: c.dq,
-    tenDq: c.tenDq,
-    deltaOverB: c.deltaOverB,
-    from: c.from,
-    to: c.to,
-    fromSymbol: c.fromSymbol,
-    toSymbol: c.toSymbol,
-    fromS: c.fromS,
-    toS: c.toS,
-  }));
-}
-
-/** JSON form of a sample's verdict (missing values as null). */
-export function verdictJson(verdict: SampleVerdict) {
-  return {
-    dq: verdict.dq,
-    tenDq: verdict.tenDq,
-    deltaOverB: verdict.deltaOverB,
-    ground: verdict.ground,
-    groundSymbol: verdict.groundSymbol,
-    S: verdict.S,
-    side: verdict.side,
-    margin: verdict.margin ?? null,
-    sigma: verdict.sigma ?? null,
-    sigmas: verdict.sigmas ?? null,
-    settled: verdict.settled ?? null,
-    near: verdict.near ?? null,
-    other: verdict.other ?? null,
-    gap: verdict.gap ?? null,
-  };
 }
 
 function reportJson(r: Report) {

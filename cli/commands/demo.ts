@@ -1,9 +1,15 @@
+/**
+ * `termsplit demo`: runs the whole report on the invented demo sheet shipped with the package and
+ * prints its summary (marked as invented) or its JSON.
+ */
+
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { packageRoot } from '../files.js';
 import { jsonText } from '../format.js';
 import type { Io } from '../io.js';
-import { reportJson, reportSummary, runReport } from './report.js';
+import { reportJson, runReport } from '../report/runReport.js';
+import { reportSummary } from '../report/summary.js';
 
 /** The invented demo sheet shipped with the package. */
 export function demoSheet(): string {

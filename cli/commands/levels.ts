@@ -1,15 +1,20 @@
+/**
+ * `termsplit levels`: checks the ion or dⁿ, Dq, B and C into a cubic-field calculation, solves
+ * it with the library, prints every level (text or JSON) with the predicted bands and cautions,
+ * and draws the energy-level diagram if asked.
+ */
+
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { renderLevelDiagram } from '../../charts/levelDiagram.js';
 import { formatOfPath } from '../../charts/render.js';
+import { BAND_CEILING } from '../../src/core/defaults.js';
 import {
   type CubicLevel,
-  type CubicResult,
   cmToEv,
   cmToNm,
   cubicCautions,
   halfIntegerText,
-  solveCubic,
   unicodeConfiguration,
   unicodeLabel,
   unicodeTerm,
@@ -17,22 +22,18 @@ import {
 import { writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
-import { geometryOption, ionOrCount, numberOption, ratioChoice, requiredNumber } from '../options.js';
-
-/** Bands above this (cm⁻¹; 200 nm) are left out of the band list, though not out of the level table. */
-const BAND_TABLE_LIMIT = 50000;
-
-const SINGLE = 'B and C play no part for one d electron or hole';
+import {
+  cbHelp,
+  GEOMETRY_OPTION,
+  type LevelOptions,
+  levelsFromOptions,
+  SINGLE_ELECTRON_ORIGIN,
+  type SolvedLevels,
+} from '../options.js';
+import { levelJson } from '../present/levelPresent.js';
 
 /** Options of `termsplit levels`. */
-export interface LevelsOptions {
-  ion?: string;
-  d?: string;
-  dq?: string;
-  B?: string;
-  C?: string;
-  cb?: string;
-  geometry?: string;
+export interface LevelsOptions extends LevelOptions {
   output?: string;
   json?: boolean;
 }
@@ -49,8 +50,8 @@ export function registerLevels(program: Command, io: Io): void {
     .option('--dq <cm-1>', 'ligand-field parameter Dq (10Dq = Δ), cm⁻¹')
     .option('--B <cm-1>', 'Racah B of the complex, cm⁻¹')
     .option('--C <cm-1>', 'Racah C of the complex, cm⁻¹')
-    .option('--cb <ratio>', 'C/B instead of --C (default: the free-ion ratio of the ion, else 4.5)')
-    .option('--geometry <oct|tet>', 'octahedral or tetrahedral', 'oct')
+    .option('--cb <ratio>', cbHelp('C/B instead of --C'))
+    .option(...GEOMETRY_OPTION)
     .option('-o, --output <file>', 'also draw the energy-level diagram, free ion → field: .png, .svg or .pdf')
     .option('--json', 'print one JSON object on stdout')
     .action((opts: LevelsOptions) => {
@@ -65,52 +66,7 @@ export function registerLevels(program: Command, io: Io): void {
     });
 }
 
-/** Solves the levels from the command's options. */
-export function levelsFromOptions(opts: LevelsOptions): {
-  result: CubicResult;
-  cOrigin: string;
-  ion?: string;
-} {
-  const choice = ionOrCount(opts.ion, opts.d);
-  const geometry = geometryOption(opts.geometry);
-  const dq = requiredNumber('--dq', opts.dq, { min: 0, what: 'a non-negative number of cm⁻¹' });
-  const single = choice.n === 1 || choice.n === 9;
-  const B = single
-    ? (numberOption('--B', opts.B, { min: 0, what: 'a non-negative number of cm⁻¹' }) ?? 0)
-    : requiredNumber('--B', opts.B, { positive: true, what: 'a positive number of cm⁻¹' });
-  const ratio = ratioChoice(B, opts.C, opts.cb, choice.ion);
-  const C = B * ratio.cOverB;
-  const result = solveCubic({ n: choice.n, geometry, dq, B, C });
-  return {
-    result,
-    cOrigin: single ? SINGLE : ratio.origin,
-    ...(choice.ion ? { ion: choice.ion.ion } : {}),
-  };
-}
-
-/** JSON form of one level. */
-export function levelJson(l: CubicLevel) {
-  return {
-    label: l.label,
-    symbol: l.symbol,
-    S: l.S,
-    irrep: l.irrep,
-    energy: l.energy,
-    wavelength: l.energy > 0 ? cmToNm(l.energy) : null,
-    eV: cmToEv(l.energy),
-    degeneracy: l.degeneracy,
-    spinAllowed: l.spinAllowed,
-    parent: l.parent,
-    configuration: l.configuration,
-    configurations: l.configurations.map((c) => ({ configuration: c.text, weight: c.weight })),
-  };
-}
-
-function levelsText(
-  opts: LevelsOptions,
-  solved: ReturnType<typeof levelsFromOptions>,
-  figure: string | undefined,
-): string {
+function levelsText(opts: LevelsOptions, solved: SolvedLevels, figure: string | undefined): string {
   const { result, cOrigin, ion } = solved;
   const cautions = cubicCautions(result);
   if (opts.json) {
@@ -136,7 +92,7 @@ function levelsText(
   const geometryName = result.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
   lines.push(
     `${ion ? `${ion} ` : ''}d${result.n}, ${geometryName}: Dq = ${fixed(result.dq)} cm⁻¹ (10Dq = ${fixed(10 * result.dq)}), ` +
-      `B = ${fixed(result.B)} cm⁻¹, C = ${fixed(result.C)} cm⁻¹ (${cOrigin === SINGLE ? cOrigin : `C/B ${fixed(result.C / result.B, 2)}, ${cOrigin}`})`,
+      `B = ${fixed(result.B)} cm⁻¹, C = ${fixed(result.C)} cm⁻¹ (${cOrigin === SINGLE_ELECTRON_ORIGIN ? cOrigin : `C/B ${fixed(result.C / result.B, 2)}, ${cOrigin}`})`,
   );
   lines.push(
     `Ground state: ${unicodeLabel(g.label)} (S = ${halfIntegerText(g.S)}), from ${unicodeTerm(g.parent)}, ` +
@@ -154,13 +110,13 @@ function levelsText(
   ];
   const headers = ['level', 'cm⁻¹', 'nm', 'eV', 'degeneracy', 'parent', 'main configuration', 'spin'];
   const bands = result.levels.filter((l) => l !== g && l.spinAllowed);
-  const shown = bands.filter((l) => l.energy <= BAND_TABLE_LIMIT);
+  const shown = bands.filter((l) => l.energy <= BAND_CEILING);
   lines.push('');
   lines.push(`Predicted spin-allowed bands (from ${unicodeLabel(g.label)}):`);
-  lines.push(shown.length > 0 ? table(headers, shown.map(row)) : `  none below ${BAND_TABLE_LIMIT} cm⁻¹`);
+  lines.push(shown.length > 0 ? table(headers, shown.map(row)) : `  none below ${BAND_CEILING} cm⁻¹`);
   if (shown.length < bands.length) {
     lines.push(
-      `  (${bands.length - shown.length} more above ${BAND_TABLE_LIMIT} cm⁻¹ (200 nm), in the table below)`,
+      `  (${bands.length - shown.length} more above ${BAND_CEILING} cm⁻¹ (200 nm), in the table below)`,
     );
   }
   lines.push('');

@@ -1,27 +1,14 @@
-import { existsSync } from 'node:fs';
-import { dirname, extname, resolve } from 'node:path';
+/**
+ * `termsplit report <sheet>`: checks the options into a report job, runs the report over the
+ * sample sheet and prints its summary or its JSON.
+ */
+
 import type { Command } from 'commander';
-import { renderTrend } from '../../charts/series.js';
-import {
-  InputError,
-  parseSampleSheet,
-  type SampleSheet,
-  type SheetFormat,
-  type SheetProblem,
-  unicodeIon,
-} from '../../src/index.js';
-import { readTextFile } from '../files.js';
-import { fixed, jsonText, table } from '../format.js';
+import { jsonText } from '../format.js';
 import type { Io } from '../io.js';
 import { numberOption } from '../options.js';
-import type { SampleOutcome, SampleResult, SampleTask } from '../report/analyse.js';
-import { reportBlocks, SERIES_FILES, sampleFiles } from '../report/document.js';
-import { toCsv, toHtml, toMarkdown } from '../report/formats.js';
-import { type ReportModel, reportModel } from '../report/model.js';
-import { runSamples } from '../report/run.js';
-import { REPORT_GENERATOR, writeReportFolder } from '../report/write.js';
-import { VERSION } from '../version.js';
-import { withError } from './fit.js';
+import { reportJson, runReport } from '../report/runReport.js';
+import { reportSummary } from '../report/summary.js';
 
 /** Options of `termsplit report`. */
 export interface ReportOptions {
@@ -45,183 +32,9 @@ export function registerReport(program: Command, io: Io): void {
     .option('--jobs <n>', 'worker threads for the samples (default: the cores, at most 4)')
     .option('--json', 'print the report as one JSON object on stdout')
     .action(async (sheetPath: string, opts: ReportOptions) => {
-      const run = await runReport(sheetPath, opts, io);
+      const jobs = numberOption('--jobs', opts.jobs, { integer: true, min: 1, what: 'a whole number' });
+      const job = { output: opts.output ?? DEFAULT_REPORT_DIR, ...(jobs !== undefined ? { jobs } : {}) };
+      const run = await runReport(sheetPath, job, io);
       io.out(opts.json ? jsonText(reportJson(run.model)) : reportSummary(run));
     });
-}
-
-/** The format of a sheet file: by extension, else by its first character. */
-function sheetFormat(path: string, text: string): SheetFormat {
-  const ext = extname(path).toLowerCase();
-  if (ext === '.json') return 'json';
-  if (ext === '.csv') return 'csv';
-  return text.trimStart().startsWith('{') ? 'json' : 'csv';
-}
-
-/** File-name stems of the samples: lower-case letters and digits, unique. */
-export function slugs(names: readonly string[]): string[] {
-  const used = new Set<string>();
-  return names.map((name) => {
-    const base =
-      name
-        .toLowerCase()
-        .replace(/[^a-z0-9]+/g, '-')
-        .replace(/^-+|-+$/g, '') || 'sample';
-    let slug = base;
-    for (let k = 2; used.has(slug); k++) slug = `${base}-${k}`;
-    used.add(slug);
-    return slug;
-  });
-}
-
-/** The checks a sheet needs from the file system: each spectrum file must exist. */
-function missingSpectra(sheet: SampleSheet, dir: string): { sheet: SampleSheet; problems: SheetProblem[] } {
-  const problems: SheetProblem[] = [];
-  const samples = sheet.samples.filter((s) => {
-    if (!s.spectrum) return true;
-    const path = resolve(dir, s.spectrum.file);
-    if (existsSync(path)) return true;
-    problems.push({ sample: s.name, field: 'spectrum.file', message: `no such file: ${s.spectrum.file}` });
-    return false;
-  });
-  return { sheet: { ...sheet, samples }, problems };
-}
-
-/** The report's outcome: the model, where it was written, and the exit code. */
-export interface ReportRun {
-  readonly model: ReportModel;
-  readonly dir: string;
-  readonly files: readonly string[];
-}
-
-/**
- * Runs the report: reads and checks the sheet, analyses the samples (in parallel where that
- * helps), and writes the folder. Exit code rule: 0 when at least one sample was reported (the
- * others are listed as problems, on stderr and in the report); an InputError (exit 2) when the
- * sheet is unreadable or no sample could be reported — then nothing is written. `sheetLabel`
- * names the sheet in the report.
- */
-export async function runReport(
-  sheetPath: string,
-  opts: ReportOptions,
-  io: Io,
-  sheetLabel: string = sheetPath,
-): Promise<ReportRun> {
-  const jobs = numberOption('--jobs', opts.jobs, { integer: true, min: 1, what: 'a whole number' });
-  const full = resolve(io.cwd, sheetPath);
-  const text = readTextFile(full);
-  const parsed = parseSampleSheet(text, sheetFormat(full, text));
-  const sheetDir = dirname(full);
-  const { sheet, problems } = missingSpectra(parsed, sheetDir);
-  const dir = resolve(io.cwd, opts.output ?? DEFAULT_REPORT_DIR);
-  const names = sheet.samples.map((s) => s.name);
-  const stems = slugs(names);
-  const tasks: SampleTask[] = sheet.samples.map((sample, i) => ({
-    sample,
-    sheetDir,
-    slug: stems[i] ?? `sample-${i + 1}`,
-  }));
-  const outcomes: SampleOutcome[] = tasks.length > 0 ? await runSamples(tasks, io, jobs ? { jobs } : {}) : [];
-  const model = reportModel(
-    { ...sheet, problems: [...sheet.problems, ...problems] },
-    sheetLabel,
-    outcomes,
-    VERSION,
-    new Date().toISOString().slice(0, 10),
-  );
-  for (const p of model.problems)
-    io.err(
-      `termsplit: sample "${p.sample}": ${p.field === 'analysis' ? '' : `field "${p.field}": `}${p.message}\n`,
-    );
-  if (model.samples.length === 0) {
-    throw new InputError(
-      `no sample of ${sheetPath} could be reported (${model.problems.length} problem${model.problems.length === 1 ? '' : 's'}, listed above)`,
-    );
-  }
-  const files = reportFiles(model);
-  writeReportFolder(dir, files);
-  return { model, dir, files: [...files.keys()] };
-}
-
-/** Every file of the report folder, by relative path. */
-function reportFiles(model: ReportModel): Map<string, string> {
-  const trends =
-    model.series.length >= 2
-      ? {
-          tenDq: renderTrend(model.series, 'tenDq', { format: 'svg' }).toString('utf8'),
-          beta: renderTrend(model.series, 'beta', { format: 'svg' }).toString('utf8'),
-        }
-      : undefined;
-  const blocks = reportBlocks(model, trends);
-  const files = new Map<string, string>();
-  files.set('report.md', toMarkdown(blocks));
-  files.set('report.html', toHtml(blocks, model.title));
-  for (const b of blocks) {
-    if (b.kind === 'table') files.set(b.csv, toCsv(b));
-    if (b.kind === 'figure') files.set(b.path, b.svg);
-  }
-  files.set('report.json', jsonText(reportJson(model)));
-  return files;
-}
-
-/** The JSON of the report: everything but the figures' SVG text, which are files. */
-export function reportJson(model: ReportModel) {
-  return {
-    generator: REPORT_GENERATOR,
-    version: model.version,
-    date: model.date,
-    title: model.title,
-    invented: model.invented,
-    ...(model.about ? { about: model.about } : {}),
-    sheet: model.sheet,
-    series: model.series,
-    orders: model.orders,
-    samples: model.samples.map(({ svg, ...rest }) => ({
-      ...rest,
-      figures: {
-        ...(svg.diagram ? { diagram: sampleFiles(rest.slug).diagram } : {}),
-        ...(svg.spectrum ? { spectrum: sampleFiles(rest.slug).spectrum } : {}),
-      },
-    })),
-    problems: model.problems,
-    methods: model.methods,
-    references: model.references,
-    cautions: model.cautions,
-    ...(model.series.length >= 2 ? { figures: { tenDq: SERIES_FILES.tenDq, beta: SERIES_FILES.beta } } : {}),
-  };
-}
-
-/** A short summary of a written report, for the terminal. */
-export function reportSummary(run: ReportRun): string {
-  const { model, dir } = run;
-  const lines = [
-    `${model.title}${model.invented && !/invented/i.test(model.title) ? ' (invented data)' : ''}: ${model.samples.length} sample${model.samples.length === 1 ? '' : 's'} reported` +
-      (model.problems.length > 0
-        ? `, ${new Set(model.problems.map((p) => p.sample)).size} with problems (see above)`
-        : ''),
-    '',
-    table(
-      ['sample', 'ion', '10Dq / cm⁻¹', 'B / cm⁻¹', 'β', 'rms / cm⁻¹', 'spin state'],
-      model.series.map((e) => {
-        const s = model.samples.find((x) => x.name === e.name) as SampleResult | undefined;
-        return [
-          e.name,
-          `${unicodeIon(e.ion)}${e.geometry === 'tet' ? ' Td' : ''}`,
-          withError(e.tenDq, e.errors.tenDq),
-          e.B === null ? '—' : withError(e.B, e.errors.B),
-          e.beta === null ? '—' : withError(e.beta, e.errors.beta, 3),
-          fixed(e.rms),
-          s?.spin ? `${s.spin.side}${s.spin.near ? ' (close)' : ''}` : '—',
-        ];
-      }),
-    ),
-    '',
-    `Report written to ${dir}/`,
-    '  report.html  — one page with every table and figure; open it in a browser',
-    '  report.md    — the same in Markdown (figures in figures/)',
-    '  report.json  — everything, for programs',
-    '  tables/*.csv — every table',
-    '  figures/*.svg — correlation diagrams, spectra and series trends',
-  ];
-  return `${lines.join('\n')}\n`;
 }

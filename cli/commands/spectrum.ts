@@ -1,49 +1,53 @@
+/**
+ * `termsplit spectrum <file>`: checks the options into resolved spectrum-analysis options, reads
+ * the file, runs the library's spectrum analysis (band finding, ligand-field fit or predicted
+ * transitions, cautions), prints the bands and fit as text or JSON and draws the overlay figure.
+ */
+
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { type FigureFormat, formatOfPath } from '../../charts/render.js';
-import { type PredictedTransition, quantityTitle, renderSpectrumFigure } from '../../charts/spectrum.js';
+import { formatOfPath } from '../../charts/render.js';
+import { quantityTitle } from '../../charts/spectrum.js';
 import {
-  type AbsorptionSpectrum,
-  absorptionSpectrum,
-  type BandAnalysis,
-  type BandObservation,
   type BaselineKind,
-  bandObservations,
-  CHARGE_TRANSFER_EPSILON,
-  type CubicResult,
   cmToNm,
-  cubicCautions,
   DEFAULT_BASELINE,
   DEFAULT_MAX_BANDS,
   DEFAULT_MIN_FWHM,
   DEFAULT_X_COLUMN,
   DEFAULT_Y_COLUMN,
-  type FitResult,
   type FoundBand,
-  findBands,
-  fitFoundBands,
   InputError,
-  isJcamp,
-  ligandFieldBands,
-  NARROW_BAND_FWHM,
   POSITION_WIDTH_FRACTION,
-  parseEnergy,
-  parseJcampSpectrum,
-  parseSpectrumText,
-  parseUnit,
   parseXUnit,
   parseYUnit,
-  type RawSpectrum,
   unicodeLabel,
   X_UNIT_NAMES,
   Y_UNIT_NAMES,
 } from '../../src/index.js';
+import { parseRange } from '../../src/spectra/energyRange.js';
+import type { SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
+import {
+  analyseSpectrum,
+  type SpectrumAnalysisOptions,
+  type SpectrumFitRequest,
+} from '../../src/spectra/spectrumAnalysis.js';
 import { readTextFile, writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
-import { geometryOption, ionOrCount, numberOption, ratioChoice } from '../options.js';
-import { fitJson, fitText, spinStateOption } from './fit.js';
-import { levelJson, levelsFromOptions } from './levels.js';
+import {
+  GEOMETRY_OPTION,
+  geometryOption,
+  ionOrCount,
+  levelsFromOptions,
+  numberOption,
+  ratioChoice,
+  type SolvedLevels,
+  spinStateOption,
+} from '../options.js';
+import { fitJson, fitText } from '../present/fitPresent.js';
+import { levelJson } from '../present/levelPresent.js';
+import { spectrumFigure } from '../present/spectrumFigure.js';
 
 /** Options of `termsplit spectrum`. */
 export interface SpectrumOptions {
@@ -82,7 +86,7 @@ export function registerSpectrum(program: Command, io: Io): void {
     .argument('<file>', 'the spectrum: delimited text (x and y columns) or JCAMP-DX (.jdx, .dx)')
     .option('--ion <name>', 'the metal ion, e.g. Cr3+ (with --dq and --B: predicted transitions)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
-    .option('--geometry <oct|tet>', 'octahedral or tetrahedral', 'oct')
+    .option(...GEOMETRY_OPTION)
     .option('--range <from-to>', 'window, e.g. 330-1300nm, 8000-30000 (cm⁻¹) or 1.2-3.6eV')
     .option('--x-unit <unit>', 'x unit when the file does not say: nm, cm-1 or eV')
     .option('--y-unit <unit>', 'y quantity when the file does not say: A, epsilon, %T, T or arb')
@@ -112,32 +116,45 @@ export function registerSpectrum(program: Command, io: Io): void {
 }
 
 /** Everything the command works out, before it is written as text or JSON. */
-export interface SpectrumReport {
+export interface SpectrumReport extends SpectrumAnalysis {
   readonly file: string;
-  readonly raw: RawSpectrum;
-  readonly spectrum: AbsorptionSpectrum;
-  readonly analysis: BandAnalysis;
-  readonly ligandField: readonly FoundBand[];
-  readonly observations: readonly BandObservation[];
-  readonly predicted?: { result: CubicResult; cOrigin: string; ion?: string };
-  readonly fit?: SpectrumFit;
-  /** Transitions marked on the figure: from the fit's best solution, or from --dq/--B. */
-  readonly transitions: readonly PredictedTransition[];
-  readonly cautions: readonly string[];
+  readonly predicted?: SolvedLevels;
   readonly figure?: string;
 }
 
 /** Runs the command and returns its stdout text; the figure, if asked for, is written first. */
 export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): string {
-  const report = analyseSpectrum(file, opts, io);
+  const job = spectrumJob(opts);
+  const outPath = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
+  const format = outPath === undefined ? undefined : formatOfPath(outPath);
+  const text = readTextFile(resolve(io.cwd, file));
+  const report: SpectrumReport = {
+    file,
+    ...inFile(file, () => analyseSpectrum(text, { ...job.options, fileName: file })),
+    ...(job.predicted ? { predicted: job.predicted } : {}),
+    ...(opts.output !== undefined ? { figure: opts.output } : {}),
+  };
+  if (outPath !== undefined && format !== undefined) {
+    writeFileAtomic(outPath, spectrumFigure(report, `termsplit spectrum ${file}`, format));
+  }
   return opts.json ? jsonText(reportJson(report)) : reportText(report, opts);
 }
 
-/**
- * Reads a spectrum file, finds its bands, fits them (with --ion or --d) or predicts transitions
- * (with --dq/--B), and writes the figure if `opts.output` names one.
- */
-export function analyseSpectrum(file: string, opts: SpectrumOptions, io: Io): SpectrumReport {
+/** Runs library work on a file's text, naming the file in any input error. */
+function inFile<T>(file: string, work: () => T): T {
+  try {
+    return work();
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError(`${file}: ${e.message}`);
+    throw e;
+  }
+}
+
+/** The command's options checked into resolved analysis options (and predicted levels, with --dq). */
+function spectrumJob(opts: SpectrumOptions): {
+  options: SpectrumAnalysisOptions;
+  predicted?: SolvedLevels;
+} {
   const xUnit = opts.xUnit === undefined ? undefined : parseXUnit(opts.xUnit);
   const yUnit = opts.yUnit === undefined ? undefined : parseYUnit(opts.yUnit);
   const conc = numberOption('--conc', opts.conc, { positive: true, what: 'a positive number of mol/L' });
@@ -145,7 +162,6 @@ export function analyseSpectrum(file: string, opts: SpectrumOptions, io: Io): Sp
   if ((conc === undefined) !== (path === undefined)) {
     throw new InputError('give both --conc (mol/L) and --path (cm) to turn absorbance into ε');
   }
-  const range = opts.range === undefined ? undefined : parseRange(opts.range);
   const maxBands = numberOption('--max-bands', opts.maxBands, {
     integer: true,
     min: 1,
@@ -155,242 +171,53 @@ export function analyseSpectrum(file: string, opts: SpectrumOptions, io: Io): Sp
     positive: true,
     what: 'a positive number of cm⁻¹',
   });
-  const baseline = baselineOption(opts.baseline);
+  const reading = {
+    ...(opts.xCol !== undefined ? { xColumn: opts.xCol } : {}),
+    ...(opts.yCol !== undefined ? { yColumn: opts.yCol } : {}),
+    ...(xUnit ? { xUnit } : {}),
+    ...(yUnit ? { yUnit } : {}),
+    ...(conc !== undefined && path !== undefined ? { concentration: conc, pathLength: path } : {}),
+  };
+  const search = {
+    ...(opts.range !== undefined ? { range: parseRange(opts.range) } : {}),
+    ...(maxBands !== undefined ? { maxBands } : {}),
+    ...(minFwhm !== undefined ? { minFwhm } : {}),
+    baseline: baselineOption(opts.baseline),
+    includeChargeTransfer: opts.includeCt === true,
+  };
   if (opts.dq === undefined && (opts.B !== undefined || opts.C !== undefined)) {
     throw new InputError(
       '--B and --C give predicted transitions only together with --dq (without them the bands are fitted)',
     );
   }
-  geometryOption(opts.geometry);
-  if (opts.ion !== undefined || opts.d !== undefined) ionOrCount(opts.ion, opts.d);
+  const geometry = geometryOption(opts.geometry);
+  const choice = opts.ion !== undefined || opts.d !== undefined ? ionOrCount(opts.ion, opts.d) : undefined;
   const predicted = opts.dq === undefined ? undefined : levelsFromOptions(opts);
-  const outPath = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
-  const format = outPath === undefined ? undefined : formatOfPath(outPath);
-
-  const full = resolve(io.cwd, file);
-  const text = readTextFile(full);
-  const inFile = <T>(work: () => T): T => {
-    try {
-      return work();
-    } catch (e) {
-      if (e instanceof InputError) throw new InputError(`${file}: ${e.message}`);
-      throw e;
-    }
-  };
-  const raw = inFile(() =>
-    isJcamp(text) || /\.(jdx|dx|jcamp)$/i.test(file)
-      ? parseJcampSpectrum(text)
-      : parseSpectrumText(text, {
-          ...(opts.xCol !== undefined ? { xColumn: opts.xCol } : {}),
-          ...(opts.yCol !== undefined ? { yColumn: opts.yCol } : {}),
-        }),
-  );
-  const spectrum = inFile(() =>
-    absorptionSpectrum(raw, {
-      ...(xUnit ? { xUnit } : {}),
-      ...(yUnit ? { yUnit } : {}),
-      ...(conc !== undefined && path !== undefined ? { concentration: conc, pathLength: path } : {}),
-    }),
-  );
-  const analysis = inFile(() =>
-    findBands(spectrum, {
-      ...(range ? { range } : {}),
-      ...(maxBands !== undefined ? { maxBands } : {}),
-      ...(minFwhm !== undefined ? { minFwhm } : {}),
-      baseline,
-    }),
-  );
-  const choice = { includeChargeTransfer: opts.includeCt === true };
-  const ligandField = ligandFieldBands(analysis.bands, choice);
-  if (ligandField.length === 0) {
-    const { from, to } = analysis.window;
-    const ct = analysis.bands.length > 0;
-    throw new InputError(
-      `${file}: no d–d bands found in ${fixed(from)}–${fixed(to)} cm⁻¹` +
-        (ct
-          ? ` (only ${analysis.bands.length === 1 ? 'a band that looks' : `${analysis.bands.length} bands that look`} like charge transfer or lie beyond the window${opts.includeCt ? '' : '; --include-ct keeps intense or high-energy ones'})`
-          : ` (noise σ = ${analysis.noise.toPrecision(2)}: nothing stands out above it)`),
-    );
-  }
-  const observations = bandObservations(analysis.bands, choice);
-  const fit =
-    predicted || (opts.ion === undefined && opts.d === undefined)
+  const fit: SpectrumFitRequest | undefined =
+    predicted || !choice
       ? undefined
-      : spectrumFit(ligandField, opts);
-  const best = fit && 'result' in fit ? fit.result.solutions[0] : undefined;
-  const levels = predicted?.result ?? best?.levels;
-  const cautions = spectrumCautions(analysis, spectrum, levels);
-  if (fit && 'failure' in fit) cautions.push(`no ligand-field fit: ${fit.failure}`);
-  const transitions: PredictedTransition[] = levels
-    ? levels.levels
-        .filter((l) => l !== levels.ground)
-        .map((l) => ({ label: l.label, energy: l.energy, spinAllowed: l.spinAllowed }))
-    : [];
-  const report: SpectrumReport = {
-    file,
-    raw,
-    spectrum,
-    analysis,
-    ligandField,
-    observations,
-    ...(predicted ? { predicted } : {}),
+      : {
+          n: choice.n,
+          geometry,
+          ...(choice.ion ? { ion: choice.ion } : {}),
+          ratio: ratioChoice(undefined, undefined, opts.cb, choice.ion),
+          fitC: opts.fitC === true,
+          includeSpinForbidden: opts.spinForbidden === true,
+          ...(opts.spinState !== undefined ? { spinState: spinStateOption(opts.spinState) } : {}),
+        };
+  const options: SpectrumAnalysisOptions = {
+    ...reading,
+    ...search,
     ...(fit ? { fit } : {}),
-    transitions,
-    cautions,
-    ...(opts.output !== undefined ? { figure: opts.output } : {}),
+    ...(predicted ? { predicted: predicted.result } : {}),
   };
-  if (outPath !== undefined && format !== undefined) writeFileAtomic(outPath, spectrumFigure(report, format));
-  return report;
+  return predicted ? { options, predicted } : { options };
 }
-
-/** The overlay figure of an analysed spectrum: data, bands, their sum, marked transitions. */
-export function spectrumFigure(report: SpectrumReport, format: FigureFormat): Buffer {
-  const { spectrum, analysis } = report;
-  return renderSpectrumFigure(
-    {
-      measured: { x: spectrum.wavenumber, y: spectrum.value },
-      quantity: analysis.quantity,
-      window: analysis.window,
-      bands: analysis.bands,
-      baseline: analysis.baseline,
-      transitions: report.transitions,
-    },
-    { format, title: `termsplit spectrum ${report.file}` },
-  );
-}
-
-/** The band fit of a spectrum, or why there is none. */
-export type SpectrumFit =
-  | {
-      readonly result: FitResult;
-      readonly ion?: string;
-      readonly cOrigin: string;
-      /** Numbers of the bands fitted and of the narrow ones left out. */
-      readonly used: readonly number[];
-      readonly leftOut: readonly number[];
-    }
-  | { readonly failure: string };
-
-/**
- * The fit of the ligand-field bands (see {@link fitFoundBands}). A fit that cannot be made (too
- * few bands for the parameters) is reported, not an error: the bands stand on their own.
- */
-function spectrumFit(ligandField: readonly FoundBand[], opts: SpectrumOptions): SpectrumFit {
-  const choice = ionOrCount(opts.ion, opts.d);
-  const ratio = ratioChoice(undefined, undefined, opts.cb, choice.ion);
-  try {
-    const fit = fitFoundBands(ligandField, {
-      n: choice.n,
-      geometry: geometryOption(opts.geometry),
-      ...(choice.ion ? { freeIon: choice.ion } : {}),
-      cOverB: ratio.cOverB,
-      fitC: opts.fitC === true,
-      includeSpinForbidden: opts.spinForbidden === true,
-      ...(opts.spinState !== undefined ? { spinState: spinStateOption(opts.spinState) } : {}),
-    });
-    return { ...fit, ...(choice.ion ? { ion: choice.ion.ion } : {}), cOrigin: ratio.origin };
-  } catch (e) {
-    if (e instanceof InputError) return { failure: e.message };
-    throw e;
-  }
-}
-
-/**
- * Parses `--range`: two energies joined by a hyphen or dash, with one unit for both
- * (`330-1300nm`, `330nm-1300nm`, `8000-30000`, `1.2-3.6 eV`); bare numbers are cm⁻¹.
- * @returns the window in cm⁻¹, lower end first.
- */
-export function parseRange(text: string): { from: number; to: number } {
-  const m = RANGE.exec(text);
-  if (!m) {
-    throw new InputError(
-      `--range "${text}": expected two energies such as 330-1300nm, 8000-30000 or 1.2-3.6eV`,
-    );
-  }
-  const [, first = '', firstUnit, second = '', secondUnit] = m;
-  if (firstUnit && secondUnit && parseUnit(firstUnit) !== parseUnit(secondUnit)) {
-    throw new InputError(`--range "${text}": the two ends are in different units`);
-  }
-  const unitText = secondUnit ?? firstUnit;
-  const unit = unitText === undefined ? 'cm-1' : parseUnit(unitText);
-  const a = parseEnergy(first, unit).value;
-  const b = parseEnergy(second, unit).value;
-  if (a === b) throw new InputError(`--range "${text}": the two ends are the same`);
-  return { from: Math.min(a, b), to: Math.max(a, b) };
-}
-
-const RANGE_NUMBER = String.raw`(\d+(?:\.\d*)?|\.\d+)`;
-const RANGE_UNIT = String.raw`(nm|cm-1|cm\^-1|cm⁻¹|1/cm|ev|kk)`;
-const RANGE = new RegExp(
-  String.raw`^\s*${RANGE_NUMBER}\s*${RANGE_UNIT}?\s*[-–—]\s*${RANGE_NUMBER}\s*${RANGE_UNIT}?\s*$`,
-  'i',
-);
 
 function baselineOption(text: string | undefined): BaselineKind {
   const t = (text ?? DEFAULT_BASELINE).trim().toLowerCase();
   if (t === 'none' || t === 'constant' || t === 'linear') return t;
   throw new InputError(`--baseline "${text}": expected none, constant or linear`);
-}
-
-/** Sentences about where the result could mislead, for the report. */
-function spectrumCautions(
-  analysis: BandAnalysis,
-  spectrum: AbsorptionSpectrum,
-  predicted?: CubicResult,
-): string[] {
-  const out: string[] = [];
-  const { from, to } = analysis.window;
-  if (analysis.clipped) {
-    out.push(
-      `the range asked for reaches beyond the data; the window used is ${fixed(from)}–${fixed(to)} cm⁻¹`,
-    );
-  }
-  const blue = analysis.bands.find((b) => b.flags.includes('blue-edge'));
-  if (blue) {
-    out.push(
-      `band ${blue.number} rises at the blue end of the window (maximum beyond ${fixed(to)} cm⁻¹): if it is a ` +
-        'charge-transfer or ligand band, it can hide or distort d–d bands near the edge; if a d–d band, widen the window',
-    );
-  }
-  const red = analysis.bands.find((b) => b.flags.includes('red-edge'));
-  if (red) {
-    out.push(
-      `band ${red.number} is the wing of a band whose maximum lies below ${fixed(from)} cm⁻¹: record further into the ` +
-        'near infrared to measure it; it is not used as a ligand-field band',
-    );
-  }
-  for (const b of analysis.bands.filter((b) => b.flags.includes('intense'))) {
-    out.push(
-      `band ${b.number} has ε ≈ ${fixed(b.height)} L mol⁻¹ cm⁻¹, in the charge-transfer range (≥ ${CHARGE_TRANSFER_EPSILON}; common practice, no source)`,
-    );
-  }
-  const narrow = analysis.bands.filter((b) => b.flags.includes('narrow') && !b.chargeTransfer);
-  if (narrow.length > 0) {
-    out.push(
-      `band${narrow.length > 1 ? 's' : ''} ${narrow.map((b) => b.number).join(', ')} narrower than ${NARROW_BAND_FWHM} cm⁻¹: ` +
-        'possibly spin-forbidden (sharp intraconfigurational bands); assign before fitting',
-    );
-  }
-  const ratio = analysis.residualRms / analysis.noise;
-  if (ratio > 2) {
-    out.push(
-      `the fit leaves ${fixed(ratio, 1)} × the noise: the bands are not all Gaussian (asymmetric, structured or ` +
-        'Jahn–Teller split), so some components may model shape rather than separate transitions',
-    );
-  }
-  if (spectrum.quantity !== 'epsilon') {
-    out.push(
-      spectrum.quantity === 'absorbance'
-        ? 'intensities are absorbances: give --conc and --path to compare ε with the usual ranges'
-        : 'intensities are in arbitrary units: no comparison with the usual ε ranges',
-    );
-  }
-  out.push(
-    'band positions are centres of Gaussian components (vertical transitions); a ligand-field fit to band maxima ' +
-      'ignores vibronic structure and the Stokes shift, so Dq and B carry that approximation',
-  );
-  if (predicted) out.push(...cubicCautions(predicted).map((c) => c.message));
-  return out;
 }
 
 const FLAG_TEXT: Readonly<Record<FoundBand['flags'][number], string>> = {

@@ -1,27 +1,35 @@
-import { dirname, resolve } from 'node:path';
-import {
-  crossoverCautions,
-  DEFAULT_C_OVER_B,
-  type FitResult,
-  type FitSolution,
-  findIon,
-  fitBands,
-  fitSpinVerdict,
-  freeIonRatio,
-  InputError,
-  type SampleSpec,
-  type SeriesEntry,
-} from '../../src/index.js';
-import { crossingsJson, verdictJson } from '../commands/crossover.js';
-import { fitJson, fittedDiagram, solutionJson } from '../commands/fit.js';
-import { analyseSpectrum, spectrumFigure } from '../commands/spectrum.js';
-import { memoryIo } from '../io.js';
-
 /**
  * The work on one sample of a report: its bands (given, or found in its spectrum), the band fit,
  * the correlation diagram with the sample on it, the spectrum overlay, and the spin-state
- * verdict for dⁿ with a choice of spin. Plain data in and out, so it can run in a worker thread.
+ * verdict for dⁿ with a choice of spin. The sample's checked values go to the library functions
+ * as numbers. Plain data in and out, so it can run in a worker thread.
  */
+
+import { resolve } from 'node:path';
+import { chooseRatio, type RatioChoice } from '../../src/core/ratioChoice.js';
+import {
+  crossoverCautions,
+  DEFAULT_BASELINE,
+  type FitResult,
+  type FitSolution,
+  type FreeIon,
+  findIon,
+  fitBands,
+  fitSpinVerdict,
+  type Geometry,
+  InputError,
+  parseXUnit,
+  parseYUnit,
+  type SampleSpec,
+  type SeriesEntry,
+} from '../../src/index.js';
+import { parseRange } from '../../src/spectra/energyRange.js';
+import { analyseSpectrum, type SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
+import { readTextFile } from '../files.js';
+import { crossingsJson, verdictJson } from '../present/crossoverPresent.js';
+import { fitJson, solutionJson } from '../present/fitPresent.js';
+import { fittedDiagram } from '../present/fittedDiagram.js';
+import { spectrumFigure } from '../present/spectrumFigure.js';
 
 /** One sample to analyse. */
 export interface SampleTask {
@@ -46,7 +54,7 @@ export interface SampleResult {
   readonly slug: string;
   readonly ion: string;
   readonly n: number;
-  readonly geometry: 'oct' | 'tet';
+  readonly geometry: Geometry;
   readonly source: 'bands' | 'spectrum';
   readonly spectrumFile?: string;
   /** The band maxima fitted, cm⁻¹, with their uncertainties (null where none was given). */
@@ -88,26 +96,64 @@ export function analyseSample(task: SampleTask): SampleOutcome {
   }
 }
 
-function cOverBOf(sample: SampleSpec): { cOverB: number; origin: string } {
-  if (sample.cOverB !== undefined) return { cOverB: sample.cOverB, origin: 'given in the sample sheet' };
-  const ratio = freeIonRatio(findIon(sample.ion));
-  return ratio !== undefined
-    ? { cOverB: ratio, origin: `free-ion ratio of ${sample.ion}` }
-    : { cOverB: DEFAULT_C_OVER_B, origin: `default ${DEFAULT_C_OVER_B}` };
+/** The sample's C/B: given in the sheet, else the ion's free-ion ratio, else the default. */
+function cOverBOf(sample: SampleSpec, ion: FreeIon): RatioChoice {
+  const given =
+    sample.cOverB === undefined ? undefined : { cOverB: sample.cOverB, origin: 'given in the sample sheet' };
+  return chooseRatio(given, ion);
+}
+
+/** How the sample's bands were fitted, and what its spectrum (if any) added. */
+interface SampleFit {
+  readonly result: FitResult;
+  readonly source: 'bands' | 'spectrum';
+  readonly spectrum?: SpectrumAnalysis;
 }
 
 function analyse(task: SampleTask): SampleResult {
   const { sample } = task;
   const ion = findIon(sample.ion);
-  const ratio = cOverBOf(sample);
-  let result: FitResult;
-  let source: 'bands' | 'spectrum';
-  let spectrumSvg: string | undefined;
-  let spectrumBands: SampleResult['spectrumBands'];
-  const cautions: string[] = [];
+  const ratio = cOverBOf(sample, ion);
+  const fit = sampleFit(task, ion, ratio);
+  const { result } = fit;
+  const best = result.solutions[0];
+  if (!best) throw new InputError(`sample "${sample.name}": the fit found no solution`);
+  const cautions = [
+    ...(fit.spectrum?.cautions ?? []),
+    ...result.warnings.map((w) => w.message),
+    ...best.warnings.map((w) => w.message),
+  ];
+  const diagram =
+    best.deltaOverB === null ? undefined : fittedDiagram(result, best, 'svg', ion.ion).toString('utf8');
+  const spectrumSvg = fit.spectrum
+    ? spectrumFigure(fit.spectrum, `termsplit spectrum ${spectrumPath(task)}`, 'svg').toString('utf8')
+    : undefined;
+  const spin = spinReport(ion.n, sample.geometry, best);
+  return {
+    ok: true,
+    name: sample.name,
+    slug: task.slug,
+    ion: ion.ion,
+    n: ion.n,
+    geometry: sample.geometry,
+    source: fit.source,
+    ...(sample.spectrum ? { spectrumFile: sample.spectrum.file } : {}),
+    observed: result.bands.map((b) => ({ energy: b.energy, sigma: b.sigma ?? null })),
+    ...(fit.spectrum ? { spectrumBands: spectrumBands(fit.spectrum) } : {}),
+    fit: fitJson(result, ion.ion, ratio.origin),
+    best: solutionJson(best),
+    series: seriesEntry(sample, ion.ion, best, spin),
+    ...(spin ? { spin } : {}),
+    cautions: [...new Set(cautions)],
+    svg: { ...(diagram ? { diagram } : {}), ...(spectrumSvg ? { spectrum: spectrumSvg } : {}) },
+  };
+}
+
+/** The fit of the sample's given bands, or of the bands found in its spectrum. */
+function sampleFit(task: SampleTask, ion: FreeIon, ratio: RatioChoice): SampleFit {
+  const { sample } = task;
   if (sample.bands) {
-    source = 'bands';
-    result = fitBands({
+    const result = fitBands({
       n: ion.n,
       geometry: sample.geometry,
       bands: sample.bands.map((b) =>
@@ -120,72 +166,81 @@ function analyse(task: SampleTask): SampleResult {
       ...(sample.spinState ? { spinState: sample.spinState } : {}),
       ...(sample.assign ? { assignments: sample.assign } : {}),
     });
-  } else if (sample.spectrum) {
-    source = 'spectrum';
-    const spec = sample.spectrum;
-    const report = analyseSpectrum(
-      resolve(task.sheetDir, spec.file),
-      {
-        ion: ion.ion,
-        geometry: sample.geometry,
-        ...(spec.range !== undefined ? { range: spec.range } : {}),
-        ...(spec.xUnit !== undefined ? { xUnit: spec.xUnit } : {}),
-        ...(spec.yUnit !== undefined ? { yUnit: spec.yUnit } : {}),
-        ...(spec.xColumn !== undefined ? { xCol: spec.xColumn } : {}),
-        ...(spec.yColumn !== undefined ? { yCol: spec.yColumn } : {}),
-        ...(spec.conc !== undefined ? { conc: String(spec.conc) } : {}),
-        ...(spec.path !== undefined ? { path: String(spec.path) } : {}),
-        ...(sample.cOverB !== undefined ? { cb: String(sample.cOverB) } : {}),
-        spinForbidden: sample.spinForbidden,
-        ...(sample.spinState ? { spinState: sample.spinState } : {}),
-        fitC: sample.fitC,
-      },
-      memoryIo(dirname(resolve(task.sheetDir, spec.file))),
-    );
-    if (!report.fit || !('result' in report.fit)) {
-      throw new InputError(
-        `spectrum ${spec.file}: ${report.fit && 'failure' in report.fit ? report.fit.failure : 'no fit'}`,
-      );
-    }
-    result = report.fit.result;
-    spectrumSvg = spectrumFigure(report, 'svg').toString('utf8');
-    spectrumBands = report.analysis.bands.map((b) => ({
-      number: b.number,
-      center: b.center,
-      fwhm: b.fwhm,
-      flags: b.flags,
-    }));
-    cautions.push(...report.cautions);
-  } else {
-    throw new InputError(`sample "${sample.name}": no bands and no spectrum`);
+    return { result, source: 'bands' };
   }
-  const best = result.solutions[0];
-  if (!best) throw new InputError(`sample "${sample.name}": the fit found no solution`);
-  cautions.push(...result.warnings.map((w) => w.message), ...best.warnings.map((w) => w.message));
-  const diagram =
-    best.deltaOverB === null ? undefined : fittedDiagram(result, best, 'svg', ion.ion).toString('utf8');
-  const spin = spinReport(ion.n, sample.geometry, best);
-  return {
-    ok: true,
-    name: sample.name,
-    slug: task.slug,
-    ion: ion.ion,
-    n: ion.n,
-    geometry: sample.geometry,
-    source,
-    ...(sample.spectrum ? { spectrumFile: sample.spectrum.file } : {}),
-    observed: result.bands.map((b) => ({ energy: b.energy, sigma: b.sigma ?? null })),
-    ...(spectrumBands ? { spectrumBands } : {}),
-    fit: fitJson(result, ion.ion, ratio.origin),
-    best: solutionJson(best),
-    series: seriesEntry(sample, ion.ion, best, spin),
-    ...(spin ? { spin } : {}),
-    cautions: [...new Set(cautions)],
-    svg: { ...(diagram ? { diagram } : {}), ...(spectrumSvg ? { spectrum: spectrumSvg } : {}) },
-  };
+  if (!sample.spectrum) throw new InputError(`sample "${sample.name}": no bands and no spectrum`);
+  const spectrum = sampleSpectrum(task, ion, sample.geometry, ratio);
+  if (!spectrum.fit || !('result' in spectrum.fit)) {
+    throw new InputError(
+      `spectrum ${sample.spectrum.file}: ${spectrum.fit && 'failure' in spectrum.fit ? spectrum.fit.failure : 'no fit'}`,
+    );
+  }
+  return { result: spectrum.fit.result, source: 'spectrum', spectrum };
 }
 
-function spinReport(n: number, geometry: 'oct' | 'tet', best: FitSolution): SpinReport | undefined {
+/** The full path of the sample's spectrum file (relative paths are the sheet's). */
+function spectrumPath(task: SampleTask): string {
+  return resolve(task.sheetDir, task.sample.spectrum?.file ?? '');
+}
+
+/** The library's spectrum analysis of the sample's spectrum, fitted at the sample's C/B. */
+function sampleSpectrum(
+  task: SampleTask,
+  ion: FreeIon,
+  geometry: Geometry,
+  ratio: RatioChoice,
+): SpectrumAnalysis {
+  const { sample } = task;
+  const spec = sample.spectrum;
+  if (!spec) throw new InputError(`sample "${sample.name}": no spectrum`);
+  const xUnit = spec.xUnit === undefined ? undefined : parseXUnit(spec.xUnit);
+  const yUnit = spec.yUnit === undefined ? undefined : parseYUnit(spec.yUnit);
+  if ((spec.conc === undefined) !== (spec.path === undefined)) {
+    throw new InputError('give both --conc (mol/L) and --path (cm) to turn absorbance into ε');
+  }
+  const range = spec.range === undefined ? undefined : parseRange(spec.range);
+  const file = spectrumPath(task);
+  const text = readTextFile(file);
+  try {
+    return analyseSpectrum(text, {
+      fileName: file,
+      ...(spec.xColumn !== undefined ? { xColumn: spec.xColumn } : {}),
+      ...(spec.yColumn !== undefined ? { yColumn: spec.yColumn } : {}),
+      ...(xUnit ? { xUnit } : {}),
+      ...(yUnit ? { yUnit } : {}),
+      ...(spec.conc !== undefined && spec.path !== undefined
+        ? { concentration: spec.conc, pathLength: spec.path }
+        : {}),
+      ...(range ? { range } : {}),
+      baseline: DEFAULT_BASELINE,
+      includeChargeTransfer: false,
+      fit: {
+        n: ion.n,
+        geometry,
+        ion,
+        ratio,
+        fitC: sample.fitC,
+        includeSpinForbidden: sample.spinForbidden,
+        ...(sample.spinState ? { spinState: sample.spinState } : {}),
+      },
+    });
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError(`${file}: ${e.message}`);
+    throw e;
+  }
+}
+
+/** The bands found in a spectrum, as the report lists them. */
+function spectrumBands(spectrum: SpectrumAnalysis): SampleResult['spectrumBands'] {
+  return spectrum.analysis.bands.map((b) => ({
+    number: b.number,
+    center: b.center,
+    fwhm: b.fwhm,
+    flags: b.flags,
+  }));
+}
+
+function spinReport(n: number, geometry: Geometry, best: FitSolution): SpinReport | undefined {
   if (best.deltaOverB === null) return undefined;
   const { analysis, verdict } = fitSpinVerdict(n, geometry, best);
   if (analysis.crossings.length === 0) return undefined;

@@ -1,6 +1,7 @@
+import { BAND_CEILING } from '../../src/core/defaults.js';
 import { cmToNm, unicodeIon, unicodeLabel } from '../../src/index.js';
-import { withError } from '../commands/fit.js';
 import { fixed } from '../format.js';
+import { withError } from '../present/fitPresent.js';
 import type { SampleResult } from './analyse.js';
 import type { ReportModel } from './model.js';
 
@@ -239,7 +240,7 @@ function sampleBlocks(s: SampleResult): Block[] {
     csv: files.predicted,
     headers: ['level', 'energy / cm⁻¹', 'λ / nm', 'spin', 'observed'],
     rows: b.predicted
-      .filter((p) => p.energy <= 50000)
+      .filter((p) => p.energy <= BAND_CEILING)
       .map((p) => [
         unicodeLabel(p.label),
         fixed(p.energy),

@@ -1,4 +1,5 @@
 import { halfIntegerText } from '../atom/terms.js';
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { solveCubic } from '../field/cubic.js';
 import { type Geometry, unicodeLabel } from '../field/labels.js';
@@ -32,7 +33,7 @@ export const NEAR_CROSSOVER_PERCENT = 10;
 /** Input of {@link crossoverAnalysis}: the ion's dⁿ, geometry and Racah parameters (cm⁻¹). */
 export interface CrossoverInput {
   readonly n: number;
-  /** @default 'oct' */
+  /** @default DEFAULT_GEOMETRY ('oct') */
   readonly geometry?: Geometry;
   readonly B: number;
   readonly C: number;
@@ -80,7 +81,7 @@ export interface CrossoverAnalysis {
  * @throws InputError for n outside 1…9, an unknown geometry, B ≤ 0 (n = 2…8) or C < 0.
  */
 export function crossoverAnalysis(input: CrossoverInput, options: CrossoverOptions = {}): CrossoverAnalysis {
-  const { n, geometry = 'oct', B, C } = input;
+  const { n, geometry = DEFAULT_GEOMETRY, B, C } = input;
   const maxDeltaOverB = options.maxDeltaOverB ?? CROSSING_DEFAULTS.maxDeltaOverB;
   ensure(geometry === 'oct' || geometry === 'tet', `geometry "${geometry}": expected oct or tet`);
   const where = geometry === 'oct' ? 'octahedral' : 'tetrahedral';

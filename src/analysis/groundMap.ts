@@ -1,3 +1,4 @@
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { solveCubic } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
@@ -23,7 +24,7 @@ export const GROUND_MAP_DEFAULTS = {
 
 /** Options of {@link groundStateMap}. */
 export interface GroundMapOptions {
-  /** @default 'oct' */
+  /** @default DEFAULT_GEOMETRY ('oct') */
   readonly geometry?: Geometry;
   /** Right edge of the map in Δ/B. @default 50 */
   readonly maxDeltaOverB?: number;
@@ -76,7 +77,7 @@ export interface GroundStateMap {
 export function groundStateMap(n: number, options: GroundMapOptions = {}): GroundStateMap {
   const d = GROUND_MAP_DEFAULTS;
   const {
-    geometry = 'oct',
+    geometry = DEFAULT_GEOMETRY,
     maxDeltaOverB = d.maxDeltaOverB,
     minCOverB = d.minCOverB,
     maxCOverB = d.maxCOverB,

@@ -1,3 +1,4 @@
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { type CubicResult, cubicLevels } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
@@ -30,7 +31,7 @@ export interface GroundCrossing {
 /** Input of {@link groundStateCrossings}. */
 export interface CrossingInput {
   readonly n: number;
-  /** @default 'oct' */
+  /** @default DEFAULT_GEOMETRY ('oct') */
   readonly geometry?: Geometry;
   readonly B: number;
   readonly C: number;
@@ -55,7 +56,7 @@ function lowestOfSpin(result: CubicResult, S: number): number {
  * Empty for dⁿ without one in that range (d¹–d³, d⁸, d⁹; and in Td for real B).
  */
 export function groundStateCrossings(input: CrossingInput): GroundCrossing[] {
-  const { n, geometry = 'oct', B, C } = input;
+  const { n, geometry = DEFAULT_GEOMETRY, B, C } = input;
   const maxDeltaOverB = input.maxDeltaOverB ?? CROSSING_DEFAULTS.maxDeltaOverB;
   const scanPoints = input.scanPoints ?? CROSSING_DEFAULTS.scanPoints;
   const dqTolerance = input.dqTolerance ?? CROSSING_DEFAULTS.dqTolerance;

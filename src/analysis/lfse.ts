@@ -1,3 +1,4 @@
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { configurationText, type Geometry } from '../field/labels.js';
 
@@ -90,7 +91,7 @@ function arrangement(
  * tetrahedral d³–d⁶ have both; every other case has one.
  * @throws InputError for n outside 1…9 or an unknown geometry.
  */
-export function oneElectronStates(n: number, geometry: Geometry = 'oct'): OneElectronStates {
+export function oneElectronStates(n: number, geometry: Geometry = DEFAULT_GEOMETRY): OneElectronStates {
   ensure(
     Number.isInteger(n) && n >= 1 && n <= 9,
     `d-electron count ${n}: expected a whole number from 1 to 9`,
@@ -130,7 +131,7 @@ const PAIRING_COEFFICIENTS: Readonly<Record<number, { readonly B: number; readon
 /** Π as a multiple of B and C for dⁿ in a geometry (see {@link pairingEnergy}), or undefined without a spin choice. */
 export function pairingCoefficients(
   n: number,
-  geometry: Geometry = 'oct',
+  geometry: Geometry = DEFAULT_GEOMETRY,
 ): { readonly B: number; readonly C: number } | undefined {
   return PAIRING_COEFFICIENTS[geometry === 'oct' ? n : 10 - n];
 }

@@ -1,3 +1,4 @@
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { DEFAULT_C_OVER_B, MAX_C_OVER_B } from '../core/ions.js';
 import { cubicLevels } from '../field/cubic.js';
@@ -34,7 +35,7 @@ export const MAX_SWEEP_POINTS = 100_000;
 
 /** Options of {@link sweepDiagram}. */
 export interface SweepOptions {
-  /** Octahedral or tetrahedral field. @default 'oct' */
+  /** Octahedral or tetrahedral field. @default DEFAULT_GEOMETRY ('oct') */
   readonly geometry?: Geometry;
   /**
    * C/B held fixed along the sweep (for a named ion, its free-ion ratio, see `freeIonRatio`).
@@ -118,7 +119,7 @@ export interface CorrelationDiagram {
  * 2…{@link MAX_SWEEP_POINTS}.
  */
 export function sweepDiagram(n: number, options: SweepOptions = {}): CorrelationDiagram {
-  const geometry = options.geometry ?? 'oct';
+  const geometry = options.geometry ?? DEFAULT_GEOMETRY;
   const cOverB = options.cOverB ?? DEFAULT_C_OVER_B;
   const maxDeltaOverB = options.maxDeltaOverB ?? DEFAULT_MAX_DELTA_OVER_B;
   const points = options.points ?? DEFAULT_SWEEP_POINTS;

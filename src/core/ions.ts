@@ -78,11 +78,8 @@ export function findIon(name: string): FreeIon {
   throw new InputError(`unknown ion "${name}": expected one of ${FREE_IONS.map((i) => i.ion).join(', ')}`);
 }
 
-/**
- * The default C/B when none is given: the free ion's own ratio, else 4.5 (a usual middle value
- * for 3d ions, common practice, no source).
- */
-export const DEFAULT_C_OVER_B = 4.5;
+/** The default C/B when none is given and the ion has no free-ion ratio (see core/defaults). */
+export { DEFAULT_C_OVER_B } from './defaults.js';
 
 /** Largest C/B accepted anywhere: 3d ions have 3–6; beyond 100 nothing is physical. */
 export const MAX_C_OVER_B = 100;

@@ -1,4 +1,5 @@
 import { freeIonTerms } from '../atom/freeIon.js';
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { bilinear, clusterSorted, column, symmetricEigen } from '../numeric/eigen.js';
 import { adaptedBlocks } from './cubicBasis.js';
@@ -9,7 +10,7 @@ import { branchTerm, CUBIC_IRREPS, type CubicIrrep, decomposeCubic, IRREP_DIMENS
 export interface CubicInput {
   /** Number of d electrons, 1…9. */
   readonly n: number;
-  /** Octahedral or tetrahedral field. @default 'oct' */
+  /** Octahedral or tetrahedral field. @default DEFAULT_GEOMETRY ('oct') */
   readonly geometry?: Geometry;
   /** Dq ≥ 0 (10Dq = Δo in Oh, Δt in Td). */
   readonly dq: number;
@@ -83,7 +84,7 @@ export interface CubicResult {
  * @throws InputError for n outside 1…9 or a negative or non-finite Dq, B or C.
  */
 export function solveCubic(input: CubicInput): CubicResult {
-  const { n, geometry = 'oct', dq, B, C } = input;
+  const { n, geometry = DEFAULT_GEOMETRY, dq, B, C } = input;
   ensure(
     Number.isInteger(n) && n >= 1 && n <= 9,
     `d-electron count ${n}: expected a whole number from 1 to 9`,

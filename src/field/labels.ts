@@ -5,8 +5,9 @@ import type { CubicIrrep } from './symmetry.js';
  * `t2g^2 eg^1`) and in Unicode for human output (`⁴T₁g(F)`, `t₂g² eg¹`).
  */
 
-/** Octahedral (Oh) or tetrahedral (Td) ligand field. */
-export type Geometry = 'oct' | 'tet';
+import type { Geometry } from '../core/geometry.js';
+
+export type { Geometry };
 
 /** Irrep name in the geometry: `T2g` in Oh (d functions are gerade), `T2` in Td. */
 export function irrepName(irrep: CubicIrrep, geometry: Geometry): string {

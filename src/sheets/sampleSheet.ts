@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { InputError } from '../core/errors.js';
 import { findIon } from '../core/ions.js';
 import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
@@ -259,7 +260,7 @@ function checkSample(
     sample: {
       name: s.name,
       ion,
-      geometry: s.geometry ?? defaults.geometry ?? 'oct',
+      geometry: s.geometry ?? defaults.geometry ?? DEFAULT_GEOMETRY,
       ...(bands ? { bands } : {}),
       ...(spectrum ? { spectrum } : {}),
       ...(cOverB !== undefined ? { cOverB } : {}),

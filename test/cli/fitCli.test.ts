@@ -1,8 +1,9 @@
 import { spawnSync } from 'node:child_process';
 import { resolve } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { splitLabels, withError } from '../../cli/commands/fit.js';
 import { memoryIo } from '../../cli/io.js';
+import { splitLabels } from '../../cli/options.js';
+import { withError } from '../../cli/present/fitPresent.js';
 import { run } from '../../cli/program.js';
 import { ensureBuilt } from '../cliRunner.js';
 

@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { parse } from 'parse5';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { slugs } from '../../cli/commands/report.js';
+import { slugs } from '../../cli/report/runReport.js';
 import { ROOT, runInProcess } from '../cliRunner.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'termsplit-report-'));

@@ -1,0 +1,217 @@
+/**
+ * The fit of band maxima as people and programs read it: the JSON form of a fit and of each
+ * solution, the human text with the best solution, its assignments, alternatives and predicted
+ * bands, and values written with their standard errors. Shared by the fit and spectrum commands
+ * and the report.
+ */
+
+import { BAND_CEILING } from '../../src/core/defaults.js';
+import { cmToNm, type FitResult, type FitSolution, unicodeLabel } from '../../src/index.js';
+import { fixed, table } from '../format.js';
+
+/** Whether only Dq was fitted (d¹, d⁹). */
+function single(s: FitSolution): boolean {
+  return s.parameters.length === 1 && !s.bHeld;
+}
+
+/** JSON form of one solution (the solver's full levels left out). */
+export function solutionJson(s: FitSolution) {
+  return {
+    rank: s.rank,
+    dq: s.dq,
+    tenDq: s.tenDq,
+    B: single(s) ? null : s.B,
+    C: single(s) ? null : s.C,
+    cOverB: s.cOverB,
+    cFitted: s.cFitted,
+    bHeld: s.bHeld,
+    deltaOverB: s.deltaOverB,
+    beta: s.beta,
+    rms: s.rms,
+    weightedRms: s.weightedRms,
+    chiSquare: s.chiSquare,
+    dof: s.dof,
+    converged: s.converged,
+    reason: s.reason,
+    reasonText: s.reasonText,
+    iterations: s.iterations,
+    errors: s.errors,
+    errorBasis: s.errorBasis,
+    errorNote: s.errorNote,
+    parameters: s.parameters,
+    covariance: s.covariance,
+    ground: s.ground,
+    assignments: s.assignments.map((a) => ({
+      band: a.band,
+      observed: a.observed,
+      sigma: a.sigma,
+      calculated: a.calculated,
+      difference: a.difference,
+      label: a.label,
+      spinAllowed: a.spinAllowed,
+    })),
+    predicted: s.predicted.map((p) => ({
+      label: p.label,
+      energy: p.energy,
+      wavelength: p.energy > 0 ? cmToNm(p.energy) : null,
+      spinAllowed: p.spinAllowed,
+      band: p.band,
+    })),
+    warnings: s.warnings,
+  };
+}
+
+/** A value with its standard error, both to two significant digits of the error. */
+export function withError(value: number, error: number | null, digits = 0): string {
+  if (error === null || !(error > 0)) return fixed(value, digits);
+  const d = Math.min(6, Math.max(0, 1 - Math.floor(Math.log10(error))));
+  return `${fixed(value, d)} ± ${fixed(error, d)}`;
+}
+
+function solutionSummary(s: FitSolution): string {
+  const beta = s.beta === null ? '' : `, β ${fixed(s.beta, 2)}`;
+  const assigned = s.assignments
+    .map((a) => `${fixed(a.observed)} → ${unicodeLabel(a.label)}${a.spinAllowed ? '' : ' (spin-forbidden)'}`)
+    .join(', ');
+  const flags = s.warnings
+    .filter((w) => w.code === 'beta-above-one' || w.code === 'range-edge' || w.code === 'not-converged')
+    .map((w) => w.code);
+  return (
+    `#${s.rank}  Dq ${fixed(s.dq)}, 10Dq ${fixed(s.tenDq)}${single(s) ? '' : `, B ${fixed(s.B)}`}${beta}, ` +
+    `rms ${fixed(s.rms)} cm⁻¹: ${assigned}${flags.length > 0 ? `  [${flags.join(', ')}]` : ''}`
+  );
+}
+
+/** The JSON form of a fit result (solutions best first). */
+export function fitJson(result: FitResult, ion: string | undefined, cOrigin: string) {
+  return {
+    ...(ion ? { ion } : {}),
+    n: result.n,
+    geometry: result.geometry,
+    cOverB: result.cOverB,
+    cOrigin,
+    fitC: result.fitC,
+    freeIon: result.freeIon,
+    bands: result.bands.map((b) => ({ energy: b.energy, sigma: b.sigma ?? null })),
+    weighting: result.weighting,
+    tried: result.tried,
+    refined: result.refined,
+    omitted: result.omitted,
+    solutions: result.solutions.map(solutionJson),
+    warnings: result.warnings,
+  };
+}
+
+/** The human form of a fit result. */
+export function fitText(result: FitResult, ion: string | undefined, cOrigin: string): string {
+  const best = result.solutions[0];
+  if (!best) throw new Error('fit returned no solution');
+  const geometryName = result.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
+  const lines: string[] = [];
+  const bandList = result.bands
+    .map((b) => `${fixed(b.energy)}${b.sigma === undefined ? '' : `±${fixed(b.sigma)}`}`)
+    .join(', ');
+  lines.push(
+    `Fit of ${ion ? `${ion} (d${result.n})` : `d${result.n}`}, ${geometryName}, to ${result.bands.length} band${result.bands.length === 1 ? '' : 's'}: ${bandList} cm⁻¹`,
+  );
+  const cLine = single(best)
+    ? 'only Dq enters (one d electron or hole)'
+    : best.bHeld
+      ? `B held at ${fixed(best.B)} cm⁻¹ (given) and C/B at ${fixed(result.cOverB, 2)} (${cOrigin}); only Dq fitted`
+      : result.fitC && best.cFitted
+        ? `C fitted, starting from C/B ${fixed(result.cOverB, 2)} (${cOrigin})`
+        : result.fitC
+          ? `C asked to be fitted, but no assigned band depends on it: held at C/B ${fixed(result.cOverB, 2)} (${cOrigin})`
+          : `C/B held at ${fixed(result.cOverB, 2)} (${cOrigin})`;
+  lines.push(
+    `${cLine}; bands weighted ${result.weighting === 'given' ? 'by their given uncertainties' : 'equally (no uncertainties given)'}`,
+  );
+  lines.push(
+    `${result.tried} assignment${result.tried === 1 ? '' : 's'} tried on the Δ/B scan, ${result.refined} starting point${result.refined === 1 ? '' : 's'} refined by least squares, ` +
+      `${result.solutions.length} solution${result.solutions.length === 1 ? '' : 's'} shown` +
+      `${result.omitted > 0 ? ` (and ${result.omitted} more that fit nearly as well)` : ''}.`,
+  );
+  lines.push('');
+  lines.push(`Best solution${result.solutions.length > 1 ? ` (1 of ${result.solutions.length})` : ''}:`);
+  const e = best.errors;
+  lines.push(
+    `  Dq   = ${withError(best.dq, e.dq, 1)} cm⁻¹   (10Dq = Δ = ${withError(best.tenDq, e.tenDq)} cm⁻¹)`,
+  );
+  if (!single(best)) {
+    lines.push(`  B    = ${withError(best.B, e.B)} cm⁻¹${best.bHeld ? '   (held)' : ''}`);
+    lines.push(
+      best.cFitted
+        ? `  C    = ${withError(best.C, e.C)} cm⁻¹   (C/B = ${withError(best.cOverB ?? 0, e.cOverB, 2)})`
+        : `  C    = ${fixed(best.C)} cm⁻¹   (held at C/B ${fixed(best.cOverB ?? 0, 2)})`,
+    );
+    if (best.beta !== null && result.freeIon) {
+      lines.push(
+        `  β    = ${withError(best.beta, e.beta, 3)}   (B / free-ion B = ${fixed(result.freeIon.B)} cm⁻¹ of ${ion ?? 'the ion'})`,
+      );
+      if (result.freeIon.source) lines.push(`         free-ion B: ${result.freeIon.source}`);
+    }
+    lines.push(`  Δ/B  = ${withError(best.deltaOverB ?? 0, e.deltaOverB, 2)}`);
+  }
+  lines.push(
+    `  rms  = ${fixed(best.rms)} cm⁻¹ (${result.bands.length} band${result.bands.length === 1 ? '' : 's'}, ` +
+      `${best.dof} degree${best.dof === 1 ? '' : 's'} of freedom)`,
+  );
+  lines.push(`  errors: ${best.errorNote}`);
+  lines.push(
+    `  ${best.converged ? 'converged' : 'NOT converged'}: ${best.reasonText} (${best.iterations} iteration${best.iterations === 1 ? '' : 's'})`,
+  );
+  lines.push('');
+  lines.push(
+    table(
+      ['band', 'observed cm⁻¹', 'nm', 'calculated cm⁻¹', 'obs − calc', 'assigned to', 'spin'],
+      best.assignments.map((a) => [
+        String(a.band + 1),
+        a.sigma === null ? fixed(a.observed) : `${fixed(a.observed)}±${fixed(a.sigma)}`,
+        fixed(cmToNm(a.observed), 1),
+        fixed(a.calculated),
+        fixed(Math.abs(a.difference) < 0.5 ? 0 : a.difference),
+        unicodeLabel(a.label),
+        a.spinAllowed ? 'allowed' : 'forbidden',
+      ]),
+    ),
+  );
+  lines.push('');
+  const alternatives = result.solutions.slice(1);
+  if (alternatives.length === 0) {
+    lines.push(
+      result.tried === 1
+        ? 'Alternatives: none (this was the only assignment to try).'
+        : 'Alternatives: none fits nearly as well.',
+    );
+  } else {
+    lines.push('Alternatives that fit nearly as well:');
+    for (const s of alternatives) lines.push(`  ${solutionSummary(s)}`);
+    if (result.omitted > 0) lines.push(`  … and ${result.omitted} more that fit nearly as well (not shown)`);
+  }
+  lines.push('');
+  const shown = best.predicted.filter((p) => p.energy <= BAND_CEILING);
+  lines.push(
+    `Predicted bands of the best solution (from the ground state ${unicodeLabel(best.ground)}, up to ${BAND_CEILING} cm⁻¹):`,
+  );
+  lines.push(
+    table(
+      ['level', 'cm⁻¹', 'nm', 'spin', 'observed'],
+      shown.map((p) => [
+        unicodeLabel(p.label),
+        fixed(p.energy),
+        fixed(cmToNm(p.energy), 1),
+        p.spinAllowed ? 'allowed' : 'forbidden',
+        p.band === null ? '' : `band ${p.band + 1}`,
+      ]),
+    ),
+  );
+  const warnings = [...best.warnings, ...result.warnings];
+  if (warnings.length > 0) {
+    lines.push('');
+    lines.push('Warnings and cautions:');
+    for (const w of warnings) lines.push(`  - ${w.message}`);
+  }
+  lines.push('');
+  lines.push('These are model results for an ideal cubic field; the spectrum and other measurements decide.');
+  return `${lines.join('\n')}\n`;
+}

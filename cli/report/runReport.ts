@@ -1,0 +1,173 @@
+/**
+ * A whole report run: reads and checks the sample sheet, analyses the samples (in worker threads
+ * where that helps), builds the report model and writes the folder — HTML, Markdown, CSV tables,
+ * JSON and figures — all or nothing. Shared by the report and demo commands.
+ */
+
+import { existsSync } from 'node:fs';
+import { dirname, extname, resolve } from 'node:path';
+import { renderTrend } from '../../charts/series.js';
+import {
+  InputError,
+  parseSampleSheet,
+  type SampleSheet,
+  type SheetFormat,
+  type SheetProblem,
+} from '../../src/index.js';
+import { readTextFile } from '../files.js';
+import { jsonText } from '../format.js';
+import type { Io } from '../io.js';
+import { VERSION } from '../version.js';
+import type { SampleOutcome, SampleTask } from './analyse.js';
+import { reportBlocks, SERIES_FILES, sampleFiles } from './document.js';
+import { toCsv, toHtml, toMarkdown } from './formats.js';
+import { type ReportModel, reportModel } from './model.js';
+import { runSamples } from './run.js';
+import { REPORT_GENERATOR, writeReportFolder } from './write.js';
+
+/** A checked report job: where to write, and how many worker threads (default: the cores, at most 4). */
+export interface ReportJob {
+  readonly output: string;
+  readonly jobs?: number;
+}
+
+/** The format of a sheet file: by extension, else by its first character. */
+function sheetFormat(path: string, text: string): SheetFormat {
+  const ext = extname(path).toLowerCase();
+  if (ext === '.json') return 'json';
+  if (ext === '.csv') return 'csv';
+  return text.trimStart().startsWith('{') ? 'json' : 'csv';
+}
+
+/** File-name stems of the samples: lower-case letters and digits, unique. */
+export function slugs(names: readonly string[]): string[] {
+  const used = new Set<string>();
+  return names.map((name) => {
+    const base =
+      name
+        .toLowerCase()
+        .replace(/[^a-z0-9]+/g, '-')
+        .replace(/^-+|-+$/g, '') || 'sample';
+    let slug = base;
+    for (let k = 2; used.has(slug); k++) slug = `${base}-${k}`;
+    used.add(slug);
+    return slug;
+  });
+}
+
+/** The checks a sheet needs from the file system: each spectrum file must exist. */
+function missingSpectra(sheet: SampleSheet, dir: string): { sheet: SampleSheet; problems: SheetProblem[] } {
+  const problems: SheetProblem[] = [];
+  const samples = sheet.samples.filter((s) => {
+    if (!s.spectrum) return true;
+    const path = resolve(dir, s.spectrum.file);
+    if (existsSync(path)) return true;
+    problems.push({ sample: s.name, field: 'spectrum.file', message: `no such file: ${s.spectrum.file}` });
+    return false;
+  });
+  return { sheet: { ...sheet, samples }, problems };
+}
+
+/** The report's outcome: the model, where it was written, and the exit code. */
+export interface ReportRun {
+  readonly model: ReportModel;
+  readonly dir: string;
+  readonly files: readonly string[];
+}
+
+/**
+ * Runs the report: reads and checks the sheet, analyses the samples (in parallel where that
+ * helps), and writes the folder. Exit code rule: 0 when at least one sample was reported (the
+ * others are listed as problems, on stderr and in the report); an InputError (exit 2) when the
+ * sheet is unreadable or no sample could be reported — then nothing is written. `sheetLabel`
+ * names the sheet in the report.
+ */
+export async function runReport(
+  sheetPath: string,
+  job: ReportJob,
+  io: Io,
+  sheetLabel: string = sheetPath,
+): Promise<ReportRun> {
+  const { jobs } = job;
+  const full = resolve(io.cwd, sheetPath);
+  const text = readTextFile(full);
+  const parsed = parseSampleSheet(text, sheetFormat(full, text));
+  const sheetDir = dirname(full);
+  const { sheet, problems } = missingSpectra(parsed, sheetDir);
+  const dir = resolve(io.cwd, job.output);
+  const names = sheet.samples.map((s) => s.name);
+  const stems = slugs(names);
+  const tasks: SampleTask[] = sheet.samples.map((sample, i) => ({
+    sample,
+    sheetDir,
+    slug: stems[i] ?? `sample-${i + 1}`,
+  }));
+  const outcomes: SampleOutcome[] = tasks.length > 0 ? await runSamples(tasks, io, jobs ? { jobs } : {}) : [];
+  const model = reportModel(
+    { ...sheet, problems: [...sheet.problems, ...problems] },
+    sheetLabel,
+    outcomes,
+    VERSION,
+    new Date().toISOString().slice(0, 10),
+  );
+  for (const p of model.problems)
+    io.err(
+      `termsplit: sample "${p.sample}": ${p.field === 'analysis' ? '' : `field "${p.field}": `}${p.message}\n`,
+    );
+  if (model.samples.length === 0) {
+    throw new InputError(
+      `no sample of ${sheetPath} could be reported (${model.problems.length} problem${model.problems.length === 1 ? '' : 's'}, listed above)`,
+    );
+  }
+  const files = reportFiles(model);
+  writeReportFolder(dir, files);
+  return { model, dir, files: [...files.keys()] };
+}
+
+/** Every file of the report folder, by relative path. */
+function reportFiles(model: ReportModel): Map<string, string> {
+  const trends =
+    model.series.length >= 2
+      ? {
+          tenDq: renderTrend(model.series, 'tenDq', { format: 'svg' }).toString('utf8'),
+          beta: renderTrend(model.series, 'beta', { format: 'svg' }).toString('utf8'),
+        }
+      : undefined;
+  const blocks = reportBlocks(model, trends);
+  const files = new Map<string, string>();
+  files.set('report.md', toMarkdown(blocks));
+  files.set('report.html', toHtml(blocks, model.title));
+  for (const b of blocks) {
+    if (b.kind === 'table') files.set(b.csv, toCsv(b));
+    if (b.kind === 'figure') files.set(b.path, b.svg);
+  }
+  files.set('report.json', jsonText(reportJson(model)));
+  return files;
+}
+
+/** The JSON of the report: everything but the figures' SVG text, which are files. */
+export function reportJson(model: ReportModel) {
+  return {
+    generator: REPORT_GENERATOR,
+    version: model.version,
+    date: model.date,
+    title: model.title,
+    invented: model.invented,
+    ...(model.about ? { about: model.about } : {}),
+    sheet: model.sheet,
+    series: model.series,
+    orders: model.orders,
+    samples: model.samples.map(({ svg, ...rest }) => ({
+      ...rest,
+      figures: {
+        ...(svg.diagram ? { diagram: sampleFiles(rest.slug).diagram } : {}),
+        ...(svg.spectrum ? { spectrum: sampleFiles(rest.slug).spectrum } : {}),
+      },
+    })),
+    problems: model.problems,
+    methods: model.methods,
+    references: model.references,
+    cautions: model.cautions,
+    ...(model.series.length >= 2 ? { figures: { tenDq: SERIES_FILES.tenDq, beta: SERIES_FILES.beta } } : {}),
+  };
+}
