@@ -1,7 +1,13 @@
+/**
+ * `termsplit diagram`: checks the configuration, C/B, Δ/B range, sample and output paths into one
+ * diagram job, sweeps the correlation diagram with the library, writes the figure and curve data
+ * all or nothing, and prints a summary or the JSON.
+ */
+
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { renderDiagram } from '../../charts/diagram.js';
-import { formatOfPath } from '../../charts/render.js';
+import { type FigureFormat, formatOfPath } from '../../charts/render.js';
 import { type SampleMark, samplePosition } from '../../charts/sampleOverlay.js';
 import {
   type CorrelationDiagram,
@@ -10,12 +16,11 @@ import {
   diagramCautions,
   diagramCsv,
   diagramJson,
-  findIon,
+  type FreeIon,
   type Geometry,
   halfIntegerText,
   InputError,
   MAX_SWEEP_POINTS,
-  parseConfiguration,
   parseEnergyList,
   sweepDiagram,
   unicodeLabel,
@@ -23,7 +28,14 @@ import {
 import { writeFilesAtomic } from '../files.js';
 import { fixed, jsonText } from '../format.js';
 import { type Io, progress } from '../io.js';
-import { geometryOption, numberOption, ratioChoice } from '../options.js';
+import {
+  cbHelp,
+  configOrIon,
+  GEOMETRY_OPTION,
+  geometryOption,
+  numberOption,
+  ratioChoice,
+} from '../options.js';
 
 /** Options of `termsplit diagram`, as commander hands them over. */
 export interface DiagramOptions {
@@ -49,8 +61,8 @@ export function registerDiagram(program: Command, io: Io): void {
     .description('correlation (Tanabe–Sugano-style) diagram of dⁿ at a chosen C/B: figure and curve data')
     .argument('[config]', 'the d configuration, e.g. d6 (optional with --ion)')
     .option('--ion <name>', 'the metal ion, e.g. Fe2+ (gives n and the free-ion C/B)')
-    .option('--geometry <oct|tet>', 'octahedral or tetrahedral', 'oct')
-    .option('--cb <ratio>', 'C/B of the diagram (default: the free-ion ratio of the ion, else 4.5)')
+    .option(...GEOMETRY_OPTION)
+    .option('--cb <ratio>', cbHelp('C/B of the diagram'))
     .option('--C <cm-1>', "the sample's Racah C instead of --cb (with --B)")
     .option('--max <Δ/B>', 'largest Δ/B', String(DEFAULT_MAX_DELTA_OVER_B))
     .option('--points <n>', 'number of Δ/B values from 0 to --max', String(DEFAULT_SWEEP_POINTS))
@@ -87,35 +99,32 @@ function sampleFromOptions(opts: DiagramOptions): Sample | undefined {
   return { ...mark, ...samplePosition(mark) };
 }
 
-/** The d-electron count and ion from the configuration argument and/or --ion. */
-function countFromArguments(configText: string | undefined, ionText: string | undefined) {
-  const ion = ionText === undefined ? undefined : findIon(ionText);
-  if (configText === undefined) {
-    if (!ion) throw new InputError('give the configuration (e.g. d6) or the ion (--ion Fe2+)');
-    return { n: ion.n, ion };
-  }
-  const config = parseConfiguration(/^\d$/.test(configText.trim()) ? `d${configText.trim()}` : configText);
-  if (config.l !== 2)
-    throw new InputError(`configuration ${config.text}: expected a d configuration such as d6`);
-  if (config.n < 1 || config.n > 9) throw new InputError(`configuration ${config.text}: expected d1 to d9`);
-  if (ion && ion.n !== config.n) {
-    throw new InputError(`configuration ${config.text} disagrees with --ion ${ion.ion}, which is d${ion.n}`);
-  }
-  return ion ? { n: config.n, ion } : { n: config.n };
-}
-
 function dataFormat(path: string): 'csv' | 'json' {
   const ext = /\.([^./\\]+)$/.exec(path)?.[1]?.toLowerCase();
   if (ext === 'csv' || ext === 'json') return ext;
   throw new InputError(`--data "${path}": expected a .csv or .json extension`);
 }
 
-/**
- * Runs the command and returns what goes on stdout; files are written only once everything has
- * been computed, and removed again if a later one cannot be written, so bad input leaves none.
- */
-export function diagramCommand(configText: string | undefined, opts: DiagramOptions, io: Io): string {
-  const { n, ion } = countFromArguments(configText, opts.ion);
+/** The command's options checked into one diagram job. */
+interface DiagramJob {
+  readonly n: number;
+  readonly ion?: FreeIon;
+  readonly geometry: Geometry;
+  readonly cOverB: number;
+  readonly cOrigin: string;
+  readonly maxDeltaOverB: number;
+  readonly points: number;
+  readonly eMax?: number;
+  readonly sample?: Sample;
+  readonly figurePath?: string;
+  readonly figureFormat?: FigureFormat;
+  readonly dataPath?: string;
+  readonly dataKind?: 'csv' | 'json';
+}
+
+/** Checks the configuration, C/B, range, sample and output paths. */
+function diagramJob(configText: string | undefined, opts: DiagramOptions, io: Io): DiagramJob {
+  const { n, ion } = configOrIon(configText, opts.ion);
   const geometry: Geometry = geometryOption(opts.geometry);
   const sample = sampleFromOptions(opts);
   const ratio = ratioChoice(sample?.B, opts.C, opts.cb, ion);
@@ -142,39 +151,73 @@ export function diagramCommand(configText: string | undefined, opts: DiagramOpti
       : opts.json
         ? undefined
         : resolve(io.cwd, `d${n}-${geometry}.png`);
-  const figureFormat = figurePath === undefined ? undefined : formatOfPath(opts.output ?? figurePath);
-  const dataPath = opts.data === undefined ? undefined : resolve(io.cwd, opts.data);
-  const dataKind = opts.data === undefined ? undefined : dataFormat(opts.data);
+  return {
+    n,
+    ...(ion ? { ion } : {}),
+    geometry,
+    cOverB: ratio.cOverB,
+    cOrigin,
+    maxDeltaOverB,
+    points,
+    ...(eMax !== undefined ? { eMax } : {}),
+    ...(sample ? { sample } : {}),
+    ...(figurePath !== undefined
+      ? { figurePath, figureFormat: formatOfPath(opts.output ?? figurePath) }
+      : {}),
+    ...(opts.data !== undefined
+      ? { dataPath: resolve(io.cwd, opts.data), dataKind: dataFormat(opts.data) }
+      : {}),
+  };
+}
 
-  const bar = progress(io, `d${n} ${geometry}: sweeping Δ/B`);
-  let diagram: CorrelationDiagram;
-  try {
-    diagram = sweepDiagram(n, {
-      geometry,
-      cOverB: ratio.cOverB,
-      maxDeltaOverB,
-      points,
-      onProgress: (done, total) => bar.update(done, total),
-    });
-  } finally {
-    bar.end();
-  }
+/** The figure and data files of the diagram, as bytes to write. */
+function diagramFiles(
+  job: DiagramJob,
+  diagram: CorrelationDiagram,
+): { path: string; data: string | Uint8Array }[] {
+  const { ion, eMax, sample } = job;
   const outputs: { path: string; data: string | Uint8Array }[] = [];
-  if (figurePath !== undefined && figureFormat !== undefined) {
+  if (job.figurePath !== undefined && job.figureFormat !== undefined) {
     const options = {
       ...(ion ? { ion: ion.ion } : {}),
       ...(eMax !== undefined ? { eMax } : {}),
       ...(sample ? { sample: { dq: sample.dq, B: sample.B, bands: sample.bands ?? [] } } : {}),
     };
-    outputs.push({ path: figurePath, data: renderDiagram(diagram, { format: figureFormat }, options) });
-  }
-  if (dataPath !== undefined) {
     outputs.push({
-      path: dataPath,
-      data: dataKind === 'csv' ? diagramCsv(diagram) : jsonText(diagramJson(diagram)),
+      path: job.figurePath,
+      data: renderDiagram(diagram, { format: job.figureFormat }, options),
     });
   }
-  writeFilesAtomic(outputs);
+  if (job.dataPath !== undefined) {
+    outputs.push({
+      path: job.dataPath,
+      data: job.dataKind === 'csv' ? diagramCsv(diagram) : jsonText(diagramJson(diagram)),
+    });
+  }
+  return outputs;
+}
+
+/**
+ * Runs the command and returns what goes on stdout; files are written only once everything has
+ * been computed, and removed again if a later one cannot be written, so bad input leaves none.
+ */
+export function diagramCommand(configText: string | undefined, opts: DiagramOptions, io: Io): string {
+  const job = diagramJob(configText, opts, io);
+  const { n, ion, geometry, sample, figurePath, dataPath } = job;
+  const bar = progress(io, `d${n} ${geometry}: sweeping Δ/B`);
+  let diagram: CorrelationDiagram;
+  try {
+    diagram = sweepDiagram(n, {
+      geometry,
+      cOverB: job.cOverB,
+      maxDeltaOverB: job.maxDeltaOverB,
+      points: job.points,
+      onProgress: (done, total) => bar.update(done, total),
+    });
+  } finally {
+    bar.end();
+  }
+  writeFilesAtomic(diagramFiles(job, diagram));
 
   const cautions = diagramCautions(diagram).map((c) => c.message);
   if (sample) {
@@ -182,6 +225,7 @@ export function diagramCommand(configText: string | undefined, opts: DiagramOpti
       `the sample is drawn on curves for C/B = ${fixed(diagram.cOverB, 2)}; its bands fall on them only as far as its own C/B is close to that`,
     );
   }
+  const { cOrigin } = job;
   if (opts.json) {
     return jsonText({
       ...(ion ? { ion: ion.ion } : {}),

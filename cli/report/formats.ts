@@ -1,3 +1,4 @@
+import { csvText } from '../../src/sheets/csv.js';
 import type { Block, TableBlock } from './document.js';
 
 /**
@@ -116,11 +117,7 @@ export function toHtml(blocks: readonly Block[], title: string): string {
   );
 }
 
-function csvCell(text: string): string {
-  return /[",\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
 /** CSV text of a table (header row, then the rows; UTF-8). */
 export function toCsv(table: TableBlock): string {
-  return `${[table.headers, ...table.rows].map((r) => r.map(csvCell).join(',')).join('\n')}\n`;
+  return csvText([table.headers, ...table.rows]);
 }

@@ -3,6 +3,7 @@ import { ensure } from '../core/errors.js';
 import { DEFAULT_C_OVER_B, MAX_C_OVER_B } from '../core/ions.js';
 import { cubicLevels } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
+import { csvText } from '../sheets/csv.js';
 import type { Caution } from './cautions.js';
 import { groundStateCrossings } from './groundState.js';
 
@@ -236,11 +237,6 @@ function spinRegions(
 /** Digits after the point in the CSV text (E/B to 10⁻⁶, far below any use of a diagram). */
 export const CSV_DIGITS = 6;
 
-/** One field of CSV text, quoted when it holds a comma, quote or line break (RFC 4180). */
-function csvField(text: string): string {
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
 function csvNumber(x: number): string {
   return String(Number(x.toFixed(CSV_DIGITS)));
 }
@@ -250,11 +246,11 @@ function csvNumber(x: number): string {
  * them, e.g. `4T1g(F)`; quoted where they hold a comma) and one row per Δ/B, values E/B.
  */
 export function diagramCsv(diagram: CorrelationDiagram): string {
-  const header = ['Delta/B', ...diagram.curves.map((c) => c.label)].map(csvField).join(',');
+  const header = ['Delta/B', ...diagram.curves.map((c) => c.label)];
   const rows = diagram.deltaOverB.map((x, i) =>
-    [x, ...diagram.curves.map((c) => c.values[i] ?? Number.NaN)].map(csvNumber).join(','),
+    [x, ...diagram.curves.map((c) => c.values[i] ?? Number.NaN)].map(csvNumber),
   );
-  return `${[header, ...rows].join('\n')}\n`;
+  return csvText([header, ...rows]);
 }
 
 /** The diagram as a plain object for JSON: settings, units, crossings, regions and every curve. */

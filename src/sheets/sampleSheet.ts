@@ -4,6 +4,7 @@ import { InputError } from '../core/errors.js';
 import { findIon } from '../core/ions.js';
 import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
 import type { Geometry } from '../field/labels.js';
+import { splitCsvLine } from './csv.js';
 
 /**
  * The sample sheet: one or more samples to report on, as JSON (the full form) or CSV (the simple
@@ -354,25 +355,5 @@ function csvValue(field: string, cell: string): unknown {
   return cell;
 }
 
-/** Splits one CSV line on commas outside double quotes; "" inside quotes is a quote. */
-export function splitCsvLine(line: string): string[] {
-  const cells: string[] = [];
-  let cur = '';
-  let quoted = false;
-  for (let i = 0; i < line.length; i++) {
-    const ch = line[i];
-    if (quoted) {
-      if (ch === '"' && line[i + 1] === '"') {
-        cur += '"';
-        i++;
-      } else if (ch === '"') quoted = false;
-      else cur += ch;
-    } else if (ch === '"') quoted = true;
-    else if (ch === ',') {
-      cells.push(cur);
-      cur = '';
-    } else cur += ch;
-  }
-  cells.push(cur);
-  return cells;
-}
+/** Splits one CSV line (see {@link splitCsvLine} in the CSV module). */
+export { splitCsvLine };

@@ -1,4 +1,5 @@
 import { InputError } from '../core/errors.js';
+import { splitCsvLine } from '../sheets/csv.js';
 import type { RawSpectrum } from './rawSpectrum.js';
 import { xUnitFromLabel, yUnitFromLabel } from './spectrumUnits.js';
 
@@ -191,23 +192,11 @@ function unquote(field: string): string {
     : field;
 }
 
-/** The fields of one line; quoted fields may contain the delimiter. */
+/** The fields of one line; quoted fields may contain the delimiter (read as CSV, RFC 4180). */
 function splitFields(line: string, format: TextFormat): string[] {
   const t = line.trim();
   if (format.delimiter === 'whitespace') return t.split(/\s+/);
-  if (!t.includes('"')) return t.split(format.delimiter);
-  const out: string[] = [];
-  let field = '';
-  let quoted = false;
-  for (const c of t) {
-    if (c === '"') quoted = !quoted;
-    else if (c === format.delimiter && !quoted) {
-      out.push(field);
-      field = '';
-    } else field += c;
-  }
-  out.push(field);
-  return out;
+  return splitCsvLine(t, format.delimiter);
 }
 
 function fieldNumber(
