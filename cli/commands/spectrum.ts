@@ -229,6 +229,31 @@ const FLAG_TEXT: Readonly<Record<FoundBand['flags'][number], string>> = {
 };
 
 function reportText(r: SpectrumReport, opts: SpectrumOptions): string {
+  const lines = [
+    ...readingLines(r),
+    ...bandLines(r),
+    ...observationLines(r, opts),
+    ...predictedLines(r),
+    ...fitLines(r),
+  ];
+  if (!r.predicted && !r.fit) {
+    lines.push('');
+    lines.push(
+      'Give --ion (or --d) to fit Dq and B to these bands, or --dq and --B for predicted transitions.',
+    );
+  }
+  lines.push('');
+  lines.push('Cautions:');
+  for (const c of r.cautions) lines.push(`  - ${c}`);
+  if (r.figure) {
+    lines.push('');
+    lines.push(`Figure written to ${r.figure}.`);
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+/** What was read, the units, the window, noise and baseline. */
+function readingLines(r: SpectrumReport): string[] {
   const { raw, spectrum, analysis } = r;
   const lines: string[] = [];
   const { from, to } = analysis.window;
@@ -251,6 +276,13 @@ function reportText(r: SpectrumReport, opts: SpectrumOptions): string {
       ? 'Baseline: none fitted.'
       : `Baseline (${analysis.baselineKind}, fitted with the bands): ${sig(b.offset)}${analysis.baselineKind === 'linear' ? ` ${b.slope < 0 ? '−' : '+'} ${sig(Math.abs(b.slope))} × (ν̃ − ${fixed(b.reference)} cm⁻¹)` : ''}.`,
   );
+  return lines;
+}
+
+/** The table of the bands found. */
+function bandLines(r: SpectrumReport): string[] {
+  const { spectrum, analysis } = r;
+  const lines: string[] = [];
   lines.push('');
   const unit = spectrum.quantity === 'epsilon' ? 'ε' : spectrum.quantity === 'absorbance' ? 'A' : 'y';
   lines.push(`Bands (Gaussian components; ${quantityTitle(spectrum.quantity)}):`);
@@ -288,11 +320,24 @@ function reportText(r: SpectrumReport, opts: SpectrumOptions): string {
       rows,
     ),
   );
+  return lines;
+}
+
+/** The ligand-field bands as observations for a fit. */
+function observationLines(r: SpectrumReport, opts: SpectrumOptions): string[] {
+  const lines: string[] = [];
   lines.push('');
   lines.push(
     `Ligand-field bands for a fit of Dq and B (σ = fit ⊕ ${fixed(100 * POSITION_WIDTH_FRACTION)} % of FWHM${opts.includeCt ? '; charge-transfer-like bands kept' : ''}):`,
   );
   lines.push(`  ${r.observations.map((o) => `${fixed(o.energy)}±${fixed(o.sigma)}`).join(', ')} cm⁻¹`);
+  return lines;
+}
+
+/** The transitions predicted from --dq and --B inside the window. */
+function predictedLines(r: SpectrumReport): string[] {
+  const { from, to } = r.analysis.window;
+  const lines: string[] = [];
   if (r.predicted) {
     const { result, cOrigin, ion } = r.predicted;
     lines.push('');
@@ -316,6 +361,12 @@ function reportText(r: SpectrumReport, opts: SpectrumOptions): string {
           ),
     );
   }
+  return lines;
+}
+
+/** The ligand-field fit of the bands. */
+function fitLines(r: SpectrumReport): string[] {
+  const lines: string[] = [];
   if (r.fit && 'result' in r.fit) {
     const { result, ion, cOrigin, used, leftOut } = r.fit;
     lines.push('');
@@ -328,20 +379,7 @@ function reportText(r: SpectrumReport, opts: SpectrumOptions): string {
     );
     lines.push(fitText(result, ion, cOrigin).trimEnd());
   }
-  if (!r.predicted && !r.fit) {
-    lines.push('');
-    lines.push(
-      'Give --ion (or --d) to fit Dq and B to these bands, or --dq and --B for predicted transitions.',
-    );
-  }
-  lines.push('');
-  lines.push('Cautions:');
-  for (const c of r.cautions) lines.push(`  - ${c}`);
-  if (r.figure) {
-    lines.push('');
-    lines.push(`Figure written to ${r.figure}.`);
-  }
-  return `${lines.join('\n')}\n`;
+  return lines;
 }
 
 function originText(origin: string): string {

@@ -102,10 +102,35 @@ export function fitJson(result: FitResult, ion: string | undefined, cOrigin: str
   };
 }
 
-/** The human form of a fit result. */
+/** The human form of a fit result: how it was fitted, the best solution, alternatives, predictions. */
 export function fitText(result: FitResult, ion: string | undefined, cOrigin: string): string {
   const best = result.solutions[0];
   if (!best) throw new Error('fit returned no solution');
+  const lines = [
+    ...fitHeaderLines(result, best, ion, cOrigin),
+    ...bestLines(result, best, ion),
+    ...assignmentLines(best),
+    ...alternativeLines(result),
+    ...predictedLines(best),
+  ];
+  const warnings = [...best.warnings, ...result.warnings];
+  if (warnings.length > 0) {
+    lines.push('');
+    lines.push('Warnings and cautions:');
+    for (const w of warnings) lines.push(`  - ${w.message}`);
+  }
+  lines.push('');
+  lines.push('These are model results for an ideal cubic field; the spectrum and other measurements decide.');
+  return `${lines.join('\n')}\n`;
+}
+
+/** What was fitted and how: the bands, where C/B came from, the weighting and the search. */
+function fitHeaderLines(
+  result: FitResult,
+  best: FitSolution,
+  ion: string | undefined,
+  cOrigin: string,
+): string[] {
   const geometryName = result.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
   const lines: string[] = [];
   const bandList = result.bands
@@ -131,6 +156,12 @@ export function fitText(result: FitResult, ion: string | undefined, cOrigin: str
       `${result.solutions.length} solution${result.solutions.length === 1 ? '' : 's'} shown` +
       `${result.omitted > 0 ? ` (and ${result.omitted} more that fit nearly as well)` : ''}.`,
   );
+  return lines;
+}
+
+/** The best solution's parameters with their standard errors, rms and convergence. */
+function bestLines(result: FitResult, best: FitSolution, ion: string | undefined): string[] {
+  const lines: string[] = [];
   lines.push('');
   lines.push(`Best solution${result.solutions.length > 1 ? ` (1 of ${result.solutions.length})` : ''}:`);
   const e = best.errors;
@@ -160,6 +191,12 @@ export function fitText(result: FitResult, ion: string | undefined, cOrigin: str
   lines.push(
     `  ${best.converged ? 'converged' : 'NOT converged'}: ${best.reasonText} (${best.iterations} iteration${best.iterations === 1 ? '' : 's'})`,
   );
+  return lines;
+}
+
+/** The table of the best solution's assignments. */
+function assignmentLines(best: FitSolution): string[] {
+  const lines: string[] = [];
   lines.push('');
   lines.push(
     table(
@@ -175,6 +212,12 @@ export function fitText(result: FitResult, ion: string | undefined, cOrigin: str
       ]),
     ),
   );
+  return lines;
+}
+
+/** The other solutions that fit nearly as well. */
+function alternativeLines(result: FitResult): string[] {
+  const lines: string[] = [];
   lines.push('');
   const alternatives = result.solutions.slice(1);
   if (alternatives.length === 0) {
@@ -188,6 +231,12 @@ export function fitText(result: FitResult, ion: string | undefined, cOrigin: str
     for (const s of alternatives) lines.push(`  ${solutionSummary(s)}`);
     if (result.omitted > 0) lines.push(`  … and ${result.omitted} more that fit nearly as well (not shown)`);
   }
+  return lines;
+}
+
+/** The best solution's predicted bands up to {@link BAND_CEILING}. */
+function predictedLines(best: FitSolution): string[] {
+  const lines: string[] = [];
   lines.push('');
   const shown = best.predicted.filter((p) => p.energy <= BAND_CEILING);
   lines.push(
@@ -205,13 +254,5 @@ export function fitText(result: FitResult, ion: string | undefined, cOrigin: str
       ]),
     ),
   );
-  const warnings = [...best.warnings, ...result.warnings];
-  if (warnings.length > 0) {
-    lines.push('');
-    lines.push('Warnings and cautions:');
-    for (const w of warnings) lines.push(`  - ${w.message}`);
-  }
-  lines.push('');
-  lines.push('These are model results for an ideal cubic field; the spectrum and other measurements decide.');
-  return `${lines.join('\n')}\n`;
+  return lines;
 }
