@@ -1,3 +1,8 @@
+/**
+ * Files for the commands: reading text, writing one or several outputs whole or not at all, and
+ * finding the package's own folder (for the shipped fixtures).
+ */
+
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';

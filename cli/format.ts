@@ -1,4 +1,6 @@
-/** Plain-text tables and number formats for human output. */
+/**
+ * Plain-text tables and number formats for human output, and rounded JSON text for --json.
+ */
 
 /** Right-aligns numeric-looking cells, left-aligns the rest; columns separated by two spaces. */
 export function table(headers: readonly string[], rows: readonly (readonly string[])[]): string {
@@ -22,13 +24,8 @@ function width(s: string): number {
   return [...s.normalize('NFC')].filter((c) => !/\p{M}/u.test(c)).length;
 }
 
-/** A number with a fixed number of decimals. */
-export function fixed(x: number, digits = 0): string {
-  if (!Number.isFinite(x)) return '—';
-  const text = x.toFixed(digits);
-  // A value that rounds to zero is printed without a sign.
-  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
-}
+/** A number with a fixed number of decimals (the library's own form, shared). */
+export { fixed } from '../src/core/numberText.js';
 
 /** Rounds every number in a JSON-bound value to `digits` decimals, to drop floating-point noise. */
 export function roundForJson(value: unknown, digits = 6): unknown {

@@ -1,3 +1,8 @@
+/**
+ * Where the commands write: the process's streams or a recording for tests, and a progress line
+ * on stderr that shows only on a terminal.
+ */
+
 /** Where a command writes: stdout for results, stderr for messages and progress. */
 export interface Io {
   out(text: string): void;

@@ -1,3 +1,9 @@
+/**
+ * The command-line program: every command registered on one commander program, its own errors
+ * turned into the one-line `termsplit: …` form, and the run that maps input errors to exit code 2
+ * and anything else to exit code 1.
+ */
+
 import { Command, CommanderError } from 'commander';
 import { InputError } from '../src/index.js';
 import { registerCrossover } from './commands/crossover.js';

@@ -1,3 +1,8 @@
+/**
+ * `termsplit ions`: lists the built-in free ions with their n, Racah B and C, C/B, ζ and sources,
+ * as text or JSON.
+ */
+
 import type { Command } from 'commander';
 import { FREE_IONS, freeIonRatio } from '../../src/index.js';
 import { fixed, jsonText, table } from '../format.js';

@@ -1,6 +1,13 @@
+/**
+ * `termsplit terms`: checks the configuration or ion and optional Racah B and C, asks the library
+ * for microstates, terms, the Hund ground level, J levels and free-ion energies, and prints them
+ * as text or JSON.
+ */
+
 import type { Command } from 'commander';
 import {
   binomial,
+  type FreeIon,
   findIon,
   freeIonTerms,
   halfIntegerText,
@@ -40,6 +47,21 @@ export function registerTerms(program: Command, io: Io): void {
 
 /** Builds the command's output text (the action only writes it, so errors leave stdout empty). */
 export function termsCommand(configText: string | undefined, opts: TermsOptions): string {
+  const job = termsJob(configText, opts);
+  const result = termsResult(job);
+  return opts.json ? jsonText(result) : termsText(job, result);
+}
+
+/** The configuration, the ion if named, and B and C when free-ion energies are asked for. */
+interface TermsJob {
+  readonly config: ReturnType<typeof parseConfiguration>;
+  readonly ion?: FreeIon;
+  readonly B?: number;
+  readonly C?: number;
+}
+
+/** Checks the configuration or ion and the Racah parameters. */
+function termsJob(configText: string | undefined, opts: TermsOptions): TermsJob {
   const ion = opts.ion === undefined ? undefined : findIon(opts.ion);
   if (configText === undefined && !ion) throw new InputError('give a configuration such as d3, or --ion');
   const config = parseConfiguration(configText ?? `d${ion?.n}`);
@@ -57,6 +79,17 @@ export function termsCommand(configText: string | undefined, opts: TermsOptions)
   if (B !== undefined && config.l !== 2) {
     throw new InputError(`free-ion energies from Racah B and C are for d configurations, not ${config.text}`);
   }
+  return {
+    config,
+    ...(ion ? { ion } : {}),
+    ...(B !== undefined ? { B } : {}),
+    ...(C !== undefined ? { C } : {}),
+  };
+}
+
+/** Microstates, terms, ground level and (with B and C) free-ion energies, as JSON-ready data. */
+function termsResult(job: TermsJob) {
+  const { config, ion, B, C } = job;
   const { l, n } = config;
   const tableOf = microstateTable(l, n);
   const terms = termsOf(l, n);
@@ -86,7 +119,16 @@ export function termsCommand(configText: string | undefined, opts: TermsOptions)
         }
       : {}),
   };
-  if (opts.json) return jsonText(result);
+  return result;
+}
+
+/** The human form of the terms. */
+function termsText(job: TermsJob, result: ReturnType<typeof termsResult>): string {
+  const { config, ion, B, C } = job;
+  const { table: tableOf, microstates: total } = result;
+  const terms = termsOf(config.l, config.n);
+  const ground = hundGround(config.l, config.n);
+  const energies = result.energies;
 
   const lines: string[] = [];
   lines.push(`${config.text}: ${total} microstates`);

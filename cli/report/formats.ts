@@ -1,11 +1,11 @@
-import { csvText } from '../../src/sheets/csv.js';
-import type { Block, TableBlock } from './document.js';
-
 /**
  * The report's blocks written as Markdown (figures linked as files), as one self-contained HTML
  * page (figures embedded as SVG, styles inline, no scripts, opens in any browser with no
  * server), and each table as CSV.
  */
+
+import { csvText } from '../../src/sheets/csv.js';
+import type { Block, TableBlock } from './document.js';
 
 function mdEscape(text: string): string {
   return text.replace(/\|/g, '\\|').replace(/\n/g, ' ');

@@ -1,3 +1,7 @@
+/**
+ * The methods paragraph and the references of a report, written for the samples it holds.
+ */
+
 import { FREE_IONS, unicodeIon } from '../../src/index.js';
 import type { SampleResult } from './analyse.js';
 

@@ -1,3 +1,9 @@
+/**
+ * The report model: the checked sheet, the samples' outcomes, the series, the spectrochemical
+ * and nephelauxetic orders, methods, references and cautions — everything the report says, before
+ * it is written in any format.
+ */
+
 import {
   type IonOrder,
   type SampleSheet,

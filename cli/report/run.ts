@@ -1,3 +1,8 @@
+/**
+ * Runs the analyses of a report's samples: in worker threads when that helps, else in this
+ * thread, with progress on stderr; outcomes come back in the order of the samples.
+ */
+
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';

@@ -1,3 +1,8 @@
+/**
+ * Writes a report folder all or nothing, replacing an earlier report but never other files, and
+ * names the program that wrote it.
+ */
+
 import {
   existsSync,
   mkdirSync,
