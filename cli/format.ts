@@ -42,3 +42,8 @@ export function roundForJson(value: unknown, digits = 6): unknown {
 export function jsonText(value: unknown): string {
   return `${JSON.stringify(roundForJson(value), null, 2)}\n`;
 }
+
+/** A titled list for human output — a blank line, the title, then `  - item` lines — or nothing when empty. */
+export function listSection(title: string, items: readonly string[]): string[] {
+  return items.length === 0 ? [] : ['', title, ...items.map((i) => `  - ${i}`)];
+}

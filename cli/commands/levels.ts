@@ -20,7 +20,7 @@ import {
   unicodeTerm,
 } from '../../src/index.js';
 import { writeFileAtomic } from '../files.js';
-import { fixed, jsonText, table } from '../format.js';
+import { fixed, jsonText, listSection, table } from '../format.js';
 import type { Io } from '../io.js';
 import {
   cbHelp,
@@ -122,11 +122,12 @@ function levelsText(opts: LevelsOptions, solved: SolvedLevels, figure: string | 
   lines.push('');
   lines.push('All levels:');
   lines.push(table(headers, result.levels.map(row)));
-  if (cautions.length > 0) {
-    lines.push('');
-    lines.push('Cautions:');
-    for (const c of cautions) lines.push(`  - ${c.message}`);
-  }
+  lines.push(
+    ...listSection(
+      'Cautions:',
+      cautions.map((c) => c.message),
+    ),
+  );
   lines.push('');
   lines.push('These are model predictions for an ideal cubic field, not measurements.');
   if (figure !== undefined) lines.push(`Level diagram written to ${figure}`);

@@ -7,7 +7,7 @@
 
 import { BAND_CEILING } from '../../src/core/defaults.js';
 import { cmToNm, type FitResult, type FitSolution, unicodeLabel } from '../../src/index.js';
-import { fixed, table } from '../format.js';
+import { fixed, listSection, table } from '../format.js';
 
 /** Whether only Dq was fitted (d¹, d⁹). */
 function single(s: FitSolution): boolean {
@@ -114,11 +114,12 @@ export function fitText(result: FitResult, ion: string | undefined, cOrigin: str
     ...predictedLines(best),
   ];
   const warnings = [...best.warnings, ...result.warnings];
-  if (warnings.length > 0) {
-    lines.push('');
-    lines.push('Warnings and cautions:');
-    for (const w of warnings) lines.push(`  - ${w.message}`);
-  }
+  lines.push(
+    ...listSection(
+      'Warnings and cautions:',
+      warnings.map((w) => w.message),
+    ),
+  );
   lines.push('');
   lines.push('These are model results for an ideal cubic field; the spectrum and other measurements decide.');
   return `${lines.join('\n')}\n`;
