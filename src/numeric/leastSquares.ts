@@ -110,6 +110,38 @@ function forwardJacobian(
 const sumSquares = (r: readonly number[]) => r.reduce((s, x) => s + x * x, 0);
 
 /**
+ * JᵀJ and Jᵀr by plain loops: spectra give thousands of residuals, and building ml-matrix
+ * objects of that size each iteration cost more than the sums themselves.
+ */
+function normalEquations(
+  J: readonly (readonly number[])[],
+  r: readonly number[],
+  np: number,
+): { A: Matrix; g: number[] } {
+  const a = new Float64Array(np * np);
+  const g = new Array<number>(np).fill(0);
+  for (let i = 0; i < J.length; i++) {
+    const row = J[i] as readonly number[];
+    const ri = r[i] as number;
+    for (let j = 0; j < np; j++) {
+      const v = row[j] as number;
+      if (v === 0) continue;
+      g[j] = (g[j] as number) + v * ri;
+      for (let k = j; k < np; k++) a[j * np + k] = (a[j * np + k] as number) + v * (row[k] as number);
+    }
+  }
+  const A = new Matrix(np, np);
+  for (let j = 0; j < np; j++) {
+    for (let k = j; k < np; k++) {
+      const v = a[j * np + k] as number;
+      A.set(j, k, v);
+      A.set(k, j, v);
+    }
+  }
+  return { A, g };
+}
+
+/**
  * Minimises Σ rᵢ(p)² from `problem.start` within the bounds.
  * @throws InputError for an empty start or bounds of the wrong length.
  */
@@ -154,9 +186,7 @@ export function levenbergMarquardt(
   while (iterations < o.maxIterations) {
     if (ss <= o.exactSumOfSquares) return finish('exact-fit');
     iterations++;
-    const Jm = new Matrix(J);
-    const A = Jm.transpose().mmul(Jm);
-    const g = Jm.transpose().mmul(Matrix.columnVector(r)).to1DArray();
+    const { A, g } = normalEquations(J, r, np);
     const rNorm = Math.sqrt(ss);
     const cosine = Math.max(...g.map((gj, j) => Math.abs(gj) / (Math.sqrt(A.get(j, j)) * rNorm || 1)));
     if (cosine <= o.gradientTolerance) return finish('small-gradient');
