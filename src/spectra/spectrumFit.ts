@@ -1,4 +1,5 @@
-import { type FitInput, type FitResult, fitBands } from '../fit/fitBands.js';
+import { fitBands } from '../fit/fitBands.js';
+import type { FitInput, FitResult } from '../fit/fitTypes.js';
 import type { FoundBand } from './bandFinding.js';
 import { bandObservations } from './bandObservations.js';
 
