@@ -1,3 +1,9 @@
+/**
+ * The energy-level diagram at one point, free ion → field: the free-ion terms as bars on the
+ * left, the cubic levels as bars on the right, each level joined to the term it comes from,
+ * every bar labelled. Energies in cm⁻¹ above the lowest term and the ground level.
+ */
+
 import type { SKRSContext2D } from '@napi-rs/canvas';
 import type { Chart, ChartConfiguration, Plugin } from 'chart.js';
 import { type CubicResult, type FreeIonTerm, freeIonTerms } from '../src/index.js';
@@ -15,12 +21,6 @@ import {
   type TextStyle,
   termRuns,
 } from './typeset.js';
-
-/**
- * The energy-level diagram at one point, free ion → field: the free-ion terms as bars on the
- * left, the cubic levels as bars on the right, each level joined to the term it comes from,
- * every bar labelled. Energies in cm⁻¹ above the lowest term and the ground level.
- */
 
 /** Options of {@link levelDiagramChart}. */
 export interface LevelDiagramOptions {

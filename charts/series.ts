@@ -1,13 +1,13 @@
-import type { ChartConfiguration, Plugin } from 'chart.js';
-import { type SeriesEntry, unicodeIon } from '../src/index.js';
-import { type FigureOptions, renderChart } from './render.js';
-import { STYLE } from './style.js';
-
 /**
  * Trends across a series of samples: 10Dq or β of each sample, with ±1 standard-error bars,
  * samples grouped by ion (one colour each) and ordered within a group by 10Dq, so that a reader
  * sees the spectrochemical and nephelauxetic orders of the series at a glance.
  */
+
+import type { ChartConfiguration, Plugin } from 'chart.js';
+import { type SeriesEntry, unicodeIon } from '../src/index.js';
+import { type FigureOptions, renderChart } from './render.js';
+import { STYLE } from './style.js';
 
 /** The quantity a trend figure shows. */
 export type TrendQuantity = 'tenDq' | 'beta';

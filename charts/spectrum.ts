@@ -1,3 +1,10 @@
+/**
+ * The overlay figure of a measured absorption spectrum: the data against wavenumber with a
+ * wavelength axis on top, the fitted Gaussian bands (drawn on the baseline) and their sum, and
+ * predicted transitions as labelled vertical marks, spin-allowed ones prominent and
+ * spin-forbidden ones light.
+ */
+
 import type { ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
 import { xyReduce } from 'ml-spectra-processing';
 import {
@@ -10,13 +17,6 @@ import {
   parseStateLabel,
 } from '../src/index.js';
 import { type FigureOptions, FONT_FAMILY, renderChart } from './render.js';
-
-/**
- * The overlay figure of a measured absorption spectrum: the data against wavenumber with a
- * wavelength axis on top, the fitted Gaussian bands (drawn on the baseline) and their sum, and
- * predicted transitions as labelled vertical marks, spin-allowed ones prominent and
- * spin-forbidden ones light.
- */
 
 /** A predicted transition from the ground state, to draw as a vertical mark. */
 export interface PredictedTransition {

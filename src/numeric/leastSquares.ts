@@ -1,6 +1,3 @@
-import { CholeskyDecomposition, Matrix, SingularValueDecomposition } from 'ml-matrix';
-import { ensure } from '../core/errors.js';
-
 /**
  * Bounded nonlinear least squares by the Levenberg–Marquardt method (Levenberg, Q. Appl. Math.
  * 2, 164, 1944; Marquardt, J. SIAM 11, 431, 1963), with Marquardt's scaling of the damping by
@@ -15,6 +12,9 @@ import { ensure } from '../core/errors.js';
  * a caller-supplied Jacobian that may reuse one model evaluation for every residual (the library
  * calls the model once per data point and per parameter).
  */
+
+import { CholeskyDecomposition, Matrix, SingularValueDecomposition } from 'ml-matrix';
+import { ensure } from '../core/errors.js';
 
 /** Why {@link levenbergMarquardt} stopped. */
 export type StopReason =

@@ -1,3 +1,18 @@
+/**
+ * Finding the absorption bands of a spectrum. The window is resampled onto an even wavenumber
+ * grid (bands are Gaussian in energy, not in wavelength) and decomposed into Gaussian bands
+ * plus a straight baseline (bandDecomposition.ts); each band is reported with its maximum,
+ * FWHM, height and area, their uncertainties from the fit, and flags for bands that look like
+ * charge transfer or need care.
+ *
+ * The baseline is fitted with the bands rather than removed first: baseline-estimation methods
+ * (airPLS, rolling ball) treat anything broad as baseline, and d–d bands of 2000–4000 cm⁻¹ FWHM
+ * are a large part of a UV-vis-NIR window. A band whose maximum lies beyond either end of the
+ * window (the rising edge of a charge-transfer band at the blue end, the wing of a near-infrared
+ * band at the red end) is fitted as a Gaussian centred outside the window and reported as such.
+ * Smoothing is used only to pick candidates; the fit is to the data points themselves.
+ */
+
 import { xNoiseStandardDeviation, xyEquallySpaced } from 'ml-spectra-processing';
 import { CHARGE_TRANSFER_ONSET } from '../analysis/cautions.js';
 import { ensure, InputError } from '../core/errors.js';
@@ -19,21 +34,6 @@ import {
   oscillatorStrength,
 } from './bandIntensity.js';
 import { GAUSSIAN_AREA_FACTOR, type GaussianBand, type LinearBaseline } from './gaussianBands.js';
-
-/**
- * Finding the absorption bands of a spectrum. The window is resampled onto an even wavenumber
- * grid (bands are Gaussian in energy, not in wavelength) and decomposed into Gaussian bands
- * plus a straight baseline (bandDecomposition.ts); each band is reported with its maximum,
- * FWHM, height and area, their uncertainties from the fit, and flags for bands that look like
- * charge transfer or need care.
- *
- * The baseline is fitted with the bands rather than removed first: baseline-estimation methods
- * (airPLS, rolling ball) treat anything broad as baseline, and d–d bands of 2000–4000 cm⁻¹ FWHM
- * are a large part of a UV-vis-NIR window. A band whose maximum lies beyond either end of the
- * window (the rising edge of a charge-transfer band at the blue end, the wing of a near-infrared
- * band at the red end) is fitted as a Gaussian centred outside the window and reported as such.
- * Smoothing is used only to pick candidates; the fit is to the data points themselves.
- */
 
 export type { BaselineKind } from './bandDecomposition.js';
 
