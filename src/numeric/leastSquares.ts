@@ -110,6 +110,47 @@ function forwardJacobian(
 const sumSquares = (r: readonly number[]) => r.reduce((s, x) => s + x * x, 0);
 
 /**
+ * JᵀJ and the gradient g = Jᵀr, with the largest cosine between r and a column of J, which is
+ * zero at a stationary point whatever the scale of the parameters.
+ */
+function normalEquations(J: number[][], r: number[], ss: number) {
+  const Jm = new Matrix(J);
+  const A = Jm.transpose().mmul(Jm);
+  const g = Jm.transpose().mmul(Matrix.columnVector(r)).to1DArray();
+  const rNorm = Math.sqrt(ss);
+  const cosine = Math.max(...g.map((gj, j) => Math.abs(gj) / (Math.sqrt(A.get(j, j)) * rNorm || 1)));
+  return { A, g, cosine };
+}
+
+/**
+ * The step of the damped normal equations (JᵀJ + μ·diag(scale))·δ = −g, or undefined when the
+ * damped matrix is not positive definite (the damping must grow).
+ */
+function dampedStep(
+  A: Matrix,
+  g: readonly number[],
+  mu: number,
+  scale: readonly number[],
+): number[] | undefined {
+  const damped = A.clone();
+  for (let j = 0; j < g.length; j++) damped.set(j, j, A.get(j, j) + mu * (scale[j] ?? 1));
+  const chol = new CholeskyDecomposition(damped);
+  if (!chol.isPositiveDefinite()) return undefined;
+  return chol.solve(Matrix.columnVector(g.map((x) => -x))).to1DArray();
+}
+
+/** Whether every component of `step` is below the relative-plus-absolute step tolerance at `p`. */
+function isSmallStep(step: readonly number[], p: readonly number[], tolerance: number): boolean {
+  return step.every((s, j) => Math.abs(s) <= tolerance * (Math.abs(p[j] ?? 0) + tolerance));
+}
+
+/** Predicted decrease of the linear model ‖r + J·step‖²: −(2gᵀs + sᵀAs). */
+function predictedDecrease(A: Matrix, g: readonly number[], step: readonly number[]): number {
+  const As = A.mmul(Matrix.columnVector(step)).to1DArray();
+  return -step.reduce((s, sj, j) => s + sj * (2 * (g[j] ?? 0) + (As[j] ?? 0)), 0);
+}
+
+/**
  * Minimises Σ rᵢ(p)² from `problem.start` within the bounds.
  * @throws InputError for an empty start or bounds of the wrong length.
  */
@@ -154,36 +195,25 @@ export function levenbergMarquardt(
   while (iterations < o.maxIterations) {
     if (ss <= o.exactSumOfSquares) return finish('exact-fit');
     iterations++;
-    const Jm = new Matrix(J);
-    const A = Jm.transpose().mmul(Jm);
-    const g = Jm.transpose().mmul(Matrix.columnVector(r)).to1DArray();
-    const rNorm = Math.sqrt(ss);
-    const cosine = Math.max(...g.map((gj, j) => Math.abs(gj) / (Math.sqrt(A.get(j, j)) * rNorm || 1)));
+    const { A, g, cosine } = normalEquations(J, r, ss);
     if (cosine <= o.gradientTolerance) return finish('small-gradient');
     // Marquardt's scaling; a parameter no residual depends on gets a unit scale instead of zero.
     const scale = g.map((_, j) => A.get(j, j) || 1);
     let accepted = false;
     while (!accepted) {
-      const damped = A.clone();
-      for (let j = 0; j < np; j++) damped.set(j, j, A.get(j, j) + mu * (scale[j] ?? 1));
-      const chol = new CholeskyDecomposition(damped);
-      if (!chol.isPositiveDefinite()) {
+      const delta = dampedStep(A, g, mu, scale);
+      if (!delta) {
         mu *= nu;
         nu *= 2;
         if (mu > 1e16) return finish('no-descent');
         continue;
       }
-      const delta = chol.solve(Matrix.columnVector(g.map((x) => -x))).to1DArray();
       const trial = clamp(p.map((x, j) => x + (delta[j] ?? 0)));
       const step = trial.map((x, j) => x - (p[j] ?? 0));
-      if (step.every((s, j) => Math.abs(s) <= o.stepTolerance * (Math.abs(p[j] ?? 0) + o.stepTolerance))) {
-        return finish('small-step');
-      }
+      if (isSmallStep(step, p, o.stepTolerance)) return finish('small-step');
       const rt = [...residuals(trial)];
       const sst = sumSquares(rt);
-      // Predicted decrease of the linear model ‖r + J·step‖²: −(2gᵀs + sᵀAs).
-      const As = A.mmul(Matrix.columnVector(step)).to1DArray();
-      const predicted = -step.reduce((s, sj, j) => s + sj * (2 * (g[j] ?? 0) + (As[j] ?? 0)), 0);
+      const predicted = predictedDecrease(A, g, step);
       const actual = ss - sst;
       if (actual > 0 && Number.isFinite(sst)) {
         const rho = predicted > 0 ? actual / predicted : 1;
@@ -195,9 +225,7 @@ export function levenbergMarquardt(
         mu *= Math.max(1 / 3, 1 - (2 * rho - 1) ** 3);
         nu = 2;
         accepted = true;
-        if (step.every((s, j) => Math.abs(s) <= o.stepTolerance * (Math.abs(p[j] ?? 0) + o.stepTolerance))) {
-          return finish('small-step');
-        }
+        if (isSmallStep(step, p, o.stepTolerance)) return finish('small-step');
         if (small) return finish('small-reduction');
       } else {
         mu *= nu;
