@@ -1,9 +1,9 @@
-import type { CubicIrrep } from './symmetry.js';
-
 /**
  * Names of cubic states and strong-field configurations, as plain text (`4T1g(F)`,
  * `t2g^2 eg^1`) and in Unicode for human output (`⁴T₁g(F)`, `t₂g² eg¹`).
  */
+
+import type { CubicIrrep } from './symmetry.js';
 
 /** Octahedral (Oh) or tetrahedral (Td) ligand field. */
 export type Geometry = 'oct' | 'tet';

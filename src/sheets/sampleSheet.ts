@@ -1,14 +1,14 @@
-import { z } from 'zod';
-import { InputError } from '../core/errors.js';
-import { findIon } from '../core/ions.js';
-import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
-import type { Geometry } from '../field/labels.js';
-
 /**
  * The sample sheet: one or more samples to report on, as JSON (the full form) or CSV (the simple
  * form, one sample a row). Every sample is checked on its own; a bad sample is reported with its
  * name and the field at fault, and the others go on.
  */
+
+import { z } from 'zod';
+import { InputError } from '../core/errors.js';
+import { findIon } from '../core/ions.js';
+import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
+import type { Geometry } from '../field/labels.js';
 
 /** Where a sample's spectrum is and how to read it (see the spectrum reader for each field). */
 export interface SpectrumSpec {
