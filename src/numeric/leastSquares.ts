@@ -110,15 +110,13 @@ function forwardJacobian(
 const sumSquares = (r: readonly number[]) => r.reduce((s, x) => s + x * x, 0);
 
 /**
-<<<<<<< HEAD
- * JᵀJ and Jᵀr by plain loops: spectra give thousands of residuals, and building ml-matrix
- * objects of that size each iteration cost more than the sums themselves.
+ * JᵀJ and the gradient g = Jᵀr, with the largest cosine between r and a column of J, which is
+ * zero at a stationary point whatever the scale of the parameters. Plain loops: spectra give
+ * thousands of residuals, and building ml-matrix objects of that size each iteration cost more
+ * than the sums themselves.
  */
-function normalEquations(
-  J: readonly (readonly number[])[],
-  r: readonly number[],
-  np: number,
-): { A: Matrix; g: number[] } {
+function normalEquations(J: readonly (readonly number[])[], r: readonly number[], ss: number) {
+  const np = J[0]?.length ?? 0;
   const a = new Float64Array(np * np);
   const g = new Array<number>(np).fill(0);
   for (let i = 0; i < J.length; i++) {
@@ -139,15 +137,6 @@ function normalEquations(
       A.set(k, j, v);
     }
   }
-  return { A, g };
-=======
- * JᵀJ and the gradient g = Jᵀr, with the largest cosine between r and a column of J, which is
- * zero at a stationary point whatever the scale of the parameters.
- */
-function normalEquations(J: number[][], r: number[], ss: number) {
-  const Jm = new Matrix(J);
-  const A = Jm.transpose().mmul(Jm);
-  const g = Jm.transpose().mmul(Matrix.columnVector(r)).to1DArray();
   const rNorm = Math.sqrt(ss);
   const cosine = Math.max(...g.map((gj, j) => Math.abs(gj) / (Math.sqrt(A.get(j, j)) * rNorm || 1)));
   return { A, g, cosine };
@@ -179,7 +168,6 @@ function isSmallStep(step: readonly number[], p: readonly number[], tolerance: n
 function predictedDecrease(A: Matrix, g: readonly number[], step: readonly number[]): number {
   const As = A.mmul(Matrix.columnVector(step)).to1DArray();
   return -step.reduce((s, sj, j) => s + sj * (2 * (g[j] ?? 0) + (As[j] ?? 0)), 0);
->>>>>>> tidy
 }
 
 /**
@@ -227,13 +215,7 @@ export function levenbergMarquardt(
   while (iterations < o.maxIterations) {
     if (ss <= o.exactSumOfSquares) return finish('exact-fit');
     iterations++;
-<<<<<<< HEAD
-    const { A, g } = normalEquations(J, r, np);
-    const rNorm = Math.sqrt(ss);
-    const cosine = Math.max(...g.map((gj, j) => Math.abs(gj) / (Math.sqrt(A.get(j, j)) * rNorm || 1)));
-=======
     const { A, g, cosine } = normalEquations(J, r, ss);
->>>>>>> tidy
     if (cosine <= o.gradientTolerance) return finish('small-gradient');
     // Marquardt's scaling; a parameter no residual depends on gets a unit scale instead of zero.
     const scale = g.map((_, j) => A.get(j, j) || 1);
