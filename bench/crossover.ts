@@ -1,9 +1,9 @@
-import { crossoverAnalysis, type Geometry, groundStateMap, sampleVerdict } from '../src/index.js';
-
 /**
  * Timings of the spin-state crossover: one analysis (scan plus Brent root with the full
  * solver) per dⁿ and geometry that has a crossover, a sample verdict, and the default map.
  */
+
+import { crossoverAnalysis, type Geometry, groundStateMap, sampleVerdict } from '../src/index.js';
 
 function time<T>(work: () => T, repeats: number): { ms: number; result: T } {
   let result = work();

@@ -1,3 +1,5 @@
+/** Benchmark of the correlation diagram: sweeps of E/B against Δ/B, and drawing one figure. */
+
 import { pathToFileURL } from 'node:url';
 import { renderDiagram } from '../charts/diagram.js';
 import { sweepDiagram } from '../src/index.js';

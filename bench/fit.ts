@@ -1,11 +1,11 @@
-import { pathToFileURL } from 'node:url';
-import { type FitInput, fitBands, type Geometry, solveCubic } from '../src/index.js';
-
 /**
  * Timings of `fitBands`: a three-band fit with the assignment search for each dⁿ, the bands
  * computed by the solver (synthetic, for timing only) and rounded to 10 cm⁻¹. "first" includes
  * building the Δ/B scan for that dⁿ and C/B; "repeat" reuses it (median of 5).
  */
+
+import { pathToFileURL } from 'node:url';
+import { type FitInput, fitBands, type Geometry, solveCubic } from '../src/index.js';
 
 interface Case {
   readonly n: number;

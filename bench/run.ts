@@ -1,10 +1,11 @@
+/** `npm run bench`: every benchmark of the project, run one after another and printed. Timings depend on the machine. */
+
 import { benchCrossover } from './crossover.js';
 import { benchDiagram } from './diagram.js';
 import { benchFit } from './fit.js';
 import { benchSolver } from './solver.js';
 import { benchSpectrum } from './spectrum.js';
 
-/** `npm run bench`: every benchmark of the project, printed. Timings depend on the machine. */
 const benches: [string, () => void | Promise<void>][] = [
   ['solver', benchSolver],
   ['diagram', benchDiagram],

@@ -1,3 +1,5 @@
+/** Solver benchmark: blocked against full-matrix time per dⁿ, block sizes, and a 1000-point d⁵ sweep. */
+
 import { termsOf } from '../src/atom/terms.js';
 import { solveCubic } from '../src/field/cubic.js';
 import { adaptedBlocks } from '../src/field/cubicBasis.js';
@@ -5,7 +7,7 @@ import { determinantClasses, fullHamiltonian } from '../src/field/hamiltonian.js
 import { symmetricEigen } from '../src/numeric/eigen.js';
 import { timeIt } from './timing.js';
 
-/** Solver benchmark: blocked against full-matrix time per dⁿ, block sizes, and a 1000-point d⁵ sweep. */
+/** Prints the solver timings and block sizes of d¹ to d⁹, then the d⁵ sweep. */
 export function benchSolver(): void {
   console.log('Cubic solver, one point (Dq = 1500, B = 800, C = 3500 cm⁻¹), every level labelled:');
   console.log(

@@ -1,3 +1,5 @@
+/** Benchmark of the spectrum pipeline: reading a large text file and finding bands, on synthetic and demo spectra. */
+
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';

@@ -1,3 +1,5 @@
+/** The timing helper the benchmarks share. */
+
 /** Mean milliseconds per call of `f` over `repeats` calls (after one warm-up call). */
 export function timeIt(f: () => unknown, repeats: number): number {
   f();

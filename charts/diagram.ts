@@ -1,3 +1,10 @@
+/**
+ * The correlation (Tanabe–Sugano-style) diagram as a figure: E/B of every level against Δ/B,
+ * each curve labelled in the figure with its ²ˢ⁺¹Γ (no legend box), spin-allowed curves strong
+ * and spin-forbidden ones light, free-ion terms named where the curves start, and each change of
+ * ground state marked with the high-spin and low-spin sides named.
+ */
+
 import type { SKRSContext2D } from '@napi-rs/canvas';
 import type { Chart, ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
 import { ensure } from '../src/core/errors.js';
@@ -19,13 +26,6 @@ import {
   type TextStyle,
   termRuns,
 } from './typeset.js';
-
-/**
- * The correlation (Tanabe–Sugano-style) diagram as a figure: E/B of every level against Δ/B,
- * each curve labelled in the figure with its ²ˢ⁺¹Γ (no legend box), spin-allowed curves strong
- * and spin-forbidden ones light, free-ion terms named where the curves start, and each change of
- * ground state marked with the high-spin and low-spin sides named.
- */
 
 /** Options of {@link diagramChart}. */
 export interface DiagramChartOptions {

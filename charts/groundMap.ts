@@ -1,12 +1,12 @@
-import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
-import { type GroundStateMap, type MapRow, type MapSegment, pairingCoefficients } from '../src/index.js';
-import { type FigureOptions, renderChart } from './render.js';
-import { chartContext, drawRuns, measureRuns, stateRuns, type TextRun } from './typeset.js';
-
 /**
  * The ground-state map as a figure: regions of each spin state over Δ/B (x) and C/B (y), the
  * exact crossover line, the one-electron rule Δ = Π for comparison, the C/B in use and the sample.
  */
+
+import type { Chart, ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
+import { type GroundStateMap, type MapRow, type MapSegment, pairingCoefficients } from '../src/index.js';
+import { type FigureOptions, renderChart } from './render.js';
+import { chartContext, drawRuns, measureRuns, stateRuns, type TextRun } from './typeset.js';
 
 /** What to mark on the map besides the regions. */
 export interface GroundMapMarks {
@@ -77,77 +77,84 @@ function sameStructure(a: MapRow, b: MapRow): boolean {
   );
 }
 
-/** The chart.js configuration of a ground-state map. */
-export function groundMapChart(map: GroundStateMap, marks: GroundMapMarks = {}): ChartConfiguration {
-  const rows = map.rows;
-  const first = rows[0];
-  const last = rows.at(-1);
+/** The C/B range the map spans (a single row gets a band one unit high). */
+function yRange(map: GroundStateMap): { first: MapRow; yMin: number; yMax: number } {
+  const first = map.rows[0];
+  const last = map.rows.at(-1);
   if (!first || !last) throw new Error('a ground-state map has at least one row');
-  const yMin = first.cOverB;
   const yMax = last.cOverB === first.cOverB ? first.cOverB + 1 : last.cOverB;
-  const colourOf = (S: number) => REGION_COLOURS[roleOf(S, map)];
-  const datasets: ChartDataset<'scatter'>[] = [];
-  const legend: LegendEntry[] = [];
-  const line = (
-    label: string,
-    data: { x: number; y: number }[],
-    colour: string,
-    width: number,
-    dash?: number[],
-  ) => {
-    datasets.push({
-      label,
-      data,
-      showLine: true,
-      borderColor: colour,
-      backgroundColor: colour,
-      borderWidth: width,
-      pointRadius: 0,
-      ...(dash ? { borderDash: dash } : {}),
-    });
+  return { first, yMin: first.cOverB, yMax };
+}
+
+/** The drawn lines and the sample as chart.js datasets, with their legend entries in the same order. */
+interface MapLayers {
+  readonly datasets: ChartDataset<'scatter'>[];
+  readonly legend: LegendEntry[];
+}
+
+function lineDataset(
+  label: string,
+  data: { x: number; y: number }[],
+  colour: string,
+  width: number,
+  dash?: number[],
+): ChartDataset<'scatter'> {
+  return {
+    label,
+    data,
+    showLine: true,
+    borderColor: colour,
+    backgroundColor: colour,
+    borderWidth: width,
+    pointRadius: 0,
+    ...(dash ? { borderDash: dash } : {}),
   };
+}
+
+/** The exact crossover lines (one per crossing index) and the one-electron rule Δ = Π beside them. */
+function crossoverLayers(map: GroundStateMap, yMin: number, yMax: number, layers: MapLayers): void {
+  const rows = map.rows;
   const maxCrossings = Math.max(...rows.map((r) => r.crossings.length));
   for (let k = 0; k < maxCrossings; k++) {
     const data = rows.flatMap((r) => {
       const c = r.crossings[k];
       return c ? [{ x: c.deltaOverB, y: r.cOverB }] : [];
     });
-    line('crossover', data, '#111111', 2.5);
+    layers.datasets.push(lineDataset('crossover', data, '#111111', 2.5));
   }
-  if (maxCrossings > 0)
-    legend.push({ text: 'crossover, full calculation', kind: 'line', colour: '#111111', width: 2.5 });
+  if (maxCrossings === 0) return;
+  layers.legend.push({ text: 'crossover, full calculation', kind: 'line', colour: '#111111', width: 2.5 });
   const pairing = pairingCoefficients(map.n, map.geometry);
-  if (pairing && maxCrossings > 0) {
-    // Δc = Π = kB·B + kC·C, i.e. Δc/B = kB + kC·(C/B): a straight line on the map.
-    const dash = [9, 6];
-    line(
-      'one-electron rule',
-      [yMin, yMax].map((y) => ({ x: pairing.B + pairing.C * y, y })),
-      '#444444',
-      2,
-      dash,
-    );
-    legend.push({
-      text: `one-electron rule Δ = Π, Π = ${pairing.B}B + ${pairing.C}C`,
-      kind: 'line',
-      colour: '#444444',
-      width: 2,
-      dash,
-    });
-  }
+  if (!pairing) return;
+  // Δc = Π = kB·B + kC·C, i.e. Δc/B = kB + kC·(C/B): a straight line on the map.
+  const dash = [9, 6];
+  const rule = [yMin, yMax].map((y) => ({ x: pairing.B + pairing.C * y, y }));
+  layers.datasets.push(lineDataset('one-electron rule', rule, '#444444', 2, dash));
+  layers.legend.push({
+    text: `one-electron rule Δ = Π, Π = ${pairing.B}B + ${pairing.C}C`,
+    kind: 'line',
+    colour: '#444444',
+    width: 2,
+    dash,
+  });
+}
+
+/** The marks: the C/B in use, a Δ/B limit and the sample point. */
+function markLayers(
+  map: GroundStateMap,
+  marks: GroundMapMarks,
+  yMin: number,
+  yMax: number,
+  layers: MapLayers,
+): void {
   if (marks.cOverB !== undefined) {
     const dash = [2, 4];
-    line(
-      'C/B',
-      [
-        { x: 0, y: marks.cOverB },
-        { x: map.maxDeltaOverB, y: marks.cOverB },
-      ],
-      '#1f4e99',
-      2,
-      dash,
-    );
-    legend.push({
+    const data = [
+      { x: 0, y: marks.cOverB },
+      { x: map.maxDeltaOverB, y: marks.cOverB },
+    ];
+    layers.datasets.push(lineDataset('C/B', data, '#1f4e99', 2, dash));
+    layers.legend.push({
       text: `C/B = ${marks.cOverB.toFixed(2)}`,
       kind: 'line',
       colour: '#1f4e99',
@@ -157,21 +164,16 @@ export function groundMapChart(map: GroundStateMap, marks: GroundMapMarks = {}):
   }
   if (marks.limit) {
     const dash = [12, 4, 2, 4];
-    line(
-      'limit',
-      [
-        { x: marks.limit.deltaOverB, y: yMin },
-        { x: marks.limit.deltaOverB, y: yMax },
-      ],
-      '#8b1a1a',
-      2,
-      dash,
-    );
-    legend.push({ text: marks.limit.label, kind: 'line', colour: '#8b1a1a', width: 2, dash });
+    const data = [
+      { x: marks.limit.deltaOverB, y: yMin },
+      { x: marks.limit.deltaOverB, y: yMax },
+    ];
+    layers.datasets.push(lineDataset('limit', data, '#8b1a1a', 2, dash));
+    layers.legend.push({ text: marks.limit.label, kind: 'line', colour: '#8b1a1a', width: 2, dash });
   }
   const sample = marks.sample;
   if (sample) {
-    datasets.push({
+    layers.datasets.push({
       label: 'sample',
       data: [{ x: sample.deltaOverB, y: sample.cOverB }],
       pointStyle: 'circle',
@@ -181,7 +183,7 @@ export function groundMapChart(map: GroundStateMap, marks: GroundMapMarks = {}):
       backgroundColor: '#d62728',
     });
     const spread = sample.sigmaDeltaOverB ? ` ± ${sample.sigmaDeltaOverB.toFixed(1)}` : '';
-    legend.push({
+    layers.legend.push({
       text: sample.label ?? `sample, Δ/B = ${sample.deltaOverB.toFixed(1)}${spread}`,
       kind: 'point',
       colour: '#000000',
@@ -189,187 +191,229 @@ export function groundMapChart(map: GroundStateMap, marks: GroundMapMarks = {}):
       width: 2,
     });
   }
-  const legendRows = Math.ceil(legend.length / LEGEND_COLUMNS);
-  const regions: Plugin<'scatter'> = {
-    id: 'termsplitGroundRegions',
-    // Before the grid (scales are laid out by then), so grid lines show over the fills.
-    beforeDraw(chart) {
-      const { ctx, chartArea, scales } = chart;
-      const px = (x: number) => scales.x?.getPixelForValue(x) ?? 0;
-      const py = (y: number) => scales.y?.getPixelForValue(y) ?? 0;
-      ctx.save();
-      ctx.beginPath();
-      ctx.rect(
-        chartArea.left,
-        chartArea.top,
-        chartArea.right - chartArea.left,
-        chartArea.bottom - chartArea.top,
-      );
-      ctx.clip();
-      const fill = (s: MapSegment, points: readonly [number, number][]) => {
-        ctx.fillStyle = colourOf(s.S);
-        ctx.beginPath();
-        points.forEach(([x, y], i) => {
-          if (i === 0) ctx.moveTo(px(x), py(y));
-          else ctx.lineTo(px(x), py(y));
-        });
-        ctx.closePath();
-        ctx.fill();
-        // A hairline of the same colour closes the seams antialiasing leaves between polygons.
-        ctx.strokeStyle = ctx.fillStyle;
-        ctx.lineWidth = 1;
-        ctx.stroke();
-      };
-      const band = (row: MapRow, y0: number, y1: number) => {
-        for (const s of row.segments) {
-          fill(s, [
-            [s.from, y0],
-            [s.to, y0],
-            [s.to, y1],
-            [s.from, y1],
-          ]);
-        }
-      };
-      if (rows.length === 1) band(first, yMin, yMax);
-      for (let i = 0; i + 1 < rows.length; i++) {
-        const a = rows[i];
-        const b = rows[i + 1];
-        if (!a || !b) continue;
-        if (sameStructure(a, b)) {
-          a.segments.forEach((s, j) => {
-            const t = b.segments[j];
-            if (!t) return;
-            fill(s, [
-              [s.from, a.cOverB],
-              [s.to, a.cOverB],
-              [t.to, b.cOverB],
-              [t.from, b.cOverB],
-            ]);
-          });
-        } else {
-          const mid = (a.cOverB + b.cOverB) / 2;
-          band(a, a.cOverB, mid);
-          band(b, mid, b.cOverB);
-        }
-      }
-      ctx.restore();
-    },
-    afterDatasetsDraw(chart) {
-      const { scales } = chart;
-      const ctx = chartContext(chart);
-      const px = (x: number) => scales.x?.getPixelForValue(x) ?? 0;
-      const py = (y: number) => scales.y?.getPixelForValue(y) ?? 0;
-      ctx.save();
-      // Region names in the upper part of the map, clear of the C/B line and sample in the middle.
-      const labelRow = rows[Math.round(0.8 * (rows.length - 1))] ?? first;
-      for (const s of labelRow.segments) {
-        const x = px((s.from + s.to) / 2);
-        const y = py(labelRow.cOverB);
-        const name = ROLE_NAMES[roleOf(s.S, map)];
-        const state: TextRun[] = [...stateRuns(s.symbol), { text: `,  S = ${spinText(s.S)}`, shift: 'base' }];
-        const nameRuns: TextRun[] = [{ text: name, shift: 'base' }];
-        const stateStyle = { size: 17, color: '#111111' };
-        const nameStyle = { size: 18, color: '#111111', bold: true };
-        // A patch of the region's own colour behind the text keeps lines from running through it.
-        const w =
-          Math.max(measureRuns(ctx, state, stateStyle), name ? measureRuns(ctx, nameRuns, nameStyle) : 0) +
-          16;
-        ctx.fillStyle = colourOf(s.S);
-        ctx.fillRect(x - w / 2, y - (name ? 28 : 14), w, name ? 56 : 28);
-        if (name) drawRuns(ctx, nameRuns, x, y - 13, nameStyle, 'center');
-        drawRuns(ctx, state, x, name ? y + 13 : y, stateStyle, 'center');
-      }
-      if (sample?.sigmaDeltaOverB) {
-        const y = py(sample.cOverB);
-        const x0 = px(sample.deltaOverB - sample.sigmaDeltaOverB);
-        const x1 = px(sample.deltaOverB + sample.sigmaDeltaOverB);
-        ctx.strokeStyle = '#000000';
-        ctx.lineWidth = 1.8;
-        ctx.beginPath();
-        ctx.moveTo(x0, y);
-        ctx.lineTo(x1, y);
-        for (const x of [x0, x1]) {
-          ctx.moveTo(x, y - 6);
-          ctx.lineTo(x, y + 6);
-        }
-        ctx.stroke();
-      }
-      ctx.restore();
-    },
-    afterDraw(chart) {
-      if (legend.length === 0) return;
-      const { chartArea, height } = chart;
-      const ctx = chartContext(chart);
-      ctx.save();
-      const columnWidth = (chartArea.right - chartArea.left) / LEGEND_COLUMNS;
-      const top = height - legendRows * LEGEND_ROW - 6;
-      legend.forEach((entry, i) => {
-        const x = chartArea.left + (i % LEGEND_COLUMNS) * columnWidth + 8;
-        const y = top + Math.floor(i / LEGEND_COLUMNS) * LEGEND_ROW + LEGEND_ROW / 2;
-        ctx.strokeStyle = entry.colour;
-        ctx.lineWidth = entry.width;
-        ctx.setLineDash(entry.dash ? [...entry.dash] : []);
-        ctx.beginPath();
-        if (entry.kind === 'line') {
-          ctx.moveTo(x, y);
-          ctx.lineTo(x + 44, y);
-          ctx.stroke();
-        } else {
-          ctx.fillStyle = entry.fill ?? entry.colour;
-          ctx.arc(x + 22, y, 6, 0, 2 * Math.PI);
-          ctx.fill();
-          ctx.stroke();
-        }
-        ctx.setLineDash([]);
-        drawRuns(
-          ctx,
-          [{ text: entry.text, shift: 'base' }],
-          x + 54,
-          y,
-          { size: LEGEND_FONT, color: '#111111' },
-          'left',
-        );
-      });
-      ctx.restore();
-    },
+}
+
+/** Pixel positions of data values on a drawn chart. */
+function pixels(chart: Chart<'scatter'>): { px: (x: number) => number; py: (y: number) => number } {
+  const { scales } = chart;
+  return {
+    px: (x: number) => scales.x?.getPixelForValue(x) ?? 0,
+    py: (y: number) => scales.y?.getPixelForValue(y) ?? 0,
   };
+}
+
+/** Fills the spin-state regions, row to row: polygons where neighbouring rows match, steps where not. */
+function drawRegions(chart: Chart<'scatter'>, map: GroundStateMap): void {
+  const { ctx, chartArea } = chart;
+  const { px, py } = pixels(chart);
+  const { first, yMin, yMax } = yRange(map);
+  const rows = map.rows;
+  ctx.save();
+  ctx.beginPath();
+  ctx.rect(chartArea.left, chartArea.top, chartArea.right - chartArea.left, chartArea.bottom - chartArea.top);
+  ctx.clip();
+  const fill = (s: MapSegment, points: readonly [number, number][]) => {
+    ctx.fillStyle = REGION_COLOURS[roleOf(s.S, map)];
+    ctx.beginPath();
+    points.forEach(([x, y], i) => {
+      if (i === 0) ctx.moveTo(px(x), py(y));
+      else ctx.lineTo(px(x), py(y));
+    });
+    ctx.closePath();
+    ctx.fill();
+    // A hairline of the same colour closes the seams antialiasing leaves between polygons.
+    ctx.strokeStyle = ctx.fillStyle;
+    ctx.lineWidth = 1;
+    ctx.stroke();
+  };
+  const band = (row: MapRow, y0: number, y1: number) => {
+    for (const s of row.segments) {
+      fill(s, [
+        [s.from, y0],
+        [s.to, y0],
+        [s.to, y1],
+        [s.from, y1],
+      ]);
+    }
+  };
+  if (rows.length === 1) band(first, yMin, yMax);
+  for (let i = 0; i + 1 < rows.length; i++) {
+    const a = rows[i];
+    const b = rows[i + 1];
+    if (!a || !b) continue;
+    if (sameStructure(a, b)) {
+      a.segments.forEach((s, j) => {
+        const t = b.segments[j];
+        if (!t) return;
+        fill(s, [
+          [s.from, a.cOverB],
+          [s.to, a.cOverB],
+          [t.to, b.cOverB],
+          [t.from, b.cOverB],
+        ]);
+      });
+    } else {
+      const mid = (a.cOverB + b.cOverB) / 2;
+      band(a, a.cOverB, mid);
+      band(b, mid, b.cOverB);
+    }
+  }
+  ctx.restore();
+}
+
+/** Region names and states, in the upper part of the map, clear of the C/B line and sample in the middle. */
+function drawRegionLabels(chart: Chart<'scatter'>, map: GroundStateMap): void {
+  const ctx = chartContext(chart);
+  const { px, py } = pixels(chart);
+  const rows = map.rows;
+  const labelRow = rows[Math.round(0.8 * (rows.length - 1))] ?? yRange(map).first;
+  ctx.save();
+  for (const s of labelRow.segments) {
+    const x = px((s.from + s.to) / 2);
+    const y = py(labelRow.cOverB);
+    const name = ROLE_NAMES[roleOf(s.S, map)];
+    const state: TextRun[] = [...stateRuns(s.symbol), { text: `,  S = ${spinText(s.S)}`, shift: 'base' }];
+    const nameRuns: TextRun[] = [{ text: name, shift: 'base' }];
+    const stateStyle = { size: 17, color: '#111111' };
+    const nameStyle = { size: 18, color: '#111111', bold: true };
+    // A patch of the region's own colour behind the text keeps lines from running through it.
+    const w =
+      Math.max(measureRuns(ctx, state, stateStyle), name ? measureRuns(ctx, nameRuns, nameStyle) : 0) + 16;
+    ctx.fillStyle = REGION_COLOURS[roleOf(s.S, map)];
+    ctx.fillRect(x - w / 2, y - (name ? 28 : 14), w, name ? 56 : 28);
+    if (name) drawRuns(ctx, nameRuns, x, y - 13, nameStyle, 'center');
+    drawRuns(ctx, state, x, name ? y + 13 : y, stateStyle, 'center');
+  }
+  ctx.restore();
+}
+
+/** The sample's horizontal error bar in Δ/B, with end ticks. */
+function drawSampleErrorBar(chart: Chart<'scatter'>, sample: GroundMapMarks['sample']): void {
+  if (!sample?.sigmaDeltaOverB) return;
+  const ctx = chartContext(chart);
+  const { px, py } = pixels(chart);
+  const y = py(sample.cOverB);
+  const x0 = px(sample.deltaOverB - sample.sigmaDeltaOverB);
+  const x1 = px(sample.deltaOverB + sample.sigmaDeltaOverB);
+  ctx.save();
+  ctx.strokeStyle = '#000000';
+  ctx.lineWidth = 1.8;
+  ctx.beginPath();
+  ctx.moveTo(x0, y);
+  ctx.lineTo(x1, y);
+  for (const x of [x0, x1]) {
+    ctx.moveTo(x, y - 6);
+    ctx.lineTo(x, y + 6);
+  }
+  ctx.stroke();
+  ctx.restore();
+}
+
+/** The legend under the plot, in LEGEND_COLUMNS columns. */
+function drawLegend(chart: Chart<'scatter'>, legend: readonly LegendEntry[]): void {
+  if (legend.length === 0) return;
+  const { chartArea, height } = chart;
+  const ctx = chartContext(chart);
+  ctx.save();
+  const columnWidth = (chartArea.right - chartArea.left) / LEGEND_COLUMNS;
+  const top = height - legendRows(legend) * LEGEND_ROW - 6;
+  legend.forEach((entry, i) => {
+    const x = chartArea.left + (i % LEGEND_COLUMNS) * columnWidth + 8;
+    const y = top + Math.floor(i / LEGEND_COLUMNS) * LEGEND_ROW + LEGEND_ROW / 2;
+    ctx.strokeStyle = entry.colour;
+    ctx.lineWidth = entry.width;
+    ctx.setLineDash(entry.dash ? [...entry.dash] : []);
+    ctx.beginPath();
+    if (entry.kind === 'line') {
+      ctx.moveTo(x, y);
+      ctx.lineTo(x + 44, y);
+      ctx.stroke();
+    } else {
+      ctx.fillStyle = entry.fill ?? entry.colour;
+      ctx.arc(x + 22, y, 6, 0, 2 * Math.PI);
+      ctx.fill();
+      ctx.stroke();
+    }
+    ctx.setLineDash([]);
+    drawRuns(
+      ctx,
+      [{ text: entry.text, shift: 'base' }],
+      x + 54,
+      y,
+      { size: LEGEND_FONT, color: '#111111' },
+      'left',
+    );
+  });
+  ctx.restore();
+}
+
+function legendRows(legend: readonly LegendEntry[]): number {
+  return Math.ceil(legend.length / LEGEND_COLUMNS);
+}
+
+/** Axes, title and room under the plot for the legend. */
+function mapOptions(
+  map: GroundStateMap,
+  marks: GroundMapMarks,
+  legend: readonly LegendEntry[],
+): ChartConfiguration<'scatter'>['options'] {
+  const { yMin, yMax } = yRange(map);
   const where = map.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
   const dn = `d${[...String(map.n)].map((c) => SUPERSCRIPT_DIGITS[Number(c)]).join('')}`;
   const axis = (text: string) => ({ display: true, text, font: { size: 17 } });
   return {
-    type: 'scatter',
-    data: { datasets },
-    options: {
-      layout: { padding: { left: 8, right: 24, top: 4, bottom: 8 + legendRows * LEGEND_ROW } },
-      scales: {
-        x: {
-          type: 'linear',
-          min: 0,
-          max: map.maxDeltaOverB,
-          title: axis('Δ/B   (Δ = 10Dq)'),
-          ticks: { font: { size: 15 } },
-          grid: { color: 'rgba(0,0,0,0.14)' },
-        },
-        y: {
-          type: 'linear',
-          min: yMin,
-          max: yMax,
-          title: axis('C/B'),
-          ticks: { font: { size: 15 } },
-          grid: { color: 'rgba(0,0,0,0.14)' },
-        },
+    layout: { padding: { left: 8, right: 24, top: 4, bottom: 8 + legendRows(legend) * LEGEND_ROW } },
+    scales: {
+      x: {
+        type: 'linear',
+        min: 0,
+        max: map.maxDeltaOverB,
+        title: axis('Δ/B   (Δ = 10Dq)'),
+        ticks: { font: { size: 15 } },
+        grid: { color: 'rgba(0,0,0,0.14)' },
       },
-      plugins: {
-        title: {
-          display: true,
-          text: marks.title ?? `${dn}, ${where}: lowest spin state`,
-          font: { size: 19, weight: 'bold' },
-        },
-        legend: { display: false },
-        tooltip: { enabled: false },
+      y: {
+        type: 'linear',
+        min: yMin,
+        max: yMax,
+        title: axis('C/B'),
+        ticks: { font: { size: 15 } },
+        grid: { color: 'rgba(0,0,0,0.14)' },
       },
     },
-    plugins: [regions],
+    plugins: {
+      title: {
+        display: true,
+        text: marks.title ?? `${dn}, ${where}: lowest spin state`,
+        font: { size: 19, weight: 'bold' },
+      },
+      legend: { display: false },
+      tooltip: { enabled: false },
+    },
+  };
+}
+
+/** The chart.js configuration of a ground-state map: lines and marks as datasets, regions, labels and legend drawn by a plugin. */
+export function groundMapChart(map: GroundStateMap, marks: GroundMapMarks = {}): ChartConfiguration {
+  const { yMin, yMax } = yRange(map);
+  const layers: MapLayers = { datasets: [], legend: [] };
+  crossoverLayers(map, yMin, yMax, layers);
+  markLayers(map, marks, yMin, yMax, layers);
+  const painter: Plugin<'scatter'> = {
+    id: 'termsplitGroundRegions',
+    // Before the grid (scales are laid out by then), so grid lines show over the fills.
+    beforeDraw: (chart) => drawRegions(chart, map),
+    afterDatasetsDraw: (chart) => {
+      drawRegionLabels(chart, map);
+      drawSampleErrorBar(chart, marks.sample);
+    },
+    afterDraw: (chart) => drawLegend(chart, layers.legend),
+  };
+  return {
+    type: 'scatter',
+    data: { datasets: layers.datasets },
+    options: mapOptions(map, marks, layers.legend),
+    plugins: [painter],
   };
 }
 

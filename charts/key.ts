@@ -1,3 +1,5 @@
+/** The small line key of the figures (spin-allowed and spin-forbidden line samples), drawn on the canvas. */
+
 import type { SKRSContext2D } from '@napi-rs/canvas';
 import { STYLE } from './style.js';
 import { drawRuns, measureRuns, type TextRun, type TextStyle } from './typeset.js';

@@ -1,3 +1,9 @@
+/**
+ * The energy-level diagram at one point, free ion → field: the free-ion terms as bars on the
+ * left, the cubic levels as bars on the right, each level joined to the term it comes from,
+ * every bar labelled. Energies in cm⁻¹ above the lowest term and the ground level.
+ */
+
 import type { SKRSContext2D } from '@napi-rs/canvas';
 import type { Chart, ChartConfiguration, Plugin } from 'chart.js';
 import { type CubicResult, type FreeIonTerm, freeIonTerms } from '../src/index.js';
@@ -15,12 +21,6 @@ import {
   type TextStyle,
   termRuns,
 } from './typeset.js';
-
-/**
- * The energy-level diagram at one point, free ion → field: the free-ion terms as bars on the
- * left, the cubic levels as bars on the right, each level joined to the term it comes from,
- * every bar labelled. Energies in cm⁻¹ above the lowest term and the ground level.
- */
 
 /** Options of {@link levelDiagramChart}. */
 export interface LevelDiagramOptions {
@@ -106,6 +106,17 @@ function levelBars(result: CubicResult, terms: readonly FreeIonTerm[], options: 
   };
 }
 
+/** The canvas of the plot and where values land on it. */
+interface LevelCanvas {
+  readonly ctx: SKRSContext2D;
+  readonly chart: Chart;
+  readonly px: (x: number) => number;
+  readonly py: (e: number) => number;
+  /** Spin of the ground state: levels of this spin are drawn strong. */
+  readonly groundS: number;
+}
+
+/** The title, the parameters, bars with joins, their labels, the column captions and the key. */
 function drawLevels(
   ctx: SKRSContext2D,
   chart: Chart,
@@ -113,32 +124,44 @@ function drawLevels(
   terms: readonly FreeIonTerm[],
   options: LevelDiagramOptions,
 ): void {
-  const area = chart.chartArea;
-  const px = (x: number) => chart.scales.x?.getPixelForValue(x) ?? 0;
-  const py = (e: number) => chart.scales.y?.getPixelForValue(e) ?? 0;
-  const groundS = result.ground.S;
-  const color = (S: number) => (S === groundS ? STYLE.allowed : STYLE.forbidden);
-  const textColor = (S: number) => (S === groundS ? STYLE.allowed : STYLE.forbiddenText);
-  const line = (
-    x0: number,
-    y0: number,
-    x1: number,
-    y1: number,
-    stroke: string,
-    width: number,
-    dash: number[] = [],
-  ) => {
-    ctx.save();
-    ctx.strokeStyle = stroke;
-    ctx.lineWidth = width;
-    ctx.setLineDash(dash);
-    ctx.lineCap = 'butt';
-    ctx.beginPath();
-    ctx.moveTo(x0, y0);
-    ctx.lineTo(x1, y1);
-    ctx.stroke();
-    ctx.restore();
+  const canvas: LevelCanvas = {
+    ctx,
+    chart,
+    px: (x: number) => chart.scales.x?.getPixelForValue(x) ?? 0,
+    py: (e: number) => chart.scales.y?.getPixelForValue(e) ?? 0,
+    groundS: result.ground.S,
   };
+  drawHeader(canvas, result, options);
+  drawBars(canvas, result, terms);
+  drawBarLabels(canvas, result, terms);
+  drawCaptions(canvas, result);
+}
+
+function strokeLine(
+  ctx: SKRSContext2D,
+  x0: number,
+  y0: number,
+  x1: number,
+  y1: number,
+  stroke: string,
+  width: number,
+  dash: number[] = [],
+): void {
+  ctx.save();
+  ctx.strokeStyle = stroke;
+  ctx.lineWidth = width;
+  ctx.setLineDash(dash);
+  ctx.lineCap = 'butt';
+  ctx.beginPath();
+  ctx.moveTo(x0, y0);
+  ctx.lineTo(x1, y1);
+  ctx.stroke();
+  ctx.restore();
+}
+
+/** Title and the Dq, B, C line above the plot. */
+function drawHeader({ ctx, chart }: LevelCanvas, result: CubicResult, options: LevelDiagramOptions): void {
+  const area = chart.chartArea;
   const title: TextStyle = { size: STYLE.titleSize, color: STYLE.ink, bold: true };
   const mid = (area.left + area.right) / 2;
   drawRuns(ctx, markupRuns(levelTitleMarkup(result, options)), mid, 18, title, 'center');
@@ -151,14 +174,22 @@ function drawLevels(
     { size: STYLE.smallSize + 1, color: STYLE.muted },
     'center',
   );
+}
 
-  // Joins first, under the bars: each level to its parent term.
+/** Term and level bars, and, first so they lie under the bars, the joins of each level to its parent term. */
+function drawBars(
+  { ctx, px, py, groundS }: LevelCanvas,
+  result: CubicResult,
+  terms: readonly FreeIonTerm[],
+): void {
+  const color = (S: number) => (S === groundS ? STYLE.allowed : STYLE.forbidden);
   const termEnergy = new Map(terms.map((t) => [t.name, t.energy]));
   for (const l of result.levels) {
     const e = termEnergy.get(l.parent);
     if (e === undefined) continue;
     const allowed = l.S === groundS;
-    line(
+    strokeLine(
+      ctx,
       px(FREE_ION.to),
       py(e),
       px(FIELD.from),
@@ -169,12 +200,36 @@ function drawLevels(
     );
   }
   for (const t of terms)
-    line(px(FREE_ION.from), py(t.energy), px(FREE_ION.to), py(t.energy), color(t.S), t.S === groundS ? 3 : 2);
+    strokeLine(
+      ctx,
+      px(FREE_ION.from),
+      py(t.energy),
+      px(FREE_ION.to),
+      py(t.energy),
+      color(t.S),
+      t.S === groundS ? 3 : 2,
+    );
   for (const l of result.levels)
-    line(px(FIELD.from), py(l.energy), px(FIELD.to), py(l.energy), color(l.S), l.S === groundS ? 3 : 2);
+    strokeLine(
+      ctx,
+      px(FIELD.from),
+      py(l.energy),
+      px(FIELD.to),
+      py(l.energy),
+      color(l.S),
+      l.S === groundS ? 3 : 2,
+    );
+}
 
+/** Term labels left of their bars, level labels right of theirs; spread apart, with leaders where moved. */
+function drawBarLabels(
+  { ctx, chart, px, py, groundS }: LevelCanvas,
+  result: CubicResult,
+  terms: readonly FreeIonTerm[],
+): void {
+  const area = chart.chartArea;
+  const textColor = (S: number) => (S === groundS ? STYLE.allowed : STYLE.forbiddenText);
   const h = runsHeight(LABEL) * 1.05;
-  // Term labels left of their bars, level labels right of theirs; spread apart, with leaders where moved.
   const columns = [
     {
       items: terms.map((t) => ({ runs: termRuns(t.name), S: t.S, y: py(t.energy) })),
@@ -197,7 +252,15 @@ function drawLevels(
     column.items.forEach((item, i) => {
       const y = spread[i] ?? item.y;
       const x = column.barEdge + column.side * 30;
-      line(column.barEdge + column.side * 3, item.y, x - column.side * 3, y, textColor(item.S), 0.7);
+      strokeLine(
+        ctx,
+        column.barEdge + column.side * 3,
+        item.y,
+        x - column.side * 3,
+        y,
+        textColor(item.S),
+        0.7,
+      );
       drawRuns(
         ctx,
         item.runs,
@@ -208,6 +271,11 @@ function drawLevels(
       );
     });
   }
+}
+
+/** "free ion" and "O_h field" under the columns, and the line key. */
+function drawCaptions({ ctx, chart, px }: LevelCanvas, result: CubicResult): void {
+  const area = chart.chartArea;
   const caption: TextStyle = { size: STYLE.smallSize + 1, color: STYLE.muted, bold: true };
   const captionY = area.bottom + 22;
   drawRuns(

@@ -1,14 +1,14 @@
-import { createRequire } from 'node:module';
-import { createCanvas, GlobalFonts, PDFDocument, type SKRSContext2D, SvgExportFlag } from '@napi-rs/canvas';
-import { Chart, type ChartConfiguration, type Plugin, registerables } from 'chart.js';
-import { InputError } from '../src/index.js';
-
 /**
  * Headless rendering of chart.js figures through @napi-rs/canvas (Skia, no system libraries):
  * PNG, SVG (text turned into paths, so it looks the same everywhere) and PDF (vector, fonts
  * embedded). The DejaVu fonts ship as an npm package, so figures do not depend on what fonts a
  * machine has.
  */
+
+import { createRequire } from 'node:module';
+import { createCanvas, GlobalFonts, PDFDocument, type SKRSContext2D, SvgExportFlag } from '@napi-rs/canvas';
+import { Chart, type ChartConfiguration, type Plugin, registerables } from 'chart.js';
+import { InputError } from '../src/index.js';
 
 /** Output formats, chosen by file extension. */
 export type FigureFormat = 'png' | 'svg' | 'pdf';

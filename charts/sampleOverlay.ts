@@ -1,13 +1,13 @@
-import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
-import { ensure } from '../src/core/errors.js';
-import { STYLE } from './style.js';
-import { chartContext, drawRuns } from './typeset.js';
-
 /**
  * A sample on a correlation diagram: a vertical line at its Δ/B and its observed band energies,
  * divided by its B, as points on that line, so a reader sees which curves they fall on. Works
  * on any chart whose x axis is Δ/B and y axis E/B (the diagram of charts/diagram.ts).
  */
+
+import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
+import { ensure } from '../src/core/errors.js';
+import { STYLE } from './style.js';
+import { chartContext, drawRuns } from './typeset.js';
 
 /** A sample to mark. Energies in cm⁻¹. */
 export interface SampleMark {

@@ -1,13 +1,13 @@
-import type { ChartConfiguration, Plugin } from 'chart.js';
-import { type SeriesEntry, unicodeIon } from '../src/index.js';
-import { type FigureOptions, renderChart } from './render.js';
-import { STYLE } from './style.js';
-
 /**
  * Trends across a series of samples: 10Dq or β of each sample, with ±1 standard-error bars,
  * samples grouped by ion (one colour each) and ordered within a group by 10Dq, so that a reader
  * sees the spectrochemical and nephelauxetic orders of the series at a glance.
  */
+
+import type { ChartConfiguration, Plugin } from 'chart.js';
+import { type SeriesEntry, unicodeIon } from '../src/index.js';
+import { type FigureOptions, renderChart } from './render.js';
+import { STYLE } from './style.js';
 
 /** The quantity a trend figure shows. */
 export type TrendQuantity = 'tenDq' | 'beta';
@@ -27,16 +27,23 @@ function errorOf(e: SeriesEntry, q: TrendQuantity): number | null {
   return q === 'tenDq' ? e.errors.tenDq : e.errors.beta;
 }
 
-/** The chart.js configuration of a trend figure over `entries` in the order given. */
-export function trendChart(entries: readonly SeriesEntry[], quantity: TrendQuantity): ChartConfiguration {
-  const ions = [...new Set(entries.map((e) => `${e.ion}/${e.geometry}`))];
-  const labels = entries.map((e) => e.name);
-  const datasets = ions.map((key, k) => {
-    const colour = ION_COLOURS[k % ION_COLOURS.length] ?? STYLE.ink;
+/** Key of an ion in a given geometry: one colour and one legend entry each. */
+function ionKey(e: SeriesEntry): string {
+  return `${e.ion}/${e.geometry}`;
+}
+
+function ionColour(k: number): string {
+  return ION_COLOURS[k % ION_COLOURS.length] ?? STYLE.ink;
+}
+
+/** One dataset per ion, with a value at that ion's samples and gaps elsewhere. */
+function trendDatasets(entries: readonly SeriesEntry[], quantity: TrendQuantity, ions: readonly string[]) {
+  return ions.map((key, k) => {
+    const colour = ionColour(k);
     const [ion = '', geometry = ''] = key.split('/');
     return {
       label: `${unicodeIon(ion)}${geometry === 'tet' ? ' (Td)' : ''}`,
-      data: entries.map((e) => (`${e.ion}/${e.geometry}` === key ? trendValue(e, quantity) : null)),
+      data: entries.map((e) => (ionKey(e) === key ? trendValue(e, quantity) : null)),
       borderColor: colour,
       backgroundColor: colour,
       pointRadius: 6,
@@ -44,7 +51,15 @@ export function trendChart(entries: readonly SeriesEntry[], quantity: TrendQuant
       showLine: false,
     };
   });
-  const errorBars: Plugin = {
+}
+
+/** ±1 standard-error bars with end caps, in each ion's colour. */
+function errorBarsPlugin(
+  entries: readonly SeriesEntry[],
+  quantity: TrendQuantity,
+  ions: readonly string[],
+): Plugin {
+  return {
     id: 'termsplitErrorBars',
     afterDatasetsDraw(chart) {
       const { ctx, scales } = chart;
@@ -57,8 +72,7 @@ export function trendChart(entries: readonly SeriesEntry[], quantity: TrendQuant
         const x = scales.x?.getPixelForValue(i) ?? 0;
         const y0 = scales.y?.getPixelForValue(v - s) ?? 0;
         const y1 = scales.y?.getPixelForValue(v + s) ?? 0;
-        const k = ions.indexOf(`${e.ion}/${e.geometry}`);
-        ctx.strokeStyle = ION_COLOURS[k % ION_COLOURS.length] ?? STYLE.ink;
+        ctx.strokeStyle = ionColour(ions.indexOf(ionKey(e)));
         ctx.beginPath();
         ctx.moveTo(x, y0);
         ctx.lineTo(x, y1);
@@ -71,18 +85,33 @@ export function trendChart(entries: readonly SeriesEntry[], quantity: TrendQuant
       ctx.restore();
     },
   };
+}
+
+/** The y axis: 10Dq from zero, so that ratios read off the figure; β around its values, which lie near 1. */
+function trendYAxis(entries: readonly SeriesEntry[], quantity: TrendQuantity) {
   const values = entries.flatMap((e) => {
     const v = trendValue(e, quantity);
     const s = errorOf(e, quantity) ?? 0;
     return v === null ? [] : [v - s, v + s];
   });
-  // 10Dq from zero, so that ratios read off the figure; β around its values, which lie near 1.
   const lo = quantity === 'tenDq' ? 0 : Math.min(...values);
   const hi = Math.max(...values);
   const pad = (hi - lo) * 0.1 || Math.abs(hi) * 0.05 || 1;
   return {
+    ...(quantity === 'tenDq' ? { min: 0 } : { suggestedMin: lo - pad }),
+    suggestedMax: hi + pad,
+    title: { display: true, text: TITLES[quantity].axis, font: { size: STYLE.axisTitleSize } },
+    ticks: { font: { size: STYLE.tickSize } },
+    grid: { color: STYLE.grid },
+  };
+}
+
+/** The chart.js configuration of a trend figure over `entries` in the order given. */
+export function trendChart(entries: readonly SeriesEntry[], quantity: TrendQuantity): ChartConfiguration {
+  const ions = [...new Set(entries.map(ionKey))];
+  return {
     type: 'line',
-    data: { labels, datasets },
+    data: { labels: entries.map((e) => e.name), datasets: trendDatasets(entries, quantity, ions) },
     options: {
       layout: { padding: { left: 8, right: 24, top: 8, bottom: 8 } },
       plugins: {
@@ -105,16 +134,10 @@ export function trendChart(entries: readonly SeriesEntry[], quantity: TrendQuant
           ticks: { font: { size: STYLE.tickSize }, maxRotation: 30, minRotation: 0, autoSkip: false },
           grid: { color: STYLE.grid },
         },
-        y: {
-          ...(quantity === 'tenDq' ? { min: 0 } : { suggestedMin: lo - pad }),
-          suggestedMax: hi + pad,
-          title: { display: true, text: TITLES[quantity].axis, font: { size: STYLE.axisTitleSize } },
-          ticks: { font: { size: STYLE.tickSize } },
-          grid: { color: STYLE.grid },
-        },
+        y: trendYAxis(entries, quantity),
       },
     },
-    plugins: [errorBars],
+    plugins: [errorBarsPlugin(entries, quantity, ions)],
   };
 }
 

@@ -1,3 +1,10 @@
+/**
+ * The overlay figure of a measured absorption spectrum: the data against wavenumber with a
+ * wavelength axis on top, the fitted Gaussian bands (drawn on the baseline) and their sum, and
+ * predicted transitions as labelled vertical marks, spin-allowed ones prominent and
+ * spin-forbidden ones light.
+ */
+
 import type { ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
 import { xyReduce } from 'ml-spectra-processing';
 import {
@@ -10,13 +17,6 @@ import {
   parseStateLabel,
 } from '../src/index.js';
 import { type FigureOptions, FONT_FAMILY, renderChart } from './render.js';
-
-/**
- * The overlay figure of a measured absorption spectrum: the data against wavenumber with a
- * wavelength axis on top, the fitted Gaussian bands (drawn on the baseline) and their sum, and
- * predicted transitions as labelled vertical marks, spin-allowed ones prominent and
- * spin-forbidden ones light.
- */
 
 /** A predicted transition from the ground state, to draw as a vertical mark. */
 export interface PredictedTransition {
@@ -105,8 +105,10 @@ function wavelengthTicks(from: number, to: number): number[] {
   return kept.sort((a, b) => b - a);
 }
 
-/** The chart.js configuration of the overlay figure. */
-export function spectrumChart(input: SpectrumFigureInput): ChartConfiguration {
+type XY = { x: ArrayLike<number>; y: ArrayLike<number> };
+
+/** The measured points inside the window, reduced to about {@link MAX_DRAWN_POINTS}. */
+function drawnPoints(input: SpectrumFigureInput): XY {
   const { from, to } = input.window;
   const inWindow = { x: [] as number[], y: [] as number[] };
   for (let i = 0; i < input.measured.x.length; i++) {
@@ -116,139 +118,180 @@ export function spectrumChart(input: SpectrumFigureInput): ChartConfiguration {
       inWindow.y.push(input.measured.y[i] as number);
     }
   }
-  const drawn =
-    inWindow.x.length > MAX_DRAWN_POINTS ? xyReduce(inWindow, { nbPoints: MAX_DRAWN_POINTS }) : inWindow;
-  const curveX = Array.from(
-    { length: CURVE_POINTS },
-    (_, i) => from + ((to - from) * i) / (CURVE_POINTS - 1),
-  );
-  const baseline = curveX.map(
-    (x) => input.baseline.offset + input.baseline.slope * (x - input.baseline.reference),
-  );
-  const sum = bandSum(input.bands, curveX, input.baseline);
-  const points = (xs: readonly number[], ys: ArrayLike<number>) =>
-    xs.map((x, i) => ({ x, y: ys[i] as number }));
+  return inWindow.x.length > MAX_DRAWN_POINTS ? xyReduce(inWindow, { nbPoints: MAX_DRAWN_POINTS }) : inWindow;
+}
 
+/** The fitted curves on an even grid over the window: the baseline and bands + baseline. */
+interface FitCurves {
+  readonly x: number[];
+  readonly baseline: number[];
+  readonly sum: ArrayLike<number> & Iterable<number>;
+}
+
+function fitCurves(input: SpectrumFigureInput): FitCurves {
+  const { from, to } = input.window;
+  const x = Array.from({ length: CURVE_POINTS }, (_, i) => from + ((to - from) * i) / (CURVE_POINTS - 1));
+  const baseline = x.map(
+    (v) => input.baseline.offset + input.baseline.slope * (v - input.baseline.reference),
+  );
+  return { x, baseline, sum: bandSum(input.bands, x, input.baseline) };
+}
+
+function points(xs: ArrayLike<number>, ys: ArrayLike<number>): { x: number; y: number }[] {
+  return Array.from(xs, (x, i) => ({ x, y: ys[i] as number }));
+}
+
+/** The datasets: measured data, fit, each band (d–d and charge transfer), baseline, and legend entries of the marks. */
+function spectrumDatasets(
+  input: SpectrumFigureInput,
+  drawn: XY,
+  curves: FitCurves,
+  transitions: readonly PredictedTransition[],
+): ChartDataset<'scatter'>[] {
   const datasets: ChartDataset<'scatter'>[] = [
     // The data are drawn first, under the fitted curves (a higher order is drawn earlier).
-    { ...line('Measured', points(drawn.x as number[], drawn.y), MEASURED_COLOUR, 1.1), order: 1 },
-    line('Fit: bands + baseline', points(curveX, sum), SUM_COLOUR, 1.6, [6, 3]),
+    { ...line('Measured', points(drawn.x, drawn.y), MEASURED_COLOUR, 1.1), order: 1 },
+    line('Fit: bands + baseline', points(curves.x, curves.sum), SUM_COLOUR, 1.6, [6, 3]),
   ];
   let firstBand = true;
   let firstCt = true;
-  const range = Math.max(...sum) - Math.min(0, ...sum);
+  const range = Math.max(...curves.sum) - Math.min(0, ...curves.sum);
   for (const band of input.bands) {
     // A band is drawn on the baseline only where it rises visibly above it, so the bands'
     // flat wings do not hide the baseline.
-    const ys = curveX.map((x, i) => {
+    const ys = curves.x.map((x, i) => {
       const g = gaussianValue(band, x);
-      return g > VISIBLE_FRACTION * range ? (baseline[i] as number) + g : Number.NaN;
+      return g > VISIBLE_FRACTION * range ? (curves.baseline[i] as number) + g : Number.NaN;
     });
     if (band.chargeTransfer) {
       datasets.push(
-        line(firstCt ? 'Charge-transfer band or edge' : '', points(curveX, ys), CT_COLOUR, 1.2, [5, 3]),
+        line(firstCt ? 'Charge-transfer band or edge' : '', points(curves.x, ys), CT_COLOUR, 1.2, [5, 3]),
       );
       firstCt = false;
     } else {
-      datasets.push(line(firstBand ? 'Fitted Gaussian bands' : '', points(curveX, ys), BAND_COLOUR, 1.2));
+      datasets.push(line(firstBand ? 'Fitted Gaussian bands' : '', points(curves.x, ys), BAND_COLOUR, 1.2));
       firstBand = false;
     }
   }
   if (input.baseline.offset !== 0 || input.baseline.slope !== 0) {
-    datasets.push(line('Baseline', points(curveX, baseline), BASELINE_COLOUR, 1, [1, 3]));
+    datasets.push(line('Baseline', points(curves.x, curves.baseline), BASELINE_COLOUR, 1, [1, 3]));
   }
-  const transitions = (input.transitions ?? []).filter((t) => t.energy >= from && t.energy <= to);
   if (transitions.some((t) => t.spinAllowed))
     datasets.push(line('Predicted, spin-allowed', [], ALLOWED_COLOUR, 1.4));
   if (transitions.some((t) => !t.spinAllowed)) {
     datasets.push(line('Predicted, spin-forbidden', [], FORBIDDEN_COLOUR, 1, [4, 3]));
   }
+  return datasets;
+}
 
-  // The scale is set by the d–d region: where charge-transfer bands make up most of the fit,
-  // the data may run off the top (a steep edge would otherwise flatten every d–d band).
+/**
+ * The y range. The scale is set by the d–d region: where charge-transfer bands make up most of
+ * the fit, the data may run off the top (a steep edge would otherwise flatten every d–d band).
+ */
+function yRange(input: SpectrumFigureInput, drawn: XY, curves: FitCurves, labelRows: boolean) {
   const ct = bandSum(
     input.bands.filter((b) => b.chargeTransfer),
-    drawn.x as ArrayLike<number>,
+    drawn.x,
   );
-  const model = bandSum(input.bands, drawn.x as ArrayLike<number>, input.baseline);
+  const model = bandSum(input.bands, drawn.x, input.baseline);
   const drawnY = Array.from(drawn.y);
   const ddY = drawnY.filter((_, i) => (ct[i] as number) < 0.5 * Math.abs(model[i] as number));
-  const yMin = Math.min(0, ...drawnY, ...sum);
-  const allTop = Math.max(...drawnY, ...sum);
+  const yMin = Math.min(0, ...drawnY, ...curves.sum);
+  const allTop = Math.max(...drawnY, ...curves.sum);
   const ddTop = ddY.length > 0 ? Math.max(...ddY) : allTop;
   const yTop = Math.min(allTop, CT_SCALE_LIMIT * ddTop);
   // Room at the top for the rows of transition labels.
-  const headroom = transitions.length > 0 ? 0.22 : 0.06;
-  const yMax = yTop + (yTop - yMin) * headroom;
+  const headroom = labelRows ? 0.22 : 0.06;
+  return { yMin, yMax: niceCeiling(yTop + (yTop - yMin) * headroom) };
+}
 
-  const numbers = input.bands
+/** Where the numbers of the d–d bands go: at each maximum inside the window, on the baseline. */
+function bandNumbers(input: SpectrumFigureInput): { number: number; x: number; y: number }[] {
+  const { from, to } = input.window;
+  return input.bands
     .filter((b) => !b.chargeTransfer && b.center >= from && b.center <= to)
     .map((b) => ({
       number: b.number,
       x: b.center,
       y: b.height + input.baseline.offset + input.baseline.slope * (b.center - input.baseline.reference),
     }));
+}
 
+/** Axes (wavenumber below, wavelength on top, the quantity up the side) and the legend below. */
+function spectrumOptions(
+  input: SpectrumFigureInput,
+  y: { yMin: number; yMax: number },
+): ChartConfiguration<'scatter'>['options'] {
+  const { from, to } = input.window;
   return {
-    type: 'scatter',
-    data: { datasets },
-    options: {
-      layout: { padding: { left: 8, right: 18, top: 8, bottom: 4 } },
-      scales: {
-        x: {
-          type: 'linear',
-          position: 'bottom',
-          min: from,
-          max: to,
-          title: { display: true, text: 'Wavenumber / cm⁻¹', font: { size: 15 } },
-          afterBuildTicks: (axis: Scale) => {
-            axis.ticks = wavenumberTicks(from, to).map((value) => ({ value }));
-          },
-          ticks: { font: { size: 13 }, callback: (v) => grouped(Number(v)), maxRotation: 0 },
-          grid: { color: '#ececec' },
-          border: { color: INK },
+    layout: { padding: { left: 8, right: 18, top: 8, bottom: 4 } },
+    scales: {
+      x: {
+        type: 'linear',
+        position: 'bottom',
+        min: from,
+        max: to,
+        title: { display: true, text: 'Wavenumber / cm⁻¹', font: { size: 15 } },
+        afterBuildTicks: (axis: Scale) => {
+          axis.ticks = wavenumberTicks(from, to).map((value) => ({ value }));
         },
-        xTop: {
-          type: 'linear',
-          position: 'top',
-          min: from,
-          max: to,
-          title: { display: true, text: 'Wavelength / nm', font: { size: 15 } },
-          afterBuildTicks: (axis: Scale) => {
-            axis.ticks = wavelengthTicks(from, to).map((nm) => ({ value: 1e7 / nm }));
-          },
-          ticks: {
-            font: { size: 13 },
-            callback: (v) => String(Math.round(cmToNm(Number(v)))),
-            maxRotation: 0,
-          },
-          grid: { drawOnChartArea: false, color: INK },
-          border: { color: INK },
-        },
-        y: {
-          min: yMin,
-          max: niceCeiling(yMax),
-          title: { display: true, text: quantityTitle(input.quantity), font: { size: 15 } },
-          ticks: { font: { size: 13 } },
-          grid: { color: '#ececec' },
-          border: { color: INK },
-        },
+        ticks: { font: { size: 13 }, callback: (v) => grouped(Number(v)), maxRotation: 0 },
+        grid: { color: '#ececec' },
+        border: { color: INK },
       },
-      plugins: {
-        legend: {
-          position: 'bottom',
-          labels: {
-            font: { size: 12 },
-            boxWidth: 26,
-            boxHeight: 0,
-            filter: (item) => item.text !== '',
-            sort: (a, b) => (a.datasetIndex ?? 0) - (b.datasetIndex ?? 0),
-          },
+      xTop: {
+        type: 'linear',
+        position: 'top',
+        min: from,
+        max: to,
+        title: { display: true, text: 'Wavelength / nm', font: { size: 15 } },
+        afterBuildTicks: (axis: Scale) => {
+          axis.ticks = wavelengthTicks(from, to).map((nm) => ({ value: 1e7 / nm }));
         },
-        tooltip: { enabled: false },
+        ticks: {
+          font: { size: 13 },
+          callback: (v) => String(Math.round(cmToNm(Number(v)))),
+          maxRotation: 0,
+        },
+        grid: { drawOnChartArea: false, color: INK },
+        border: { color: INK },
+      },
+      y: {
+        min: y.yMin,
+        max: y.yMax,
+        title: { display: true, text: quantityTitle(input.quantity), font: { size: 15 } },
+        ticks: { font: { size: 13 } },
+        grid: { color: '#ececec' },
+        border: { color: INK },
       },
     },
-    plugins: [marksPlugin(transitions, numbers)],
+    plugins: {
+      legend: {
+        position: 'bottom',
+        labels: {
+          font: { size: 12 },
+          boxWidth: 26,
+          boxHeight: 0,
+          filter: (item) => item.text !== '',
+          sort: (a, b) => (a.datasetIndex ?? 0) - (b.datasetIndex ?? 0),
+        },
+      },
+      tooltip: { enabled: false },
+    },
+  };
+}
+
+/** The chart.js configuration of the overlay figure: data, fitted curves, y range, axes, then the marks plugin. */
+export function spectrumChart(input: SpectrumFigureInput): ChartConfiguration {
+  const { from, to } = input.window;
+  const drawn = drawnPoints(input);
+  const curves = fitCurves(input);
+  const transitions = (input.transitions ?? []).filter((t) => t.energy >= from && t.energy <= to);
+  return {
+    type: 'scatter',
+    data: { datasets: spectrumDatasets(input, drawn, curves, transitions) },
+    options: spectrumOptions(input, yRange(input, drawn, curves, transitions.length > 0)),
+    plugins: [marksPlugin(transitions, bandNumbers(input))],
   };
 }
 

@@ -1,14 +1,14 @@
-import type { SKRSContext2D } from '@napi-rs/canvas';
-import type { Chart } from 'chart.js';
-import { parseStateLabel } from '../src/index.js';
-import { FONT_FAMILY } from './render.js';
-
 /**
  * Typesetting of short scientific labels on a canvas: state symbols ²ˢ⁺¹Γ with a raised
  * multiplicity and lowered irrep index (⁴T₁g is drawn as 4 raised, T, "1g" lowered), free-ion
  * terms (⁴F, a²D) and dⁿ, drawn from runs of text at three levels rather than from Unicode
  * super/subscript characters, which fonts draw small and uneven.
  */
+
+import type { SKRSContext2D } from '@napi-rs/canvas';
+import type { Chart } from 'chart.js';
+import { parseStateLabel } from '../src/index.js';
+import { FONT_FAMILY } from './render.js';
 
 /** A piece of text at the baseline, raised or lowered. */
 export interface TextRun {

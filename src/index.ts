@@ -123,17 +123,7 @@ export {
   type SearchBand,
   searchAssignments,
 } from './fit/assignment.js';
-export {
-  FIT_DEFAULTS,
-  type FitAssignment,
-  type FitBand,
-  type FitInput,
-  type FitResult,
-  type FitSolution,
-  type FreeIonReference,
-  fitBands,
-  type PredictedBand,
-} from './fit/fitBands.js';
+export { fitBands } from './fit/fitBands.js';
 export {
   type ErrorBasis,
   type ErrorEstimate,
@@ -142,6 +132,16 @@ export {
   type ParameterName,
   standardErrors,
 } from './fit/fitErrors.js';
+export {
+  FIT_DEFAULTS,
+  type FitAssignment,
+  type FitBand,
+  type FitInput,
+  type FitResult,
+  type FitSolution,
+  type FreeIonReference,
+  type PredictedBand,
+} from './fit/fitTypes.js';
 export { FIT_WARNING_LIMITS, type FitWarning, type FitWarningCode } from './fit/fitWarnings.js';
 export {
   type RatioScan,

@@ -1,6 +1,3 @@
-import { type CubicLevel, type CubicResult, cubicLevels } from '../field/cubic.js';
-import type { Geometry } from '../field/labels.js';
-
 /**
  * Band energies as smooth functions of (Dq, B, C). A level is followed by its identity — its
  * state symbol ²ˢ⁺¹Γ and its rank among the levels of that symbol — not by its index in the
@@ -10,6 +7,9 @@ import type { Geometry } from '../field/labels.js';
  * (the k-th lowest level of a symbol gets the k-th lowest parent term), but it does not depend
  * on the free-ion term order, which changes with C/B.
  */
+
+import { type CubicLevel, type CubicResult, cubicLevels } from '../field/cubic.js';
+import type { Geometry } from '../field/labels.js';
 
 /** Dq, Racah B and C of a cubic complex, cm⁻¹ (Dq ≥ 0 in either geometry). */
 export interface FieldParameters {

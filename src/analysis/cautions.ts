@@ -1,11 +1,11 @@
-import { halfIntegerText } from '../atom/terms.js';
-import type { CubicResult } from '../field/cubic.js';
-import { unicodeLabel } from '../field/labels.js';
-
 /**
  * Where the cubic model is known to mislead, in words a report can carry. The thresholds are
  * rules of thumb (common practice, no source).
  */
+
+import { halfIntegerText } from '../atom/terms.js';
+import type { CubicResult } from '../field/cubic.js';
+import { unicodeLabel } from '../field/labels.js';
 
 /** Above this, charge-transfer and intraligand bands often lie and can hide d–d bands, cm⁻¹. */
 export const CHARGE_TRANSFER_ONSET = 30000;

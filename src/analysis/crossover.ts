@@ -1,10 +1,3 @@
-import { halfIntegerText } from '../atom/terms.js';
-import { DEFAULT_GEOMETRY } from '../core/defaults.js';
-import { ensure } from '../core/errors.js';
-import { solveCubic } from '../field/cubic.js';
-import { type Geometry, unicodeLabel } from '../field/labels.js';
-import { CROSSING_DEFAULTS, type GroundCrossing, groundStateCrossings } from './groundState.js';
-
 /**
  * The high-spin/low-spin crossover of dⁿ in a cubic field and where a sample lies relative to it.
  *
@@ -13,6 +6,13 @@ import { CROSSING_DEFAULTS, type GroundCrossing, groundStateCrossings } from './
  * homogeneous of degree one in (B, C, Dq), so at fixed C/B the crossover is Dq_c = x(C/B)·B:
  * Δc/B depends on C/B alone and Dq_c scales linearly with B.
  */
+
+import { halfIntegerText } from '../atom/terms.js';
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
+import { ensure } from '../core/errors.js';
+import { solveCubic } from '../field/cubic.js';
+import { type Geometry, unicodeLabel } from '../field/labels.js';
+import { CROSSING_DEFAULTS, type GroundCrossing, groundStateCrossings } from './groundState.js';
 
 /**
  * Largest Δt of ordinary tetrahedral 3d complexes, cm⁻¹ (common practice, no source; Δt ≈ 4/9 Δo

@@ -7,7 +7,8 @@
 import { InputError } from '../core/errors.js';
 import type { Geometry } from '../core/geometry.js';
 import type { FreeIon } from '../core/ions.js';
-import { type FitSolution, fitBands } from '../fit/fitBands.js';
+import { fitBands } from '../fit/fitBands.js';
+import type { FitSolution } from '../fit/fitTypes.js';
 import { fitCorrelation } from '../fit/fitVerdict.js';
 
 /** What a band fit needs to place a sample. */

@@ -1,14 +1,14 @@
-import { DEFAULT_GEOMETRY } from '../core/defaults.js';
-import { ensure } from '../core/errors.js';
-import { solveCubic } from '../field/cubic.js';
-import type { Geometry } from '../field/labels.js';
-import { type GroundCrossing, groundStateCrossings } from './groundState.js';
-
 /**
  * The ground-state map of dⁿ: over Δ/B and C/B, which spin state is lowest. Energies are
  * homogeneous in (B, C, Dq), so the map is the same for every B; each row (one C/B) is scanned
  * in Δ/B and every change of ground spin pinned down exactly by {@link groundStateCrossings}.
  */
+
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
+import { ensure } from '../core/errors.js';
+import { solveCubic } from '../field/cubic.js';
+import type { Geometry } from '../field/labels.js';
+import { type GroundCrossing, groundStateCrossings } from './groundState.js';
 
 /** B used for the computation, cm⁻¹; any value gives the same map. */
 export const MAP_B = 1000;

@@ -1,14 +1,14 @@
-import { DEFAULT_GEOMETRY } from '../core/defaults.js';
-import { ensure } from '../core/errors.js';
-import { type CubicResult, cubicLevels } from '../field/cubic.js';
-import type { Geometry } from '../field/labels.js';
-import { brentRoot } from '../numeric/roots.js';
-
 /**
  * Where the ground state of dⁿ changes its spin as Dq grows (high-spin → low-spin): each change
  * found on a scan and then pinned down as a root of E(lowest of one spin) − E(lowest of the
  * other), with the full solver at every step.
  */
+
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
+import { ensure } from '../core/errors.js';
+import { type CubicResult, cubicLevels } from '../field/cubic.js';
+import type { Geometry } from '../field/labels.js';
+import { brentRoot } from '../numeric/roots.js';
 
 /** One change of ground-state spin. */
 export interface GroundCrossing {

@@ -1,7 +1,3 @@
-import { DEFAULT_GEOMETRY } from '../core/defaults.js';
-import { ensure } from '../core/errors.js';
-import { configurationText, type Geometry } from '../field/labels.js';
-
 /**
  * The one-electron picture of high and low spin, as chemists use it beside the full
  * calculation: electrons in the t₂g/e_g (Td: e/t₂) sets, the ligand-field stabilisation energy
@@ -16,6 +12,10 @@ import { configurationText, type Geometry } from '../field/labels.js';
  * octahedral d⁶ low spin is −24Dq + 2Π (the form of most tables; some texts add the pairs the
  * free ion already has to both states, which leaves every difference unchanged).
  */
+
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
+import { ensure } from '../core/errors.js';
+import { configurationText, type Geometry } from '../field/labels.js';
 
 /** Orbital energies per unit Dq: the lower and upper set of each geometry. */
 export const ORBITAL_ENERGY_DQ = {

@@ -1,12 +1,12 @@
-import { ensure } from '../core/errors.js';
-import type { CubicIrrep } from '../field/symmetry.js';
-
 /**
  * Spin-only magnetic moments of cubic states, and where the real moment departs from them.
  *
  * μ_so = g√(S(S+1)) μ_B with g = 2, i.e. √(4S(S+1)) = √(n(n+2)) for n unpaired electrons
  * (Figgis, Introduction to Ligand Fields, 1966, ch. 10; any inorganic text).
  */
+
+import { ensure } from '../core/errors.js';
+import type { CubicIrrep } from '../field/symmetry.js';
 
 /** The g value of the spin-only formula (the free-electron 2.0023, rounded as the formula has it). */
 export const SPIN_ONLY_G = 2;

@@ -1,12 +1,3 @@
-import { DEFAULT_GEOMETRY } from '../core/defaults.js';
-import { ensure } from '../core/errors.js';
-import { DEFAULT_C_OVER_B, MAX_C_OVER_B } from '../core/ions.js';
-import { cubicLevels } from '../field/cubic.js';
-import type { Geometry } from '../field/labels.js';
-import { csvText } from '../sheets/csv.js';
-import type { Caution } from './cautions.js';
-import { groundStateCrossings } from './groundState.js';
-
 /**
  * Correlation (Tanabe–Sugano-style) diagram data: E/B of every level of dⁿ above the ground
  * state as Δ/B goes from 0 to a maximum at fixed C/B, one curve per labelled state, with the
@@ -18,6 +9,15 @@ import { groundStateCrossings } from './groundState.js';
  * C = (C/B)·B and Dq = (Δ/B)·B/10, and divides every energy by B; no value depends on that choice
  * beyond rounding.
  */
+
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
+import { ensure } from '../core/errors.js';
+import { DEFAULT_C_OVER_B, MAX_C_OVER_B } from '../core/ions.js';
+import { cubicLevels } from '../field/cubic.js';
+import type { Geometry } from '../field/labels.js';
+import { csvText } from '../sheets/csv.js';
+import type { Caution } from './cautions.js';
+import { groundStateCrossings } from './groundState.js';
 
 /** Racah B (cm⁻¹) the sweep solves at before dividing by it; see the module notes. */
 export const SWEEP_B = 1000;

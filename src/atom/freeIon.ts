@@ -1,3 +1,10 @@
+/**
+ * Free-ion term energies of lⁿ: the Slater–Condon repulsion matrix (repulsion.ts) of the
+ * M_L = 0, lowest-M_S block diagonalised, each level named by its L and S read from ⟨L²⟩ and
+ * ⟨S²⟩ (Condon & Shortley, The Theory of Atomic Spectra, 1935, ch. 6), for Slater integrals or
+ * for Racah's B and C.
+ */
+
 import { ensure } from '../core/errors.js';
 import { freeIonBlock } from '../field/hamiltonian.js';
 import { clusterSorted, resolveSubspace, symmetricEigen } from '../numeric/eigen.js';

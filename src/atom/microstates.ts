@@ -1,13 +1,16 @@
-import { InputError } from '../core/errors.js';
-
 /**
- * Slater determinants of n equivalent electrons in one shell of orbital angular momentum l.
+ * Slater determinants (microstates) of n equivalent electrons in one shell of orbital angular
+ * momentum l.
  *
  * A determinant is a bit mask over the 2(2l+1) spin-orbitals. Spin-orbital p has
  * m_l = (p mod (2l+1)) − l and m_s = +½ for p < 2l+1 (α), −½ otherwise (β). The determinant of
  * a mask is the product of creation operators in ascending p acting on the vacuum; every
  * fermion sign in this project follows from that order.
  */
+
+import { InputError } from '../core/errors.js';
+
+/** One determinant with its quantum numbers. */
 export interface Microstate {
   /** Occupied spin-orbitals as a bit mask. */
   readonly mask: number;

@@ -1,9 +1,9 @@
-import { mlOf, popcount } from './microstates.js';
-
 /**
  * Second-quantised operators acting on determinant bit masks (see microstates.ts for the
  * spin-orbital order that fixes every fermion sign).
  */
+
+import { mlOf, popcount } from './microstates.js';
 
 /** (−1)^(number of occupied spin-orbitals below p): the sign of moving a†_p or a_p into place. */
 export function parity(mask: number, p: number): number {

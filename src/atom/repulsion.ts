@@ -1,7 +1,3 @@
-import { gaunt } from './angular.js';
-import { mlOf, twoMsOf } from './microstates.js';
-import { type BasisBlock, parity } from './operators.js';
-
 /**
  * Electron repulsion within one shell by the Slater–Condon rules, written as the
  * second-quantised operator Σ_{p<q, r<s} ⟨pq‖rs⟩ a†_p a†_q a_s a_r so that every fermion sign
@@ -9,6 +5,10 @@ import { type BasisBlock, parity } from './operators.js';
  * ⟨ab|1/r₁₂|cd⟩ = δ(m_s^a, m_s^c) δ(m_s^b, m_s^d) Σ_k c^k(l m_a, l m_c) c^k(l m_d, l m_b) F^k
  * (Condon & Shortley 1935, §6.8; Slater 1960).
  */
+
+import { gaunt } from './angular.js';
+import { mlOf, twoMsOf } from './microstates.js';
+import { type BasisBlock, parity } from './operators.js';
 
 /** One (p, q) target of a pair (r, s) with its antisymmetrised coefficients per F^k, k = 2, 4, …, 2l. */
 interface PairTarget {

@@ -1,3 +1,9 @@
+/**
+ * Russell–Saunders terms of lⁿ by counting microstates: the N(M_L, M_S) table, terms peeled from
+ * it highest (M_L, M_S) first, J levels, the ground level by Hund's rules, and the parsing of
+ * configurations such as `3d8` (Condon & Shortley, The Theory of Atomic Spectra, 1935, ch. 7).
+ */
+
 import { InputError } from '../core/errors.js';
 import { microstates, SHELL_LETTERS } from './microstates.js';
 

@@ -1,3 +1,5 @@
+/** The one error type of bad input, and the check that throws it. */
+
 /**
  * An input the caller can correct: a value out of range, an unknown name, a malformed file.
  * The message names the value and what was expected, on one line; the command line prints it

@@ -1,3 +1,8 @@
+/**
+ * Free-ion parameters of the common 3d ions (Racah B and C, spin–orbit ζ), each with its source,
+ * and finding an ion by name in the notations chemists write (`Cr3+`, `Cr(III)`, …).
+ */
+
 import { InputError } from './errors.js';
 
 /** Free-ion parameters of one transition-metal ion. Energies in cm⁻¹. */

@@ -1,8 +1,8 @@
-import { InputError } from './errors.js';
-
 /**
  * Energy units at the edges of the program. Inside, every energy is a wavenumber in cm⁻¹.
  */
+
+import { InputError } from './errors.js';
 
 /** cm⁻¹ per eV: 1 eV / (h c) = 8065.543937… cm⁻¹ (CODATA 2018). */
 export const CM_PER_EV = 8065.543937;

@@ -1,3 +1,5 @@
+/** The cubic crystal-field operator V of one d electron, per unit Dq, as a matrix and as one-electron terms. */
+
 import type { OneBodyTerm } from '../atom/operators.js';
 
 /**

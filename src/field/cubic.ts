@@ -1,3 +1,10 @@
+/**
+ * The cubic solver: the levels of dⁿ in an octahedral or tetrahedral field by exact
+ * diagonalisation of H = B·H_B + C·H_C + Dq·V, block by block in the symmetry-adapted basis
+ * (cubicBasis.ts), each level labelled ²ˢ⁺¹Γ with its parent free-ion term and its strong-field
+ * make-up (the method of Tanabe & Sugano, J. Phys. Soc. Japan 9, 753, 1954).
+ */
+
 import { freeIonTerms } from '../atom/freeIon.js';
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';

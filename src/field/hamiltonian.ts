@@ -1,13 +1,13 @@
-import { microstates } from '../atom/microstates.js';
-import { type BasisBlock, basisBlock, casimirMatrix, oneBodyMatrix } from '../atom/operators.js';
-import { repulsionMatrices } from '../atom/repulsion.js';
-import { octahedralFieldTerms } from './crystalField.js';
-
 /**
  * The dⁿ Hamiltonian H = B·H_B + C·H_C + Dq·V in the determinant basis: electron repulsion in
  * Racah's B and C (from the Slater–Condon matrices with F² = 49B + 7C, F⁴ = 441C/35) and the
  * cubic crystal field V per unit Dq (octahedral sign).
  */
+
+import { microstates } from '../atom/microstates.js';
+import { type BasisBlock, basisBlock, casimirMatrix, oneBodyMatrix } from '../atom/operators.js';
+import { repulsionMatrices } from '../atom/repulsion.js';
+import { octahedralFieldTerms } from './crystalField.js';
 
 /** The parts of the Hamiltonian and the spin Casimir over a set of determinants. */
 export interface DeterminantBlock extends BasisBlock {

@@ -1,11 +1,10 @@
-import type { CubicIrrep } from './symmetry.js';
-
 /**
  * Names of cubic states and strong-field configurations, as plain text (`4T1g(F)`,
  * `t2g^2 eg^1`) and in Unicode for human output (`⁴T₁g(F)`, `t₂g² eg¹`).
  */
 
 import type { Geometry } from '../core/geometry.js';
+import type { CubicIrrep } from './symmetry.js';
 
 export type { Geometry };
 

@@ -1,13 +1,13 @@
-import { type Complex, wignerD } from '../atom/angular.js';
-import { mlOf, twoMsOf } from '../atom/microstates.js';
-import type { BasisBlock } from '../atom/operators.js';
-import { parity } from '../atom/operators.js';
-
 /**
  * The octahedral rotation group O: its irreducible representations, character table,
  * the branching of free-ion terms into cubic components, and the decomposition of a
  * degenerate eigenspace into irreps from a few characters.
  */
+
+import { type Complex, wignerD } from '../atom/angular.js';
+import { mlOf, twoMsOf } from '../atom/microstates.js';
+import type { BasisBlock } from '../atom/operators.js';
+import { parity } from '../atom/operators.js';
 
 /** Irreducible representations of O (and, with the same names, of Td and without g of Oh). */
 export type CubicIrrep = 'A1' | 'A2' | 'E' | 'T1' | 'T2';

@@ -5,7 +5,7 @@ import {
   sampleVerdict,
 } from '../analysis/crossover.js';
 import type { Geometry } from '../field/labels.js';
-import type { FitSolution } from './fitBands.js';
+import type { FitSolution } from './fitTypes.js';
 
 /**
  * The spin-state verdict of a fitted sample: the crossover analysed at the fit's own B and C,

@@ -224,3 +224,49 @@ export function solutionWarnings(ctx: WarningContext): FitWarning[] {
     if (c.code !== 'spin-state' && c.code !== 'charge-transfer') out.push(c);
   return out;
 }
+
+/** What {@link resultWarnings} looks at. */
+export interface ResultWarningContext {
+  readonly n: number;
+  /** Number of bands fitted. */
+  readonly bands: number;
+  readonly solutions: number;
+  readonly ambiguityFactor: number;
+  readonly includeSpinForbidden: boolean;
+  /** Ground states for which no assignment of all bands existed. */
+  readonly groundsWithout: readonly string[];
+}
+
+/** Warnings about the fit as a whole (not one solution). */
+export function resultWarnings(ctx: ResultWarningContext): FitWarning[] {
+  const { n, bands: m } = ctx;
+  const warnings: FitWarning[] = [];
+  if (ctx.solutions > 1) {
+    warnings.push({
+      code: 'ambiguous',
+      message:
+        `${ctx.solutions} assignments fit nearly as well (weighted rms within a factor of ${ctx.ambiguityFactor} of ` +
+        'the best, or within the band uncertainties): the band positions alone do not decide; weigh intensities, ' +
+        'band widths and β < 1',
+    });
+  }
+  if ([1, 4, 6, 9].includes(n) && m >= 2) {
+    warnings.push({
+      code: 'jahn-teller-pair',
+      message:
+        `high-spin d${n} has a single spin-allowed band (${n === 1 || n === 6 ? 'to an E state' : 'from an E ground state'}), ` +
+        'which a Jahn–Teller distortion often splits into two components: if two of these bands are such a pair, ' +
+        '10Dq is about their mean — fit that one value with B held (--B)',
+    });
+  }
+  for (const label of ctx.groundsWithout) {
+    warnings.push({
+      code: 'ground-without-assignment',
+      message:
+        `no assignment of ${m} band${m === 1 ? '' : 's'} to ${ctx.includeSpinForbidden ? '' : 'spin-allowed '}` +
+        `transitions from the ground state ${label} exists, so no solution assumes it` +
+        (ctx.includeSpinForbidden ? '' : '; include spin-forbidden transitions to consider it'),
+    });
+  }
+  return warnings;
+}

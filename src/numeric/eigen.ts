@@ -1,3 +1,9 @@
+/**
+ * Dense linear algebra for the solvers: symmetric eigen-decomposition (through ml-matrix),
+ * congruence transforms and bilinear forms, resolution of a degenerate subspace by a second
+ * operator, and clustering of sorted eigenvalues into degenerate runs.
+ */
+
 import { EigenvalueDecomposition } from 'ml-matrix';
 
 /** Eigenvalues (ascending) and orthonormal eigenvectors of a real symmetric matrix. */

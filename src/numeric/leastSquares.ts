@@ -1,6 +1,3 @@
-import { CholeskyDecomposition, Matrix, SingularValueDecomposition } from 'ml-matrix';
-import { ensure } from '../core/errors.js';
-
 /**
  * Bounded nonlinear least squares by the Levenberg–Marquardt method (Levenberg, Q. Appl. Math.
  * 2, 164, 1944; Marquardt, J. SIAM 11, 431, 1963), with Marquardt's scaling of the damping by
@@ -15,6 +12,9 @@ import { ensure } from '../core/errors.js';
  * a caller-supplied Jacobian that may reuse one model evaluation for every residual (the library
  * calls the model once per data point and per parameter).
  */
+
+import { CholeskyDecomposition, Matrix, SingularValueDecomposition } from 'ml-matrix';
+import { ensure } from '../core/errors.js';
 
 /** Why {@link levenbergMarquardt} stopped. */
 export type StopReason =
@@ -110,6 +110,67 @@ function forwardJacobian(
 const sumSquares = (r: readonly number[]) => r.reduce((s, x) => s + x * x, 0);
 
 /**
+ * JᵀJ and the gradient g = Jᵀr, with the largest cosine between r and a column of J, which is
+ * zero at a stationary point whatever the scale of the parameters. Plain loops: spectra give
+ * thousands of residuals, and building ml-matrix objects of that size each iteration cost more
+ * than the sums themselves.
+ */
+function normalEquations(J: readonly (readonly number[])[], r: readonly number[], ss: number) {
+  const np = J[0]?.length ?? 0;
+  const a = new Float64Array(np * np);
+  const g = new Array<number>(np).fill(0);
+  for (let i = 0; i < J.length; i++) {
+    const row = J[i] as readonly number[];
+    const ri = r[i] as number;
+    for (let j = 0; j < np; j++) {
+      const v = row[j] as number;
+      if (v === 0) continue;
+      g[j] = (g[j] as number) + v * ri;
+      for (let k = j; k < np; k++) a[j * np + k] = (a[j * np + k] as number) + v * (row[k] as number);
+    }
+  }
+  const A = new Matrix(np, np);
+  for (let j = 0; j < np; j++) {
+    for (let k = j; k < np; k++) {
+      const v = a[j * np + k] as number;
+      A.set(j, k, v);
+      A.set(k, j, v);
+    }
+  }
+  const rNorm = Math.sqrt(ss);
+  const cosine = Math.max(...g.map((gj, j) => Math.abs(gj) / (Math.sqrt(A.get(j, j)) * rNorm || 1)));
+  return { A, g, cosine };
+}
+
+/**
+ * The step of the damped normal equations (JᵀJ + μ·diag(scale))·δ = −g, or undefined when the
+ * damped matrix is not positive definite (the damping must grow).
+ */
+function dampedStep(
+  A: Matrix,
+  g: readonly number[],
+  mu: number,
+  scale: readonly number[],
+): number[] | undefined {
+  const damped = A.clone();
+  for (let j = 0; j < g.length; j++) damped.set(j, j, A.get(j, j) + mu * (scale[j] ?? 1));
+  const chol = new CholeskyDecomposition(damped);
+  if (!chol.isPositiveDefinite()) return undefined;
+  return chol.solve(Matrix.columnVector(g.map((x) => -x))).to1DArray();
+}
+
+/** Whether every component of `step` is below the relative-plus-absolute step tolerance at `p`. */
+function isSmallStep(step: readonly number[], p: readonly number[], tolerance: number): boolean {
+  return step.every((s, j) => Math.abs(s) <= tolerance * (Math.abs(p[j] ?? 0) + tolerance));
+}
+
+/** Predicted decrease of the linear model ‖r + J·step‖²: −(2gᵀs + sᵀAs). */
+function predictedDecrease(A: Matrix, g: readonly number[], step: readonly number[]): number {
+  const As = A.mmul(Matrix.columnVector(step)).to1DArray();
+  return -step.reduce((s, sj, j) => s + sj * (2 * (g[j] ?? 0) + (As[j] ?? 0)), 0);
+}
+
+/**
  * Minimises Σ rᵢ(p)² from `problem.start` within the bounds.
  * @throws InputError for an empty start or bounds of the wrong length.
  */
@@ -154,36 +215,25 @@ export function levenbergMarquardt(
   while (iterations < o.maxIterations) {
     if (ss <= o.exactSumOfSquares) return finish('exact-fit');
     iterations++;
-    const Jm = new Matrix(J);
-    const A = Jm.transpose().mmul(Jm);
-    const g = Jm.transpose().mmul(Matrix.columnVector(r)).to1DArray();
-    const rNorm = Math.sqrt(ss);
-    const cosine = Math.max(...g.map((gj, j) => Math.abs(gj) / (Math.sqrt(A.get(j, j)) * rNorm || 1)));
+    const { A, g, cosine } = normalEquations(J, r, ss);
     if (cosine <= o.gradientTolerance) return finish('small-gradient');
     // Marquardt's scaling; a parameter no residual depends on gets a unit scale instead of zero.
     const scale = g.map((_, j) => A.get(j, j) || 1);
     let accepted = false;
     while (!accepted) {
-      const damped = A.clone();
-      for (let j = 0; j < np; j++) damped.set(j, j, A.get(j, j) + mu * (scale[j] ?? 1));
-      const chol = new CholeskyDecomposition(damped);
-      if (!chol.isPositiveDefinite()) {
+      const delta = dampedStep(A, g, mu, scale);
+      if (!delta) {
         mu *= nu;
         nu *= 2;
         if (mu > 1e16) return finish('no-descent');
         continue;
       }
-      const delta = chol.solve(Matrix.columnVector(g.map((x) => -x))).to1DArray();
       const trial = clamp(p.map((x, j) => x + (delta[j] ?? 0)));
       const step = trial.map((x, j) => x - (p[j] ?? 0));
-      if (step.every((s, j) => Math.abs(s) <= o.stepTolerance * (Math.abs(p[j] ?? 0) + o.stepTolerance))) {
-        return finish('small-step');
-      }
+      if (isSmallStep(step, p, o.stepTolerance)) return finish('small-step');
       const rt = [...residuals(trial)];
       const sst = sumSquares(rt);
-      // Predicted decrease of the linear model ‖r + J·step‖²: −(2gᵀs + sᵀAs).
-      const As = A.mmul(Matrix.columnVector(step)).to1DArray();
-      const predicted = -step.reduce((s, sj, j) => s + sj * (2 * (g[j] ?? 0) + (As[j] ?? 0)), 0);
+      const predicted = predictedDecrease(A, g, step);
       const actual = ss - sst;
       if (actual > 0 && Number.isFinite(sst)) {
         const rho = predicted > 0 ? actual / predicted : 1;
@@ -195,9 +245,7 @@ export function levenbergMarquardt(
         mu *= Math.max(1 / 3, 1 - (2 * rho - 1) ** 3);
         nu = 2;
         accepted = true;
-        if (step.every((s, j) => Math.abs(s) <= o.stepTolerance * (Math.abs(p[j] ?? 0) + o.stepTolerance))) {
-          return finish('small-step');
-        }
+        if (isSmallStep(step, p, o.stepTolerance)) return finish('small-step');
         if (small) return finish('small-reduction');
       } else {
         mu *= nu;

@@ -1,3 +1,9 @@
+/**
+ * The sample sheet: one or more samples to report on, as JSON (the full form) or CSV (the simple
+ * form, one sample a row). Every sample is checked on its own; a bad sample is reported with its
+ * name and the field at fault, and the others go on.
+ */
+
 import { z } from 'zod';
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { InputError } from '../core/errors.js';
@@ -5,12 +11,6 @@ import { findIon } from '../core/ions.js';
 import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
 import type { Geometry } from '../field/labels.js';
 import { splitCsvLine } from './csv.js';
-
-/**
- * The sample sheet: one or more samples to report on, as JSON (the full form) or CSV (the simple
- * form, one sample a row). Every sample is checked on its own; a bad sample is reported with its
- * name and the field at fault, and the others go on.
- */
 
 /** Where a sample's spectrum is and how to read it (see the spectrum reader for each field). */
 export interface SpectrumSpec {

@@ -1,8 +1,3 @@
-import { ensure, InputError } from '../core/errors.js';
-import { toWavenumber } from '../core/units.js';
-import { ensureMonotonicX, pointPlace, type RawSpectrum } from './rawSpectrum.js';
-import { chooseUnit, type SpectrumXUnit, type SpectrumYUnit, type UnitChoice } from './spectrumUnits.js';
-
 /**
  * An absorption spectrum on a rising wavenumber axis, with y as absorbance, molar
  * absorptivity ε, or an arbitrary quantity proportional to absorption.
@@ -13,6 +8,11 @@ import { chooseUnit, type SpectrumXUnit, type SpectrumYUnit, type UnitChoice } f
  * spectral densities such as emission spectra recorded per nm. The band shape is Gaussian in
  * energy, which is why bands are found on the wavenumber axis.
  */
+
+import { ensure, InputError } from '../core/errors.js';
+import { toWavenumber } from '../core/units.js';
+import { ensureMonotonicX, pointPlace, type RawSpectrum } from './rawSpectrum.js';
+import { chooseUnit, type SpectrumXUnit, type SpectrumYUnit, type UnitChoice } from './spectrumUnits.js';
 
 /** What y holds after conversion. */
 export type AbsorptionQuantity = 'absorbance' | 'epsilon' | 'arbitrary';

@@ -1,8 +1,3 @@
-import { Matrix, solve } from 'ml-matrix';
-import { sgg } from 'ml-savitzky-golay-generalized';
-import { covariance, fitCurve, type GradientModel } from '../numeric/leastSquares.js';
-import { FOUR_LN2 } from './gaussianBands.js';
-
 /**
  * Decomposition of an evenly resampled absorption window into Gaussian bands plus a straight
  * baseline, in scaled units (x in kK, y divided by its largest magnitude), for
@@ -26,6 +21,11 @@ import { FOUR_LN2 } from './gaussianBands.js';
  * it misses a band whose inflection lies beyond the window's end and a shoulder that makes no
  * extremum of its own in the first derivative, the very bands d–d spectra are full of.
  */
+
+import { Matrix, solve } from 'ml-matrix';
+import { sgg } from 'ml-savitzky-golay-generalized';
+import { covariance, fitCurve, type GradientModel } from '../numeric/leastSquares.js';
+import { FOUR_LN2 } from './gaussianBands.js';
 
 /** The baseline fitted with the bands. */
 export type BaselineKind = 'none' | 'constant' | 'linear';

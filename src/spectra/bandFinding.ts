@@ -1,25 +1,3 @@
-import { xNoiseStandardDeviation, xyEquallySpaced } from 'ml-spectra-processing';
-import { CHARGE_TRANSFER_ONSET } from '../analysis/cautions.js';
-import { ensure, InputError } from '../core/errors.js';
-import type { AbsorptionQuantity } from './absorptionSpectrum.js';
-import {
-  type BaselineKind,
-  type Box,
-  type ComponentKind,
-  decompose,
-  type FitContext,
-  CM_PER_KK as KK,
-  parameterCount,
-  stateCovariance,
-} from './bandDecomposition.js';
-import {
-  CHARGE_TRANSFER_EPSILON,
-  type IntensityRange,
-  intensityRange,
-  oscillatorStrength,
-} from './bandIntensity.js';
-import { GAUSSIAN_AREA_FACTOR, type GaussianBand, type LinearBaseline } from './gaussianBands.js';
-
 /**
  * Finding the absorption bands of a spectrum. The window is resampled onto an even wavenumber
  * grid (bands are Gaussian in energy, not in wavelength) and decomposed into Gaussian bands
@@ -34,6 +12,29 @@ import { GAUSSIAN_AREA_FACTOR, type GaussianBand, type LinearBaseline } from './
  * band at the red end) is fitted as a Gaussian centred outside the window and reported as such.
  * Smoothing is used only to pick candidates; the fit is to the data points themselves.
  */
+
+import { xNoiseStandardDeviation, xyEquallySpaced } from 'ml-spectra-processing';
+import { CHARGE_TRANSFER_ONSET } from '../analysis/cautions.js';
+import { ensure, InputError } from '../core/errors.js';
+import type { AbsorptionQuantity } from './absorptionSpectrum.js';
+import {
+  type BaselineKind,
+  type Box,
+  type ComponentKind,
+  decompose,
+  type FitContext,
+  type FitState,
+  CM_PER_KK as KK,
+  parameterCount,
+  stateCovariance,
+} from './bandDecomposition.js';
+import {
+  CHARGE_TRANSFER_EPSILON,
+  type IntensityRange,
+  intensityRange,
+  oscillatorStrength,
+} from './bandIntensity.js';
+import { GAUSSIAN_AREA_FACTOR, type GaussianBand, type LinearBaseline } from './gaussianBands.js';
 
 export type { BaselineKind } from './bandDecomposition.js';
 
@@ -154,6 +155,55 @@ export function findBands(
   },
   options: BandFindingOptions = {},
 ): BandAnalysis {
+  const settings = checkedSettings(options);
+  const { wavenumber: wn, value } = spectrum;
+  const window = analysisWindow(wn, options.range);
+  const { lo, hi, inside } = window;
+  const { gx, gy, step } = evenGrid(wn, value, lo, hi, settings.minFwhm);
+  const yScale = Math.max(...gy.map(Math.abs)) || 1;
+  const noise = Math.max(noiseLevel(wn, value, lo, hi), NOISE_FLOOR * yScale);
+  const sigma = noise / yScale;
+  const span = hi - lo;
+  const box: Box = {
+    lo: lo / KK,
+    hi: hi / KK,
+    span: span / KK,
+    minW: settings.minFwhm / KK,
+    step: step / KK,
+  };
+  const detect = { x: gx.map((v) => v / KK), y: gy.map((v) => v / yScale) };
+  // The fit uses the data points themselves (their noise is independent, and interpolation
+  // would add nothing); a window with very many points is fitted on the averaged grid instead.
+  const fitData =
+    inside <= MAX_FIT_POINTS ? windowPoints(wn, value, lo, hi, yScale) : { x: detect.x, y: detect.y };
+  const baselineKind = settings.baselineKind;
+  const context: FitContext = { ...fitData, box, baselineKind, xMid: (box.lo + box.hi) / 2 };
+  const { significance, minRelative, maxBands } = settings;
+  const state = decompose(context, detect, { sigma, significance, minRelative, maxBands });
+  const bands = bandsOfFit(context, state, yScale).map(
+    (band, i): FoundBand => describeBand(band, i + 1, spectrum.quantity),
+  );
+  const rms = Math.sqrt(state.chi2 / context.x.length) * yScale;
+  return {
+    quantity: spectrum.quantity,
+    window: { from: lo, to: hi },
+    clipped: window.clipped,
+    grid: { x: gx, y: gy, step },
+    points: inside,
+    noise,
+    residualRms: rms,
+    baselineKind,
+    baseline: {
+      offset: state.b0 * yScale,
+      slope: (state.b1 * yScale) / KK,
+      reference: context.xMid * KK,
+    },
+    bands,
+  };
+}
+
+/** The options of {@link findBands} with their defaults, checked. */
+function checkedSettings(options: BandFindingOptions) {
   const minFwhm = options.minFwhm ?? DEFAULT_MIN_FWHM;
   const maxBands = options.maxBands ?? DEFAULT_MAX_BANDS;
   const minRelative = options.minRelativeHeight ?? DEFAULT_MIN_RELATIVE_HEIGHT;
@@ -169,12 +219,15 @@ export function findBands(
     `minimum relative height ${minRelative}: expected 0 ≤ value < 1`,
   );
   ensure(significance > 0, `significance ${significance}: expected a positive number`);
+  return { minFwhm, maxBands, minRelative, significance, baselineKind };
+}
 
-  const { wavenumber: wn, value } = spectrum;
+/** The window analysed: the range asked for, clipped to the data, with enough points in it. */
+function analysisWindow(wn: Float64Array, range: BandFindingOptions['range']) {
   const first = wn[0] as number;
   const last = wn[wn.length - 1] as number;
-  const from = options.range?.from ?? first;
-  const to = options.range?.to ?? last;
+  const from = range?.from ?? first;
+  const to = range?.to ?? last;
   ensure(from < to, `range ${round(from)}–${round(to)} cm⁻¹: expected a lower and a higher end`);
   if (to <= first || from >= last) {
     throw new InputError(
@@ -189,36 +242,34 @@ export function findBands(
       `only ${inside} data points in ${round(lo)}–${round(hi)} cm⁻¹: expected at least ${MIN_WINDOW_POINTS}`,
     );
   }
+  return { lo, hi, inside, clipped: from < first || to > last };
+}
 
+/**
+ * The window on an even grid fine enough for the narrowest band allowed. Each grid value is the
+ * mean of the data over its slot of one step; the first and last slots start and end at the
+ * window's ends, so no slot reaches past the data.
+ */
+function evenGrid(wn: Float64Array, value: Float64Array, lo: number, hi: number, minFwhm: number) {
   const span = hi - lo;
   const gridPoints = Math.max(
     MIN_WINDOW_POINTS,
     Math.min(MAX_GRID_POINTS, Math.floor((span * POINTS_PER_MIN_FWHM) / minFwhm)),
   );
-  // Each grid value is the mean of the data over its slot of one step; the first and last
-  // slots start and end at the window's ends, so no slot reaches past the data.
   const step = span / gridPoints;
   const grid = xyEquallySpaced(
     { x: wn, y: value },
     { from: lo + step / 2, to: hi - step / 2, numberOfPoints: gridPoints, variant: 'smooth' },
   );
-  const gx = Float64Array.from(grid.x);
-  const gy = Float64Array.from(grid.y);
-  const yScale = Math.max(...gy.map(Math.abs)) || 1;
-  const noise = Math.max(noiseLevel(wn, value, lo, hi), NOISE_FLOOR * yScale);
-  const sigma = noise / yScale;
-  const box: Box = { lo: lo / KK, hi: hi / KK, span: span / KK, minW: minFwhm / KK, step: step / KK };
-  const detect = { x: gx.map((v) => v / KK), y: gy.map((v) => v / yScale) };
-  // The fit uses the data points themselves (their noise is independent, and interpolation
-  // would add nothing); a window with very many points is fitted on the averaged grid instead.
-  const fitData =
-    inside <= MAX_FIT_POINTS ? windowPoints(wn, value, lo, hi, yScale) : { x: detect.x, y: detect.y };
-  const context: FitContext = { ...fitData, box, baselineKind, xMid: (box.lo + box.hi) / 2 };
-  const state = decompose(context, detect, { sigma, significance, minRelative, maxBands });
+  return { gx: Float64Array.from(grid.x), gy: Float64Array.from(grid.y), step };
+}
+
+/** The fitted components back in cm⁻¹ and the spectrum's y, with standard errors from the fit's covariance; by rising centre. */
+function bandsOfFit(context: FitContext, state: FitState, yScale: number) {
   const cov = stateCovariance(context, state);
-  const P = parameterCount(state.components.length, baselineKind);
-  const offset = parameterCount(0, baselineKind);
-  const bands = state.components
+  const P = parameterCount(state.components.length, context.baselineKind);
+  const offset = parameterCount(0, context.baselineKind);
+  return state.components
     .map((comp, j) => {
       const k = offset + 3 * j;
       const sd = (m: number) => (cov ? Math.sqrt(Math.max(0, cov[m * P + m] as number)) : Infinity);
@@ -241,25 +292,7 @@ export function findBands(
         areaSigma: Math.sqrt(Math.max(0, areaVar)) * KK * yScale,
       };
     })
-    .sort((a, b) => a.center - b.center)
-    .map((b, i): FoundBand => describeBand(b, i + 1, spectrum.quantity));
-  const rms = Math.sqrt(state.chi2 / context.x.length) * yScale;
-  return {
-    quantity: spectrum.quantity,
-    window: { from: lo, to: hi },
-    clipped: from < first || to > last,
-    grid: { x: gx, y: gy, step },
-    points: inside,
-    noise,
-    residualRms: rms,
-    baselineKind,
-    baseline: {
-      offset: state.b0 * yScale,
-      slope: (state.b1 * yScale) / KK,
-      reference: context.xMid * KK,
-    },
-    bands,
-  };
+    .sort((a, b) => a.center - b.center);
 }
 
 /** The data points inside the window, in kK and scaled y. */

@@ -1,9 +1,9 @@
-import type { FoundBand } from './bandFinding.js';
-
 /**
  * From bands found in a spectrum to the observations a ligand-field fit takes: the energy of
  * each d–d band with a standard uncertainty.
  */
+
+import type { FoundBand } from './bandFinding.js';
 
 /** One observed transition energy and its standard uncertainty, cm⁻¹. */
 export interface BandObservation {

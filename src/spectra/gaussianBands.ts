@@ -1,5 +1,3 @@
-import { normalRandom } from '../numeric/seededRandom.js';
-
 /**
  * Gaussian absorption bands on a wavenumber axis. A d–d band is broadened by the spread of
  * vibrational displacements between ground and excited state; in the harmonic, linear-coupling
@@ -7,6 +5,8 @@ import { normalRandom } from '../numeric/seededRandom.js';
  * (Franck–Condon) transition energy (Henderson & Imbusch, Optical Spectroscopy of Inorganic
  * Solids, 1989, ch. 5). Energies in cm⁻¹; heights in whatever the spectrum's y is.
  */
+
+import { normalRandom } from '../numeric/seededRandom.js';
 
 /** One Gaussian band: `height` at the maximum `center`, full width at half maximum `fwhm`. */
 export interface GaussianBand {

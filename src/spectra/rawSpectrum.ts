@@ -1,10 +1,13 @@
+/**
+ * A spectrum as read from a file, before any unit is applied: the chosen x and y columns in
+ * file order, where each point came from, and what the file itself says about units; and the
+ * check that x runs one way.
+ */
+
 import { InputError } from '../core/errors.js';
 import type { SpectrumXUnit, SpectrumYUnit, UnitChoice } from './spectrumUnits.js';
 
-/**
- * A spectrum as read from a file, before any unit is applied: the chosen x and y columns in
- * file order, where each point came from, and what the file itself says about units.
- */
+/** The spectrum as read. */
 export interface RawSpectrum {
   readonly x: Float64Array;
   readonly y: Float64Array;

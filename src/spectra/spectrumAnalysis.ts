@@ -12,7 +12,7 @@ import type { FreeIon } from '../core/ions.js';
 import { fixed } from '../core/numberText.js';
 import type { RatioChoice } from '../core/ratioChoice.js';
 import type { CubicResult } from '../field/cubic.js';
-import type { FitResult } from '../fit/fitBands.js';
+import type { FitResult } from '../fit/fitTypes.js';
 import { type AbsorptionSpectrum, absorptionSpectrum } from './absorptionSpectrum.js';
 import {
   type BandAnalysis,

@@ -1,13 +1,16 @@
-import { type FitInput, type FitResult, fitBands } from '../fit/fitBands.js';
-import type { FoundBand } from './bandFinding.js';
-import { bandObservations } from './bandObservations.js';
-
 /**
  * The ligand-field fit of bands found in a spectrum: which bands go in, and the fit itself.
  * Narrow bands (flagged `narrow`) are left out unless spin-forbidden transitions are searched
  * too: they are most often spin-forbidden, and a search over spin-allowed transitions only would
  * misassign them; if nothing but narrow bands is left, those are fitted.
  */
+
+import { fitBands } from '../fit/fitBands.js';
+import type { FitInput, FitResult } from '../fit/fitTypes.js';
+import type { FoundBand } from './bandFinding.js';
+import { bandObservations } from './bandObservations.js';
+
+/** A fit of found bands and which bands it used. */
 export interface FoundBandFit {
   readonly result: FitResult;
   /** Numbers of the bands fitted. */

@@ -1,13 +1,13 @@
-import { convert } from 'jcampconverter';
-import { InputError } from '../core/errors.js';
-import type { RawSpectrum } from './rawSpectrum.js';
-import type { SpectrumXUnit, SpectrumYUnit, UnitChoice } from './spectrumUnits.js';
-
 /**
  * JCAMP-DX spectra (the IUPAC exchange format: McDonald & Wilks, Appl. Spectrosc. 42, 151,
  * 1988), decoded by the jcampconverter package, which handles the compressed data forms.
  * The first block with XY data is read; its ##XUNITS and ##YUNITS give the units.
  */
+
+import { convert } from 'jcampconverter';
+import { InputError } from '../core/errors.js';
+import type { RawSpectrum } from './rawSpectrum.js';
+import type { SpectrumXUnit, SpectrumYUnit, UnitChoice } from './spectrumUnits.js';
 
 /** Whether text looks like JCAMP-DX: its first labelled record is `##TITLE=`. */
 export function isJcamp(text: string): boolean {

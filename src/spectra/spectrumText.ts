@@ -1,13 +1,13 @@
-import { InputError } from '../core/errors.js';
-import { splitCsvLine } from '../sheets/csv.js';
-import type { RawSpectrum } from './rawSpectrum.js';
-import { xUnitFromLabel, yUnitFromLabel } from './spectrumUnits.js';
-
 /**
  * Delimited-text spectra as spectrometers and spreadsheets write them: comma-, semicolon-,
  * tab- or whitespace-separated columns, with a decimal point or a decimal comma, header lines
  * above the numbers and comment lines anywhere. Pure: takes the file's text, not its path.
  */
+
+import { InputError } from '../core/errors.js';
+import { splitCsvLine } from '../sheets/csv.js';
+import type { RawSpectrum } from './rawSpectrum.js';
+import { xUnitFromLabel, yUnitFromLabel } from './spectrumUnits.js';
 
 /** A column chosen by its 1-based number or by (part of) its header name. */
 export type ColumnChoice = number | string;

@@ -1,10 +1,10 @@
-import { InputError } from '../core/errors.js';
-
 /**
  * Units of the two columns of a UV-vis-NIR spectrum: what the x axis is measured in and what
  * quantity the y axis holds. They are read from the file's own header where it says so, or
  * given by the user; a unit is never guessed from the numbers.
  */
+
+import { InputError } from '../core/errors.js';
 
 /** Units of the x column. */
 export type SpectrumXUnit = 'nm' | 'cm-1' | 'eV';
