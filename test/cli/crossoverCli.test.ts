@@ -5,7 +5,7 @@ import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { memoryIo } from '../../cli/io.js';
 import { run } from '../../cli/program.js';
-import { ensureBuilt } from '../cliRunner.js';
+import { ensureBuilt, runInProcess } from '../cliRunner.js';
 
 const root = resolve(import.meta.dirname, '../..');
 const main = join(root, 'dist/cli/main.js');
@@ -137,9 +137,9 @@ describe('termsplit crossover (end to end)', () => {
     expect(json.crossings[0].fromSymbol).toBe('5T2g');
   });
 
-  it('exits 2 with one line on stderr for bad input', () => {
-    const r = spawnSync(process.execPath, [main, 'crossover', 'd6', '--B', 'lots'], { encoding: 'utf8' });
-    expect(r.status).toBe(2);
+  it('exits 2 with one line on stderr for bad input', async () => {
+    const r = await runInProcess(['crossover', 'd6', '--B', 'lots']);
+    expect(r.code).toBe(2);
     expect(r.stdout).toBe('');
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
     expect(r.stderr).toMatch(/^termsplit: --B/);

@@ -5,7 +5,7 @@ import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { memoryIo } from '../../cli/io.js';
 import { run } from '../../cli/program.js';
-import { ensureBuilt } from '../cliRunner.js';
+import { ensureBuilt, runInProcess } from '../cliRunner.js';
 
 const root = resolve(import.meta.dirname, '../..');
 const main = join(root, 'dist/cli/main.js');
@@ -181,10 +181,10 @@ describe('termsplit diagram (end to end)', () => {
     expect(readFileSync(join(cwd, 'd6.pdf')).subarray(0, 5).toString()).toBe('%PDF-');
   });
 
-  it('exits 2 with one line on bad input', () => {
+  it('exits 2 with one line on bad input', async () => {
     const cwd = freshDir('e2e-bad');
-    const r = spawnSync(process.execPath, [main, 'diagram', 'd6', '--max', '-3'], { cwd, encoding: 'utf8' });
-    expect(r.status).toBe(2);
+    const r = await runInProcess(['diagram', 'd6', '--max', '-3'], cwd);
+    expect(r.code).toBe(2);
     expect(r.stdout).toBe('');
     expect(r.stderr).toBe('termsplit: --max "-3": expected a positive number\n');
     expect(readdirSync(cwd)).toEqual([]);

@@ -5,7 +5,7 @@ import { memoryIo } from '../../cli/io.js';
 import { splitLabels } from '../../cli/options.js';
 import { withError } from '../../cli/present/fitPresent.js';
 import { run } from '../../cli/program.js';
-import { ensureBuilt } from '../cliRunner.js';
+import { ensureBuilt, runInProcess } from '../cliRunner.js';
 
 const root = resolve(import.meta.dirname, '../..');
 const main = resolve(root, 'dist/cli/main.js');
@@ -160,16 +160,14 @@ describe('withError', () => {
   });
 });
 
-describe('termsplit fit (end to end)', () => {
+describe('termsplit fit (one smoke test of the built command; the rest in process)', () => {
   beforeAll(() => {
     ensureBuilt();
   }, 120_000);
 
-  it('prints the fit for the issue’s command line and exits 0', () => {
-    const r = spawnSync('node', [main, 'fit', '--ion', 'Ni2+', '--bands', '8500,13800,25300'], {
-      encoding: 'utf8',
-    });
-    expect(r.status).toBe(0);
+  it('prints the fit for the issue’s command line and exits 0', async () => {
+    const r = await runInProcess(['fit', '--ion', 'Ni2+', '--bands', '8500,13800,25300']);
+    expect(r.code).toBe(0);
     expect(r.stderr).toBe('');
     expect(r.stdout).toContain('Best solution');
     expect(r.stdout).toContain('³T₂g');
@@ -183,9 +181,9 @@ describe('termsplit fit (end to end)', () => {
     expect(JSON.parse(r.stdout).solutions[0].dq).toBeCloseTo(1740, 6);
   });
 
-  it('exits 2 with one line and no stdout on bad input', () => {
-    const r = spawnSync('node', [main, 'fit', '--d', '3', '--bands', '17400,nope'], { encoding: 'utf8' });
-    expect(r.status).toBe(2);
+  it('exits 2 with one line and no stdout on bad input', async () => {
+    const r = await runInProcess(['fit', '--d', '3', '--bands', '17400,nope']);
+    expect(r.code).toBe(2);
     expect(r.stdout).toBe('');
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
   });

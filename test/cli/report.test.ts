@@ -12,7 +12,7 @@ import { join } from 'node:path';
 import { parse } from 'parse5';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { slugs } from '../../cli/report/runReport.js';
-import { ROOT, runInProcess } from '../cliRunner.js';
+import { runInProcess } from '../cliRunner.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'termsplit-report-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
