@@ -6,14 +6,9 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { readTextFile } from '../cli/files.js';
 import { DEMO_SPECTRA, demoSpectrumText } from '../fixtures/spectra/generate.js';
-import {
-  absorptionSpectrum,
-  findBands,
-  isJcamp,
-  parseJcampSpectrum,
-  parseSpectrumText,
-  syntheticSpectrum,
-} from '../src/index.js';
+import { absorptionSpectrum, findBands, parseJcampSpectrum, parseSpectrumText } from '../src/index.js';
+import { syntheticSpectrum } from '../src/spectra/gaussianBands.js';
+import { isJcamp } from '../src/spectra/spectrumJcamp.js';
 
 /** Rows of the large-file benchmark. */
 const BIG_ROWS = 1_000_000;

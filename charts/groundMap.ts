@@ -4,7 +4,9 @@
  */
 
 import type { Chart, ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
-import { type GroundStateMap, type MapRow, type MapSegment, pairingCoefficients } from '../src/index.js';
+import type { MapRow, MapSegment } from '../src/analysis/groundMap.js';
+import { pairingCoefficients } from '../src/analysis/lfse.js';
+import type { GroundStateMap } from '../src/index.js';
 import { type FigureOptions, renderChart } from './render.js';
 import { chartContext, drawRuns, measureRuns, stateRuns, type TextRun } from './typeset.js';
 

@@ -5,7 +5,8 @@
  */
 
 import type { ChartConfiguration, Plugin } from 'chart.js';
-import { type SeriesEntry, unicodeIon } from '../src/index.js';
+import { unicodeIon } from '../src/field/labels.js';
+import type { SeriesEntry } from '../src/index.js';
 import { type FigureOptions, renderChart } from './render.js';
 import { STYLE } from './style.js';
 

@@ -7,15 +7,10 @@
 
 import type { ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
 import { xyReduce } from 'ml-spectra-processing';
-import {
-  type AbsorptionQuantity,
-  bandSum,
-  cmToNm,
-  type FoundBand,
-  gaussianValue,
-  type LinearBaseline,
-  parseStateLabel,
-} from '../src/index.js';
+import { parseStateLabel } from '../src/field/labels.js';
+import { cmToNm, type FoundBand } from '../src/index.js';
+import type { AbsorptionQuantity } from '../src/spectra/absorptionSpectrum.js';
+import { bandSum, gaussianValue, type LinearBaseline } from '../src/spectra/gaussianBands.js';
 import { type FigureOptions, FONT_FAMILY, renderChart } from './render.js';
 
 /** A predicted transition from the ground state, to draw as a vertical mark. */

@@ -7,7 +7,7 @@
 
 import type { SKRSContext2D } from '@napi-rs/canvas';
 import type { Chart } from 'chart.js';
-import { parseStateLabel } from '../src/index.js';
+import { parseStateLabel } from '../src/field/labels.js';
 import { FONT_FAMILY } from './render.js';
 
 /** A piece of text at the baseline, raised or lowered. */

@@ -9,39 +9,41 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { renderGroundMap } from '../../charts/groundMap.js';
 import { type FigureFormat, formatOfPath } from '../../charts/render.js';
+import {
+  type CrossoverCaution,
+  crossoverCautions,
+  NEAR_CROSSOVER_PERCENT,
+  SETTLED_SIGMAS,
+  TETRAHEDRAL_DELTA_CEILING,
+} from '../../src/analysis/crossover.js';
 import { fittedSample as placeByFit } from '../../src/analysis/fittedSample.js';
+import { GROUND_MAP_DEFAULTS } from '../../src/analysis/groundMap.js';
+import { pairingCoefficients } from '../../src/analysis/lfse.js';
 import { hasSpinChoice } from '../../src/analysis/spinChoice.js';
+import { halfIntegerText } from '../../src/atom/terms.js';
 import { DEFAULT_C_OVER_B, NOMINAL_B } from '../../src/core/defaults.js';
+import { unicodeConfiguration } from '../../src/field/labels.js';
 import {
   type Crossover,
   type CrossoverAnalysis,
-  type CrossoverCaution,
   crossoverAnalysis,
-  crossoverCautions,
   type FitSolution,
   type FreeIon,
   type Geometry,
-  GROUND_MAP_DEFAULTS,
   groundStateMap,
-  halfIntegerText,
   InputError,
   impliedPairingEnergy,
   type MomentEstimate,
   momentEstimate,
-  NEAR_CROSSOVER_PERCENT,
   type OneElectronState,
   type OneElectronStates,
   oneElectronStates,
-  pairingCoefficients,
   pairingEnergy,
   parseEnergy,
   parseEnergyList,
   type SampleVerdict,
-  SETTLED_SIGMAS,
   sampleVerdict,
   solveCubic,
-  TETRAHEDRAL_DELTA_CEILING,
-  unicodeConfiguration,
   unicodeLabel,
 } from '../../src/index.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';

@@ -10,17 +10,19 @@ import { renderDiagram } from '../../charts/diagram.js';
 import { type FigureFormat, formatOfPath } from '../../charts/render.js';
 import { type SampleMark, samplePosition } from '../../charts/sampleOverlay.js';
 import {
-  type CorrelationDiagram,
   DEFAULT_MAX_DELTA_OVER_B,
   DEFAULT_SWEEP_POINTS,
   diagramCautions,
+  MAX_SWEEP_POINTS,
+} from '../../src/analysis/sweep.js';
+import { halfIntegerText } from '../../src/atom/terms.js';
+import {
+  type CorrelationDiagram,
   diagramCsv,
   diagramJson,
   type FreeIon,
   type Geometry,
-  halfIntegerText,
   InputError,
-  MAX_SWEEP_POINTS,
   parseEnergyList,
   sweepDiagram,
   unicodeLabel,

@@ -8,17 +8,10 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { renderLevelDiagram } from '../../charts/levelDiagram.js';
 import { formatOfPath } from '../../charts/render.js';
+import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
-import {
-  type CubicLevel,
-  cmToEv,
-  cmToNm,
-  cubicCautions,
-  halfIntegerText,
-  unicodeConfiguration,
-  unicodeLabel,
-  unicodeTerm,
-} from '../../src/index.js';
+import { unicodeConfiguration, unicodeTerm } from '../../src/field/labels.js';
+import { type CubicLevel, cmToEv, cmToNm, cubicCautions, unicodeLabel } from '../../src/index.js';
 import { writeFileAtomic } from '../files.js';
 import { fixed, jsonText, listSection, table } from '../format.js';
 import type { Io } from '../io.js';

@@ -8,23 +8,10 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { quantityTitle } from '../../charts/spectrum.js';
-import {
-  type BaselineKind,
-  cmToNm,
-  DEFAULT_BASELINE,
-  DEFAULT_MAX_BANDS,
-  DEFAULT_MIN_FWHM,
-  DEFAULT_X_COLUMN,
-  DEFAULT_Y_COLUMN,
-  type FoundBand,
-  InputError,
-  POSITION_WIDTH_FRACTION,
-  parseXUnit,
-  parseYUnit,
-  unicodeLabel,
-  X_UNIT_NAMES,
-  Y_UNIT_NAMES,
-} from '../../src/index.js';
+import { cmToNm, type FoundBand, InputError, unicodeLabel } from '../../src/index.js';
+import type { BaselineKind } from '../../src/spectra/bandDecomposition.js';
+import { DEFAULT_BASELINE, DEFAULT_MAX_BANDS, DEFAULT_MIN_FWHM } from '../../src/spectra/bandFinding.js';
+import { POSITION_WIDTH_FRACTION } from '../../src/spectra/bandObservations.js';
 import { parseRange } from '../../src/spectra/energyRange.js';
 import type { SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
 import {
@@ -32,6 +19,8 @@ import {
   type SpectrumAnalysisOptions,
   type SpectrumFitRequest,
 } from '../../src/spectra/spectrumAnalysis.js';
+import { DEFAULT_X_COLUMN, DEFAULT_Y_COLUMN } from '../../src/spectra/spectrumText.js';
+import { parseXUnit, parseYUnit, X_UNIT_NAMES, Y_UNIT_NAMES } from '../../src/spectra/spectrumUnits.js';
 import { readTextFile, writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';

@@ -5,19 +5,18 @@
  */
 
 import type { Command } from 'commander';
+import { binomial } from '../../src/atom/microstates.js';
+import { halfIntegerText, microstateTable } from '../../src/atom/terms.js';
+import { unicodeTerm } from '../../src/field/labels.js';
 import {
-  binomial,
   type FreeIon,
   findIon,
   freeIonTerms,
-  halfIntegerText,
   hundGround,
   InputError,
   jLevels,
-  microstateTable,
   parseConfiguration,
   termsOf,
-  unicodeTerm,
 } from '../../src/index.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';

@@ -5,13 +5,8 @@
 
 import { renderDiagram } from '../../charts/diagram.js';
 import type { FigureFormat } from '../../charts/render.js';
-import {
-  DEFAULT_MAX_DELTA_OVER_B,
-  type FitResult,
-  type FitSolution,
-  InputError,
-  sweepDiagram,
-} from '../../src/index.js';
+import { DEFAULT_MAX_DELTA_OVER_B } from '../../src/analysis/sweep.js';
+import { type FitResult, type FitSolution, InputError, sweepDiagram } from '../../src/index.js';
 
 /**
  * The correlation diagram at the best solution's C/B, wide enough to hold the sample, with the

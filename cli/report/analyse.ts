@@ -6,10 +6,9 @@
  */
 
 import { resolve } from 'node:path';
+import { crossoverCautions } from '../../src/analysis/crossover.js';
 import { chooseRatio, type RatioChoice } from '../../src/core/ratioChoice.js';
 import {
-  crossoverCautions,
-  DEFAULT_BASELINE,
   type FitResult,
   type FitSolution,
   type FreeIon,
@@ -18,13 +17,13 @@ import {
   fitSpinVerdict,
   type Geometry,
   InputError,
-  parseXUnit,
-  parseYUnit,
   type SampleSpec,
   type SeriesEntry,
 } from '../../src/index.js';
+import { DEFAULT_BASELINE } from '../../src/spectra/bandFinding.js';
 import { parseRange } from '../../src/spectra/energyRange.js';
 import { analyseSpectrum, type SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
+import { parseXUnit, parseYUnit } from '../../src/spectra/spectrumUnits.js';
 import { readTextFile } from '../files.js';
 import { crossingsJson, verdictJson } from '../present/crossoverPresent.js';
 import { fitJson, solutionJson } from '../present/fitPresent.js';

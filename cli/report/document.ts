@@ -5,7 +5,8 @@
  */
 
 import { BAND_CEILING } from '../../src/core/defaults.js';
-import { cmToNm, unicodeIon, unicodeLabel } from '../../src/index.js';
+import { unicodeIon } from '../../src/field/labels.js';
+import { cmToNm, unicodeLabel } from '../../src/index.js';
 import { fixed } from '../format.js';
 import { withError } from '../present/fitPresent.js';
 import type { SampleResult } from './analyse.js';

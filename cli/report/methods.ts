@@ -2,7 +2,8 @@
  * The methods paragraph and the references of a report, written for the samples it holds.
  */
 
-import { FREE_IONS, unicodeIon } from '../../src/index.js';
+import { unicodeIon } from '../../src/field/labels.js';
+import { FREE_IONS } from '../../src/index.js';
 import type { SampleResult } from './analyse.js';
 
 /** The works the methods paragraph cites, in citation form. */

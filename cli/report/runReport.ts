@@ -7,13 +7,8 @@
 import { existsSync } from 'node:fs';
 import { dirname, extname, resolve } from 'node:path';
 import { renderTrend } from '../../charts/series.js';
-import {
-  InputError,
-  parseSampleSheet,
-  type SampleSheet,
-  type SheetFormat,
-  type SheetProblem,
-} from '../../src/index.js';
+import { InputError, parseSampleSheet, type SampleSheet } from '../../src/index.js';
+import type { SheetFormat, SheetProblem } from '../../src/sheets/sampleSheet.js';
 import { readTextFile } from '../files.js';
 import { jsonText } from '../format.js';
 import type { Io } from '../io.js';

@@ -3,7 +3,7 @@
  * spin state, and the files written.
  */
 
-import { unicodeIon } from '../../src/index.js';
+import { unicodeIon } from '../../src/field/labels.js';
 import { fixed, table } from '../format.js';
 import { withError } from '../present/fitPresent.js';
 import type { SampleResult } from './analyse.js';

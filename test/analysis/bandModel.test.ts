@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { fieldSlope, levelKeys, ratioScan, solveAt, transitions } from '../../src/index.js';
+import { fieldSlope, levelKeys, solveAt } from '../../src/analysis/bandModel.js';
+import { ratioScan } from '../../src/fit/ratioScan.js';
+import { transitions } from '../../src/index.js';
 
 const GEOMETRIES = ['oct', 'tet'] as const;
 

@@ -1,13 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import {
-  crossoverAnalysis,
-  crossoverCautions,
-  InputError,
-  sampleVerdict,
-  solveCubic,
-  sweepDiagram,
-  TETRAHEDRAL_DELTA_CEILING,
-} from '../../src/index.js';
+import { crossoverCautions, TETRAHEDRAL_DELTA_CEILING } from '../../src/analysis/crossover.js';
+import { crossoverAnalysis, InputError, sampleVerdict, solveCubic, sweepDiagram } from '../../src/index.js';
 
 const B = 800;
 

@@ -1,7 +1,8 @@
 import { loadImage } from '@napi-rs/canvas';
 import { describe, expect, it } from 'vitest';
 import { renderGroundMap } from '../../charts/groundMap.js';
-import { crossoverAnalysis, groundStateMap, InputError, MAP_B } from '../../src/index.js';
+import { MAP_B } from '../../src/analysis/groundMap.js';
+import { crossoverAnalysis, groundStateMap, InputError } from '../../src/index.js';
 
 const small = { minCOverB: 4, maxCOverB: 5, rows: 3, columns: 40 } as const;
 

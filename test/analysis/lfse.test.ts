@@ -1,10 +1,9 @@
 import { describe, expect, it } from 'vitest';
+import { ORBITAL_ENERGY_DQ, pairingCoefficients } from '../../src/analysis/lfse.js';
 import {
   InputError,
   impliedPairingEnergy,
-  ORBITAL_ENERGY_DQ,
   oneElectronStates,
-  pairingCoefficients,
   pairingEnergy,
   solveCubic,
 } from '../../src/index.js';

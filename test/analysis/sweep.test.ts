@@ -1,10 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { DEFAULT_MAX_DELTA_OVER_B, DEFAULT_SWEEP_POINTS, diagramCautions } from '../../src/analysis/sweep.js';
 import {
-  brentRoot,
   type CorrelationDiagram,
-  DEFAULT_MAX_DELTA_OVER_B,
-  DEFAULT_SWEEP_POINTS,
-  diagramCautions,
   diagramCsv,
   diagramJson,
   freeIonTerms,
@@ -13,6 +10,7 @@ import {
   solveCubic,
   sweepDiagram,
 } from '../../src/index.js';
+import { brentRoot } from '../../src/numeric/roots.js';
 
 /** |a − b| ≤ abs + rel·|b|. */
 function close(a: number, b: number, rel = 1e-9, abs = 1e-9): boolean {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { quantityTitle, renderSpectrumFigure, spectrumChart } from '../../charts/spectrum.js';
-import { findBands, syntheticSpectrum } from '../../src/index.js';
+import { findBands } from '../../src/index.js';
+import { syntheticSpectrum } from '../../src/spectra/gaussianBands.js';
 
 const x = Float64Array.from({ length: 6001 }, (_, i) => 10000 + i * 3);
 const bands = [

@@ -5,7 +5,7 @@ import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { memoryIo } from '../../cli/io.js';
 import { run } from '../../cli/program.js';
-import { syntheticSpectrum } from '../../src/index.js';
+import { syntheticSpectrum } from '../../src/spectra/gaussianBands.js';
 
 const root = resolve(__dirname, '../..');
 const fixture = (name: string) => resolve(root, 'fixtures/spectra', name);

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { levelKeys, ratioScan, searchAssignments, solveAt } from '../../src/index.js';
+import { levelKeys, solveAt } from '../../src/analysis/bandModel.js';
+import { searchAssignments } from '../../src/fit/assignment.js';
+import { ratioScan } from '../../src/fit/ratioScan.js';
 
 const weight = 1 / 200 ** 2;
 const bandsOf = (...energies: number[]) => energies.map((energy) => ({ energy, weight }));

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { inverseNormalMatrix, levenbergMarquardt } from '../../src/index.js';
+import { inverseNormalMatrix, levenbergMarquardt } from '../../src/numeric/leastSquares.js';
 
 // A straight line through scattered points: the least-squares line and its covariance have
 // closed forms (e.g. Press et al., Numerical Recipes, 3rd ed., 2007, §15.2).

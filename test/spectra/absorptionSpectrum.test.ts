@@ -1,15 +1,12 @@
 import { describe, expect, it } from 'vitest';
+import { absorptionSpectrum, CM_PER_EV, parseSpectrumText, type RawSpectrum } from '../../src/index.js';
 import {
-  absorptionSpectrum,
-  CM_PER_EV,
   chooseUnit,
-  parseSpectrumText,
   parseXUnit,
   parseYUnit,
-  type RawSpectrum,
   xUnitFromLabel,
   yUnitFromLabel,
-} from '../../src/index.js';
+} from '../../src/spectra/spectrumUnits.js';
 
 describe('xUnitFromLabel and yUnitFromLabel', () => {
   it.each([

@@ -10,20 +10,21 @@ import {
 import {
   absorptionSpectrum,
   type BandAnalysis,
-  bandObservations,
   type FoundBand,
   findBands,
   findIon,
   freeIonRatio,
-  type GaussianBand,
-  isJcamp,
-  ligandFieldBands,
-  POSITION_WIDTH_FRACTION,
   parseJcampSpectrum,
   parseSpectrumText,
   solveCubic,
-  syntheticSpectrum,
 } from '../../src/index.js';
+import {
+  bandObservations,
+  ligandFieldBands,
+  POSITION_WIDTH_FRACTION,
+} from '../../src/spectra/bandObservations.js';
+import { type GaussianBand, syntheticSpectrum } from '../../src/spectra/gaussianBands.js';
+import { isJcamp } from '../../src/spectra/spectrumJcamp.js';
 
 /**
  * Tolerance of a recovered band position: four of the fit's own standard uncertainties (the

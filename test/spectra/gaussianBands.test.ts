@@ -1,15 +1,13 @@
 import { describe, expect, it } from 'vitest';
+import { covariance, fitCurve } from '../../src/numeric/leastSquares.js';
+import { normalRandom, uniformRandom } from '../../src/numeric/seededRandom.js';
 import {
   bandSum,
-  covariance,
-  fitCurve,
   GAUSSIAN_AREA_FACTOR,
   gaussianArea,
   gaussianValue,
-  normalRandom,
   syntheticSpectrum,
-  uniformRandom,
-} from '../../src/index.js';
+} from '../../src/spectra/gaussianBands.js';
 
 describe('gaussianValue and gaussianArea', () => {
   const band = { center: 20000, height: 2, fwhm: 3000 };

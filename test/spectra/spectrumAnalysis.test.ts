@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { findIon, syntheticSpectrum } from '../../src/index.js';
+import { findIon } from '../../src/index.js';
+import { syntheticSpectrum } from '../../src/spectra/gaussianBands.js';
 import { analyseSpectrum } from '../../src/spectra/spectrumAnalysis.js';
 
 // [Cr(H2O)6]3+: spin-allowed bands at 17 400 (4T2g) and 24 600 cm⁻¹ (4T1g(F)); for octahedral d3

@@ -1,7 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { absorptionSpectrum, isJcamp, parseJcampSpectrum } from '../../src/index.js';
+import { absorptionSpectrum, parseJcampSpectrum } from '../../src/index.js';
+import { isJcamp } from '../../src/spectra/spectrumJcamp.js';
 
 const header = (xUnits: string, yUnits: string) =>
   [
