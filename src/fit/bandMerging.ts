@@ -1,4 +1,3 @@
-import type { Geometry } from '../field/labels.js';
 import type { BandMerge, FitBand } from './fitTypes.js';
 
 /**
@@ -78,12 +77,7 @@ function centroid(members: readonly FitBand[]): FitBand {
  * assumed) into one at their centroid; sets sharp bands aside (unless every band is sharp).
  * With `merge` false, only the sharp bands are set aside.
  */
-export function mergeBands(
-  bands: readonly FitBand[],
-  n: number,
-  geometry: Geometry,
-  merge: boolean,
-): MergedBands {
+export function mergeBands(bands: readonly FitBand[], n: number, merge: boolean): MergedBands {
   const allSharp = bands.every((b) => b.sharp);
   const isSharp = (b: FitBand) => Boolean(b.sharp) && !allSharp;
   const broad = bands.map((b, i) => ({ b, i })).filter(({ b }) => !isSharp(b));

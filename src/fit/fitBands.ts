@@ -117,7 +117,7 @@ export function fitBands(input: FitInput): FitResult {
   const merge = (input.merge ?? FIT_DEFAULTS.merge) && !assigned;
   const merged = assigned
     ? { bands: setup.bands, broad: setup.bands.length, merges: [] }
-    : mergeBands(setup.bands, n, geometry, merge);
+    : mergeBands(setup.bands, n, merge);
   const plan = planOf(setup, merged);
   const ratios = scannedRatios(plan).length;
   let scans = 0;
