@@ -3,14 +3,14 @@ import { findIon, fitBands } from '../../src/index.js';
 
 const bands = (...energies: number[]) => energies.map((energy) => ({ energy }));
 const codes = (warnings: readonly { code: string }[]) => warnings.map((w) => w.code);
-const fit = (ion: string, energies: number[], more: Partial<Parameters<typeof fitBands>[0]> = {}) => {
+const fitIon = (ion: string, energies: number[], more: Partial<Parameters<typeof fitBands>[0]> = {}) => {
   const free = findIon(ion);
   return fitBands({ n: free.n, bands: bands(...energies), freeIon: free, ...more });
 };
 
 describe('fitBands keeps parameters inside the optimiser', () => {
   it('fits [Co(H2O)6]2+ 8100, 19400 cm⁻¹ without an assignment: no bound reaches the user, Dq 921, B 828 (Lever 1984, from memory)', () => {
-    const best = fit('Co2+', [8100, 19400]).solutions[0];
+    const best = fitIon('Co2+', [8100, 19400]).solutions[0];
     expect(best?.assignments.map((a) => a.label)).toEqual(['4T2g', '4T1g(P)']);
     expect(best?.dq).toBeCloseTo(921.6, 0);
     expect(best?.B).toBeCloseTo(828, -1);
@@ -19,7 +19,7 @@ describe('fitBands keeps parameters inside the optimiser', () => {
 
 describe('fitBands ranks by chemistry as well as residuals', () => {
   it('ranks ⁴T₂g + ⁴T₁g(P) of Co2+ 9000, 20000 first: ⁴A₂g is a two-electron jump and scores worse', () => {
-    const r = fit('Co2+', [9000, 20000]);
+    const r = fitIon('Co2+', [9000, 20000]);
     expect(r.solutions[0]?.assignments[0]?.label).toBe('4T2g');
     const other = r.solutions.find((s) => s.assignments[0]?.label === '4A2g');
     expect(other?.score.twoElectron).toBe(1);
@@ -27,14 +27,14 @@ describe('fitBands ranks by chemistry as well as residuals', () => {
   });
 
   it('gives the score and its parts with every solution; parts add up to the total', () => {
-    for (const s of fit('V3+', [17800, 25700]).solutions) {
+    for (const s of fitIon('V3+', [17800, 25700]).solutions) {
       const { total, residual, beta, twoElectron, unobserved, intensity } = s.score;
       expect(total).toBeCloseTo(residual + beta + twoElectron + unobserved + intensity, 9);
     }
   });
 
   it('scores a β far above 1 (V3+ ³A₂g, ³T₁g(P)) by its distance from the plausibility window', () => {
-    const s = fit('V3+', [17800, 25700]).solutions.find((x) => (x.beta ?? 0) > 1);
+    const s = fitIon('V3+', [17800, 25700]).solutions.find((x) => (x.beta ?? 0) > 1);
     expect(s?.score.beta).toBeCloseTo(((s?.beta ?? 0) - 1) ** 2 / 0.05 ** 2, 6);
   });
 
@@ -59,7 +59,7 @@ describe('fitBands ranks by chemistry as well as residuals', () => {
 
 describe('fitBands ground-spin hypotheses', () => {
   it('fits the spin-forbidden bands of [Mn(H2O)6]2+ by default as high-spin, C fitted, and lists the best low-spin solution too', () => {
-    const r = fit('Mn2+', [18900, 23100, 24950, 27950, 29700]);
+    const r = fitIon('Mn2+', [18900, 23100, 24950, 27950, 29700]);
     expect(r.solutions[0]?.ground).toBe('6A1g');
     expect(r.solutions[0]?.cFitted).toBe(true);
     expect(r.cChoice).toBe('bands-determine-it');
@@ -75,7 +75,7 @@ describe('fitBands ground-spin hypotheses', () => {
   });
 
   it('fits only low-spin [Co(NH3)6]3+ and says why there is no high-spin solution, with no Jahn–Teller pair warning', () => {
-    const r = fit('Co3+', [21000, 29500]);
+    const r = fitIon('Co3+', [21000, 29500]);
     expect(r.hypotheses.find((h) => h.kind === 'high')?.note).toMatch(
       /cannot all be spin-allowed transitions from 5T2g/,
     );
@@ -85,7 +85,7 @@ describe('fitBands ground-spin hypotheses', () => {
 
 describe('fitBands merging of band components', () => {
   it('merges the Jahn–Teller pair of [Ti(H2O)6]3+ (17400, 20300) and takes Dq from the centroid, with the reason', () => {
-    const r = fit('Ti3+', [17400, 20300]);
+    const r = fitIon('Ti3+', [17400, 20300]);
     expect(r.bands).toHaveLength(1);
     expect(r.solutions[0]?.dq).toBeCloseTo(1885, 6);
     expect(r.warnings.find((w) => w.code === 'merged-bands')?.message).toMatch(/Jahn–Teller pair.*centroid/);
@@ -109,8 +109,8 @@ describe('fitBands merging of band components', () => {
   });
 
   it('merges the shoulder on ν₃ of [Co(H2O)6]2+ and keeps bands apart on request', () => {
-    expect(fit('Co2+', [8100, 19400, 21550]).merges).toHaveLength(1);
-    expect(fit('Co2+', [8100, 19400, 21550], { merge: false }).merges).toHaveLength(0);
+    expect(fitIon('Co2+', [8100, 19400, 21550]).merges).toHaveLength(1);
+    expect(fitIon('Co2+', [8100, 19400, 21550], { merge: false }).merges).toHaveLength(0);
   });
 });
 
@@ -134,9 +134,9 @@ describe('fitBands advice names the right element and geometry', () => {
   it('suggests Mössbauer spectroscopy only for iron', () => {
     const text = (r: ReturnType<typeof fitBands>) =>
       [...r.warnings, ...r.solutions.flatMap((s) => s.warnings)].map((w) => w.message).join(' ');
-    expect(text(fit('Co3+', [21000, 29500]))).not.toMatch(/Mössbauer/);
-    expect(text(fit('Mn2+', [18900, 23100, 24950, 27950, 29700]))).not.toMatch(/Mössbauer/);
-    expect(text(fit('Fe2+', [10400], { fixedB: 800 }))).toMatch(/⁵⁷Fe Mössbauer/);
+    expect(text(fitIon('Co3+', [21000, 29500]))).not.toMatch(/Mössbauer/);
+    expect(text(fitIon('Mn2+', [18900, 23100, 24950, 27950, 29700]))).not.toMatch(/Mössbauer/);
+    expect(text(fitIon('Fe2+', [10400], { fixedB: 800 }))).toMatch(/⁵⁷Fe Mössbauer/);
   });
 
   it('gives no spin-state caution for tetrahedral d7, which has no spin choice at real fields', () => {
