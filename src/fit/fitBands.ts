@@ -1,5 +1,6 @@
 import { halfIntegerText } from '../atom/terms.js';
 import { InputError } from '../core/errors.js';
+import type { AssignmentCandidate } from './assignment.js';
 import { type MergedBands, mergeBands } from './bandMerging.js';
 import {
   type CandidateSet,
@@ -18,6 +19,7 @@ import {
   type SpinHypothesis,
 } from './fitTypes.js';
 import { resultWarnings } from './fitWarnings.js';
+import { singleTerm } from './ratioScan.js';
 import { type RefineContext, type Refined, refine } from './refinement.js';
 
 /**
@@ -41,6 +43,57 @@ function planOf(setup: FitSetup, merged: MergedBands): FitPlan {
     fitC: setup.fitC ?? cAuto,
     cAuto,
   };
+}
+
+/**
+ * With C free, every candidate is first refined with C held at its own starting C/B (cheap: the
+ * Jacobian then needs no extra solver call), and only this many of the best, plus the best of
+ * each ground spin, are refined again with C free from there.
+ */
+const FREE_C_REFINEMENTS = 3;
+
+/** Refines the candidates, dropping duplicates; `step` is called before each. */
+function refineAll(
+  ctx: RefineContext,
+  candidates: readonly AssignmentCandidate[],
+  step: (i: number) => void,
+): Refined[] {
+  const refined: Refined[] = [];
+  for (const [i, c] of candidates.entries()) {
+    step(i);
+    const r = refine(ctx, c);
+    if (r && !refined.some((s) => sameSolution(s, r))) refined.push(r);
+  }
+  return refined;
+}
+
+/**
+ * Refinement with C free in two stages (see {@link FREE_C_REFINEMENTS}); the second stage starts
+ * each chosen assignment at its first-stage optimum.
+ */
+function refineWithFreeC(
+  ctx: RefineContext,
+  candidates: readonly AssignmentCandidate[],
+  step: (i: number) => void,
+): Refined[] {
+  const held = candidates.flatMap((c, i) => {
+    step(i);
+    const r = refine({ ...ctx, fitC: false, cOverB: c.start.C / c.start.B }, c);
+    return r ? [r] : [];
+  });
+  held.sort((a, b) => a.solution.score.total - b.solution.score.total);
+  const chosen = held.filter(
+    (r, i) => i < FREE_C_REFINEMENTS || held.findIndex((x) => x.solution.spin === r.solution.spin) === i,
+  );
+  const { start: _given, ...free } = ctx;
+  return refineAll(
+    free,
+    chosen.map((r) => ({
+      ...r.candidate,
+      start: { dq: r.solution.dq, B: r.solution.B, C: r.solution.C },
+    })),
+    () => undefined,
+  );
 }
 
 /** The element symbol of an ion name such as `Fe2+`, or null. */
@@ -141,12 +194,12 @@ export function fitBands(input: FitInput): FitResult {
     ...(input.start ? { start: input.start } : {}),
     ...(input.leastSquares ? { leastSquares: input.leastSquares } : {}),
   };
-  const refined: Refined[] = [];
-  for (const [i, c] of toRefine.entries()) {
-    progress(scans + i, scans + toRefine.length);
-    const r = refine(ctx, c);
-    if (r && !refined.some((s) => sameSolution(s, r))) refined.push(r);
-  }
+  const step = (i: number) => progress(scans + i, scans + toRefine.length);
+  // Two stages only from the scan's starts: a given start is refined as it is.
+  const refined =
+    ctx.fitC && !input.start && !singleTerm(n)
+      ? refineWithFreeC(ctx, toRefine, step)
+      : refineAll(ctx, toRefine, step);
   progress(scans + toRefine.length, scans + toRefine.length);
   if (refined.length === 0) throw noSolutionError(plan);
   const { solutions, omitted } = rankSolutions(refined, plan.ambiguityFactor, plan.maxSolutions);

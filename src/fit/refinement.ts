@@ -70,6 +70,8 @@ export interface RefineContext {
 /** A refined assignment: its solution (unranked) and what the ranking needs besides. */
 export interface Refined {
   readonly solution: Omit<FitSolution, 'rank'>;
+  /** The candidate refined. */
+  readonly candidate: AssignmentCandidate;
   readonly keys: readonly string[];
   /** Bands assigned to spin-forbidden transitions. */
   readonly spinForbidden: number;
@@ -247,6 +249,7 @@ function solutionOf(ctx: RefineContext, candidate: AssignmentCandidate, optimum:
     reasonText,
   });
   return {
+    candidate,
     keys: candidate.keys,
     spinForbidden: assignments.filter((a) => !a.spinAllowed).length,
     solution: {
