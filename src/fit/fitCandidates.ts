@@ -93,8 +93,14 @@ function noCandidateError(
   const most = Math.max(...scan.points.map((pt) => pt.excited.length));
   const mostAllowed = Math.max(...points.map((pt) => pt.excited.filter((l) => l.spinAllowed).length));
   const band = `${m} band${m === 1 ? '' : 's'}`;
-  if (m > most)
-    return new InputError(`${band}: ${where} has only ${most} excited level${most === 1 ? '' : 's'}`);
+  if (m > most) {
+    return new InputError(
+      `${band}: ${where} has only ${most} excited level${most === 1 ? '' : 's'}` +
+        (input.merge === false
+          ? ': if some are components of one split band, let them be merged (without --keep-bands)'
+          : ''),
+    );
+  }
   if (input.spinState !== undefined && all.length > 1) {
     const g = points[0]?.ground.label ?? '';
     return new InputError(
