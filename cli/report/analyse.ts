@@ -160,7 +160,7 @@ function sampleFit(task: SampleTask, ion: FreeIon, ratio: RatioChoice): SampleFi
       ),
       freeIon: ion,
       cOverB: ratio.cOverB,
-      fitC: sample.fitC,
+      ...(sample.fitC !== undefined ? { fitC: sample.fitC } : {}),
       includeSpinForbidden: sample.spinForbidden,
       ...(sample.spinState ? { spinState: sample.spinState } : {}),
       ...(sample.assign ? { assignments: sample.assign } : {}),
@@ -218,7 +218,8 @@ function sampleSpectrum(
         geometry,
         ion,
         ratio,
-        fitC: sample.fitC,
+        // Spectra keep C held unless the sheet asks for it.
+        fitC: sample.fitC ?? false,
         includeSpinForbidden: sample.spinForbidden,
         ...(sample.spinState ? { spinState: sample.spinState } : {}),
       },

@@ -38,8 +38,11 @@ export interface SampleSpec {
   readonly spectrum?: SpectrumSpec;
   /** Fixed C/B; absent means the ion's free-ion ratio. */
   readonly cOverB?: number;
-  /** Fit C as a third parameter. @default false */
-  readonly fitC: boolean;
+  /**
+   * Fit C as a third parameter (true) or hold it at C/B (false). @default undefined: fitted where
+   * the bands fix it, unless `cb` is given
+   */
+  readonly fitC?: boolean;
   /** Assignments of the bands, lowest first, e.g. `['3T2g', '3T1g(F)']`. */
   readonly assign?: readonly string[];
   /** Let the assignment search use spin-forbidden transitions too. @default false */
@@ -257,6 +260,8 @@ function checkSample(
           .map((a) => a.trim())
           .filter((a) => a !== '');
   const cOverB = s.cb ?? defaults.cb;
+  // C is held where C/B is given, and left to the bands otherwise.
+  const fitC = s.fitC ?? defaults.fitC ?? (cOverB !== undefined ? false : undefined);
   return {
     sample: {
       name: s.name,
@@ -265,7 +270,7 @@ function checkSample(
       ...(bands ? { bands } : {}),
       ...(spectrum ? { spectrum } : {}),
       ...(cOverB !== undefined ? { cOverB } : {}),
-      fitC: s.fitC ?? defaults.fitC ?? false,
+      ...(fitC !== undefined ? { fitC } : {}),
       ...(assign ? { assign } : {}),
       spinForbidden: s.spinForbidden ?? defaults.spinForbidden ?? false,
       ...(s.spinState ? { spinState: s.spinState } : {}),
