@@ -161,6 +161,7 @@ function sampleFit(task: SampleTask, ion: FreeIon, ratio: RatioChoice): SampleFi
       freeIon: ion,
       cOverB: ratio.cOverB,
       ...(sample.fitC !== undefined ? { fitC: sample.fitC } : {}),
+      merge: !sample.keepBands,
       includeSpinForbidden: sample.spinForbidden,
       ...(sample.spinState ? { spinState: sample.spinState } : {}),
       ...(sample.assign ? { assignments: sample.assign } : {}),

@@ -120,6 +120,7 @@ function hypothesisOutcomes(
     return {
       spin: h.spin,
       kind: h.kind,
+      ground: h.ground,
       transitions: h.transitions,
       bestRank: best?.rank ?? null,
       note,

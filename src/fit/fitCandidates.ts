@@ -97,7 +97,7 @@ function noCandidateError(
     return new InputError(
       `${band}: ${where} has only ${most} excited level${most === 1 ? '' : 's'}` +
         (input.merge === false
-          ? ': if some are components of one split band, let them be merged (without --keep-bands)'
+          ? ': if some are components of one split band, let them be merged (without --keep-bands or keep_bands)'
           : ''),
     );
   }

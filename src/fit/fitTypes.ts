@@ -295,6 +295,8 @@ export interface SpinHypothesis {
   readonly spin: number;
   /** `high` or `low` where the ion has a choice, else `only`. */
   readonly kind: 'high' | 'low' | 'only';
+  /** Label of the ground state of this spin met on the scan. */
+  readonly ground: string;
   /** Which transitions were offered: spin-allowed, or ΔS = 1 bands where there are no allowed ones. */
   readonly transitions: 'spin-allowed' | 'spin-forbidden' | 'both';
   /** Rank of its best solution, or null. */

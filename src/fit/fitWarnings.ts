@@ -287,13 +287,13 @@ export function resultWarnings(ctx: ResultWarningContext): FitWarning[] {
       code: 'merged-bands',
       message:
         `bands ${merge.energies.map((e) => e.toFixed(0)).join(', ')} cm⁻¹ merged into one at ${merge.centroid.toFixed(0)} cm⁻¹ ` +
-        `(closer than a band width): ${merge.reason}; --keep-bands fits them apart`,
+        `(closer than a band width): ${merge.reason}; to fit them apart, give --keep-bands (fit command) or keep_bands in the sample sheet`,
     });
   }
   if (ctx.cAuto) {
     warnings.push({
       code: 'c-fitted',
-      message: `C fitted as well: the ${m} bands depend on C and fix it (hold C/B with --cb to keep it fixed)`,
+      message: `C fitted as well: the ${m} bands depend on C and fix it (to hold C/B instead, give --cb, or cb in the sample sheet)`,
     });
   }
   if (ctx.solutions > 1) {
@@ -311,7 +311,7 @@ export function resultWarnings(ctx: ResultWarningContext): FitWarning[] {
       message:
         `${n === 4 || n === 6 ? 'high-spin ' : ''}d${n} has a single spin-allowed band (${n === 1 || n === 6 ? 'to an E state' : 'from an E ground state'}), ` +
         'which a Jahn–Teller distortion often splits into two components: if two of these bands are such a pair, ' +
-        '10Dq is about their centroid — fit without --keep-bands to merge them',
+        '10Dq is about their centroid — let them be merged (without --keep-bands or keep_bands)',
     });
   }
   for (const h of ctx.hypotheses) {
@@ -319,7 +319,9 @@ export function resultWarnings(ctx: ResultWarningContext): FitWarning[] {
       warnings.push({ code: 'spin-without-solution', message: h.note });
     }
   }
-  for (const label of ctx.groundsWithout) {
+  // A ground state whose hypothesis has already said why it has no solution is not named twice.
+  const explained = new Set(ctx.hypotheses.filter((h) => h.note !== null).map((h) => h.ground));
+  for (const label of ctx.groundsWithout.filter((g) => !explained.has(g))) {
     warnings.push({
       code: 'ground-without-assignment',
       message:
@@ -327,7 +329,7 @@ export function resultWarnings(ctx: ResultWarningContext): FitWarning[] {
         `transitions from the ground state ${label} exists, so no solution assumes it` +
         (ctx.includeSpinForbidden
           ? ''
-          : '; include spin-forbidden transitions to consider it (--spin-forbidden)'),
+          : '; include spin-forbidden transitions to consider it (--spin-forbidden, or spin_forbidden in the sample sheet)'),
     });
   }
   return warnings;

@@ -138,7 +138,10 @@ describe('termsplit fit (in process)', () => {
       /3 assignments for 2 bands/,
     ],
     [['--ion', 'Ni2+', '--bands', '8500,13800', '--assign', '4T2g'], /no such level of d8.*expected one of/],
-    [['--ion', 'V3+', '--bands', '17800'], /1 band: .*cannot fix Dq and B: give a second band, or hold B .*\(--B\)/],
+    [
+      ['--ion', 'V3+', '--bands', '17800'],
+      /1 band: .*cannot fix Dq and B: give a second band, or hold B .*\(--B\)/,
+    ],
     [['--ion', 'Ni2+', '--bands', '8500,13800', '--fit-c'], /2 bands for 3 free parameters/],
     [['--ion', 'Xx9+', '--bands', '8500,13800'], /unknown ion "Xx9\+"/],
     [['--d', '8', '--bands', '8500,13800', '--geometry', 'square'], /--geometry "square"/],

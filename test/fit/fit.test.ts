@@ -178,7 +178,7 @@ describe('fitBands on published worked examples', () => {
     expect(rel(best?.tenDq ?? 0, 22900)).toBeLessThan(0.03);
     expect(rel(best?.B ?? 0, 620)).toBeLessThan(0.05);
     expect(codes(best?.warnings ?? [])).toContain('spin-state');
-    expect(codes(r.warnings)).toContain('ground-without-assignment');
+    expect(codes(r.warnings)).toContain('spin-without-solution');
   });
 
   it('gives Dq ≈ 320, B ≈ 710 cm⁻¹ for tetrahedral [CoCl4]2− with ν₂, ν₃ = 5500, 14700 cm⁻¹ (from memory)', () => {
