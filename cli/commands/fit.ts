@@ -77,7 +77,7 @@ export function registerFit(program: Command, io: Io): void {
     )
     .option(
       '--B <cm-1>',
-      'hold Racah B at this value and fit Dq alone (for one band, e.g. high-spin d4 or d6)',
+      'hold Racah B at this value and fit Dq alone (one band at 10Dq, as of high-spin d4 or d6, fixes Dq without it)',
     )
     .option(
       '--diagram <file>',
