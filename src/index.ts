@@ -84,13 +84,17 @@ export { unicodeLabel } from './field/labels.js';
 export { fitBands } from './fit/fitBands.js';
 
 export {
+  type BandMerge,
   FIT_DEFAULTS,
   type FitAssignment,
   type FitBand,
   type FitInput,
   type FitResult,
+  type FitScore,
   type FitSolution,
   type PredictedBand,
+  type SharpMatch,
+  type SpinHypothesis,
 } from './fit/fitTypes.js';
 
 export { type FitSpinVerdict, fitSpinVerdict } from './fit/fitVerdict.js';

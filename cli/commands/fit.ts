@@ -1,6 +1,6 @@
 /**
  * `termsplit fit`: checks the options into a fit of band maxima (ion or dⁿ, bands in their unit,
- * geometry, C/B, assignments, spin state, held B), runs the library's band fit with progress on
+ * geometry, C/B, assignments, spin state, held B, merging), runs the library's band fit with progress on
  * stderr, prints the text or JSON form and draws the correlation diagram if asked.
  */
 
@@ -35,6 +35,7 @@ export interface FitOptions {
   geometry?: string;
   cb?: string;
   fitC?: boolean;
+  keepBands?: boolean;
   assign?: string;
   spinForbidden?: boolean;
   spinState?: string;
@@ -57,7 +58,14 @@ export function registerFit(program: Command, io: Io): void {
     .option('--unit <unit>', 'unit of band values given without one: cm-1, nm, eV or kK', DEFAULT_ENERGY_UNIT)
     .option(...GEOMETRY_OPTION)
     .option('--cb <ratio>', cbHelp('C/B held in the fit'))
-    .option('--fit-c', 'fit C too (needs at least 3 bands, one of which depends on C)')
+    .option(
+      '--fit-c',
+      'fit C too (needs at least 3 bands, one of which depends on C); without it, C is fitted where the bands fix it unless --cb is given',
+    )
+    .option(
+      '--keep-bands',
+      'fit bands closer than a band width as separate transitions (by default they are merged at their centroid)',
+    )
     .option(
       '--assign <labels>',
       'level for each band in order, e.g. 3T2g,3T1g(F),3T1g(P); ? leaves one to the search',
@@ -69,7 +77,7 @@ export function registerFit(program: Command, io: Io): void {
     )
     .option(
       '--B <cm-1>',
-      'hold Racah B at this value and fit Dq alone (for one band, e.g. high-spin d4 or d6)',
+      'hold Racah B at this value and fit Dq alone (one band at 10Dq, as of high-spin d4 or d6, fixes Dq without it)',
     )
     .option(
       '--diagram <file>',
@@ -102,13 +110,16 @@ export function fitFromOptions(
     opts.assign === undefined
       ? undefined
       : splitLabels(opts.assign).map((a) => (a === '?' || a === '' ? null : a));
+  // C is fitted when asked, held when C/B is given, and otherwise fitted where the bands fix it.
+  const fitC = opts.fitC ? true : opts.cb !== undefined ? false : undefined;
   const result = fitBands({
     n: choice.n,
     geometry,
     bands,
     ...(choice.ion ? { freeIon: choice.ion } : {}),
     cOverB: ratio.cOverB,
-    fitC: Boolean(opts.fitC),
+    ...(fitC !== undefined ? { fitC } : {}),
+    merge: !opts.keepBands,
     includeSpinForbidden: Boolean(opts.spinForbidden),
     ...(opts.spinState !== undefined ? { spinState: spinStateOption(opts.spinState) } : {}),
     ...(heldB !== undefined ? { fixedB: heldB } : {}),

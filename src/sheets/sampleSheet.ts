@@ -38,12 +38,17 @@ export interface SampleSpec {
   readonly spectrum?: SpectrumSpec;
   /** Fixed C/B; absent means the ion's free-ion ratio. */
   readonly cOverB?: number;
-  /** Fit C as a third parameter. @default false */
-  readonly fitC: boolean;
+  /**
+   * Fit C as a third parameter (true) or hold it at C/B (false). @default undefined: fitted where
+   * the bands fix it, unless `cb` is given
+   */
+  readonly fitC?: boolean;
   /** Assignments of the bands, lowest first, e.g. `['3T2g', '3T1g(F)']`. */
   readonly assign?: readonly string[];
   /** Let the assignment search use spin-forbidden transitions too. @default false */
   readonly spinForbidden: boolean;
+  /** Fit bands closer than a band width as separate transitions instead of merging them. @default false */
+  readonly keepBands: boolean;
   /** The ground-state spin when it is known (from magnetism, say); the fit then keeps only that. */
   readonly spinState?: 'high' | 'low';
   readonly notes?: string;
@@ -91,6 +96,7 @@ const optionsShape = {
   cb: z.number().positive().optional(),
   fitC: z.boolean().optional(),
   spinForbidden: z.boolean().optional(),
+  keepBands: z.boolean().optional(),
 };
 
 const sampleSchema = z
@@ -182,6 +188,7 @@ const EXPECTED: Readonly<Record<string, string>> = {
   cb: 'a positive number (C/B)',
   fitC: 'true or false',
   spinForbidden: 'true or false',
+  keepBands: 'true or false',
   spinState: '"high" or "low"',
   assign: 'level labels as text ("3T2g,3T1g(F)") or a list of them',
   notes: 'text',
@@ -257,6 +264,8 @@ function checkSample(
           .map((a) => a.trim())
           .filter((a) => a !== '');
   const cOverB = s.cb ?? defaults.cb;
+  // C is held where C/B is given, and left to the bands otherwise.
+  const fitC = s.fitC ?? defaults.fitC ?? (cOverB !== undefined ? false : undefined);
   return {
     sample: {
       name: s.name,
@@ -265,9 +274,10 @@ function checkSample(
       ...(bands ? { bands } : {}),
       ...(spectrum ? { spectrum } : {}),
       ...(cOverB !== undefined ? { cOverB } : {}),
-      fitC: s.fitC ?? defaults.fitC ?? false,
+      ...(fitC !== undefined ? { fitC } : {}),
       ...(assign ? { assign } : {}),
       spinForbidden: s.spinForbidden ?? defaults.spinForbidden ?? false,
+      keepBands: s.keepBands ?? defaults.keepBands ?? false,
       ...(s.spinState ? { spinState: s.spinState } : {}),
       ...(s.notes ? { notes: s.notes } : {}),
     },
@@ -293,13 +303,14 @@ const CSV_COLUMNS: Readonly<Record<string, string>> = {
   fit_c: 'fitC',
   assign: 'assign',
   spin_forbidden: 'spinForbidden',
+  keep_bands: 'keepBands',
   spin_state: 'spinState',
   notes: 'notes',
 };
 
 /**
  * The simple form: a header row (name, ion, geometry, bands, spectrum, cb, fit_c, assign,
- * spin_forbidden, notes; any order, only name and ion required), then one sample a row. Bands in
+ * spin_forbidden, keep_bands, spin_state, notes; any order, only name and ion required), then one sample a row. Bands in
  * one cell are separated by `;` (or commas inside double quotes). Lines starting with `#` are
  * comments.
  */
@@ -346,7 +357,7 @@ function csvValue(field: string, cell: string): unknown {
     const x = Number(cell);
     return Number.isFinite(x) ? x : cell;
   }
-  if (field === 'fitC' || field === 'spinForbidden') {
+  if (field === 'fitC' || field === 'spinForbidden' || field === 'keepBands') {
     const v = cell.toLowerCase();
     if (['yes', 'true', '1', 'y'].includes(v)) return true;
     if (['no', 'false', '0', 'n'].includes(v)) return false;
