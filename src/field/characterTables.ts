@@ -241,16 +241,24 @@ const GROUPS: Readonly<Record<string, { table: CharacterTable; gerade: boolean }
 /** Names of the groups whose states are labelled. */
 export const LABELLED_GROUPS: readonly string[] = Object.keys(GROUPS);
 
-/** An irrep of a labelled group with its character on every operation of the group (in order). */
+/** An irrep of a labelled group with its character on each class. */
 export interface GroupIrrep {
   /** Name with g where the group has inversion, e.g. `B1g`, `E'`. */
   readonly name: string;
   /** Dimension over the reals (2 for a merged complex pair). */
   readonly dimension: number;
-  /** χ(g) for each of the group's operations, in the order of `PointGroup.operations`. */
+  /** χ on each class, in the order of {@link GroupCharacters.classSizes}. */
   readonly characters: readonly number[];
 }
 
+/** The character table of a detected group, tied to its operations. */
+export interface GroupCharacters {
+  readonly irreps: readonly GroupIrrep[];
+  /** Number of the group's operations in each class. */
+  readonly classSizes: readonly number[];
+  /** Index (into `PointGroup.operations`) of one operation of each class. */
+  readonly representatives: readonly number[];
+}
 function matches(
   rule: ClassRule,
   op: SymmetryOperation,
@@ -284,44 +292,50 @@ function matches(
 }
 
 /**
- * The irreps of a detected group with their characters on its operations, or undefined for a
- * group without a table here.
- * @throws Error when an operation fits no class or the class sizes disagree (a detection fault).
+ * The character table of a detected group with each of its operations put in its class, or
+ * undefined for a group without a table here.
+ * @throws Error when an operation fits no class or a class stays empty (a detection fault).
  */
-export function groupIrreps(group: PointGroup): GroupIrrep[] | undefined {
+export function groupCharacters(group: PointGroup): GroupCharacters | undefined {
   const entry = GROUPS[group.name];
   if (!entry) return undefined;
   const { table, gerade } = entry;
-  const classOf = group.operations.map((op) => {
+  const classSizes = table.classes.map(() => 0);
+  const representatives = table.classes.map(() => -1);
+  group.operations.forEach((op, i) => {
     const c = table.classes.findIndex((rule) => matches(rule, op, group, table.n, gerade));
     if (c < 0) throw new Error(`point group ${group.name}: an operation of order ${op.order} fits no class`);
-    return c;
+    classSizes[c] = (classSizes[c] ?? 0) + 1;
+    if (representatives[c] === -1) representatives[c] = i;
   });
-  return table.irreps.map(([name, chars]) => {
-    const characters = classOf.map((c) => chars[c] ?? 0);
-    const suffix = gerade ? 'g' : '';
-    const withG = name.endsWith("'") || name.endsWith('"') ? name : `${name}${suffix}`;
-    return { name: withG, dimension: chars[0] ?? 1, characters };
-  });
+  if (representatives.includes(-1)) throw new Error(`point group ${group.name}: a class has no operation`);
+  const suffix = gerade ? 'g' : '';
+  const irreps = table.irreps.map(([name, characters]) => ({
+    name: name.endsWith("'") || name.endsWith('"') ? name : `${name}${suffix}`,
+    dimension: characters[0] ?? 1,
+    characters,
+  }));
+  return { irreps, classSizes, representatives };
 }
 
 /**
- * How often each irrep occurs in a representation with characters `chi` (one per operation):
- * n(Γ) = Σ χ_Γ(g)χ(g) / Σ χ_Γ(g)², which is the usual reduction formula for an irreducible Γ and
- * also right for a merged pair. Returns undefined when a count is not near a whole number (the
- * space is not invariant, e.g. an accidental near-degeneracy).
+ * How often each irrep occurs in a representation with character `chi[c]` on class c:
+ * n(Γ) = Σ_c N_c χ_Γ(c)χ(c) / Σ_c N_c χ_Γ(c)², the usual reduction formula for an irreducible Γ
+ * and also right for a merged pair. Returns undefined when a count is not near a whole number
+ * (the space is not invariant, e.g. an accidental near-degeneracy).
  */
 export function reduceRepresentation(
-  irreps: readonly GroupIrrep[],
+  table: GroupCharacters,
   chi: readonly number[],
 ): Map<string, number> | undefined {
   const out = new Map<string, number>();
-  for (const irrep of irreps) {
+  for (const irrep of table.irreps) {
     let num = 0;
     let den = 0;
-    irrep.characters.forEach((c, g) => {
-      num += c * (chi[g] ?? 0);
-      den += c * c;
+    irrep.characters.forEach((c, k) => {
+      const size = table.classSizes[k] ?? 0;
+      num += size * c * (chi[k] ?? 0);
+      den += size * c * c;
     });
     const x = num / den;
     const r = Math.round(x);

@@ -1,6 +1,6 @@
 import { ensure } from '../core/errors.js';
-import { bilinear, column, resolveSubspace, symmetricEigen } from '../numeric/eigen.js';
-import { type GroupIrrep, groupIrreps, reduceRepresentation } from './characterTables.js';
+import { column, resolveSubspace, symmetricEigen } from '../numeric/eigen.js';
+import { type GroupCharacters, groupCharacters, reduceRepresentation } from './characterTables.js';
 import { MAX_PARAMETER } from './cubic.js';
 import type { PointGroup } from './pointGroups.js';
 import {
@@ -48,6 +48,24 @@ export interface FieldLevel {
   readonly degeneracy: number;
   /** Same spin as the ground level. */
   readonly spinAllowed: boolean;
+  /** The cubic level it comes from, where a cubic reference was given. */
+  readonly cubicParent?: CubicParent;
+}
+
+/** A level's cubic parent and the weight of its eigenvectors in that cubic level. */
+export interface CubicParent {
+  /** Label of the cubic level (e.g. `3T1g(F)`, `4T2`). */
+  readonly label: string;
+  /** Fraction 0…1 of the level in it. */
+  readonly weight: number;
+}
+
+/** Options of {@link solveField}. */
+export interface SolveFieldOptions {
+  /** The point group's operations on the determinants (see {@link symmetryContext}); no labels without. */
+  readonly symmetry?: SymmetryContext;
+  /** The cubic parent of each eigenspace (see cubicParent.ts); none without. */
+  readonly parents?: (spaces: readonly Eigenspace[]) => readonly (CubicParent | undefined)[];
 }
 
 /** Levels of dⁿ in a field, lowest first. */
@@ -64,8 +82,9 @@ export interface FieldResult {
 /** A group's operations on the determinants of one dⁿ, prepared once for many solves. */
 export interface SymmetryContext {
   readonly group: PointGroup;
-  readonly irreps: readonly GroupIrrep[] | undefined;
-  /** Matrix of each operation over the block's determinants (row-major). */
+  /** The group's character table, or undefined for a group without one here. */
+  readonly table: GroupCharacters | undefined;
+  /** Matrix of one operation of each class over the block's determinants (row-major). */
   readonly operations: readonly Float64Array[];
 }
 
@@ -106,11 +125,13 @@ export function lowestSpinBlock(n: number): RealDeterminantBlock {
 /** Prepares the operations of a point group on the determinants of dⁿ. */
 export function symmetryContext(n: number, group: PointGroup): SymmetryContext {
   const block = lowestSpinBlock(n);
-  return {
-    group,
-    irreps: groupIrreps(group),
-    operations: group.operations.map((op) => operationMatrix(block, orbitalTransform(op.matrix))),
-  };
+  const table = groupCharacters(group);
+  const operations = (table?.representatives ?? []).map((i) => {
+    const op = group.operations[i];
+    if (!op) throw new Error(`point group ${group.name}: no operation ${i}`);
+    return operationMatrix(block, orbitalTransform(op.matrix));
+  });
+  return { group, table, operations };
 }
 
 /** H = B·H_B + C·H_C + V over the lowest-M_S block. */
@@ -160,14 +181,29 @@ export function fieldEigenspaces(input: FieldInput): Eigenspace[] {
   return out;
 }
 
+/** vᵀAv for a row-major square A; the hot loop of the labelling, so reads are unchecked. */
+function quadraticForm(v: Float64Array, a: Float64Array): number {
+  const n = v.length;
+  let sum = 0;
+  for (let i = 0; i < n; i++) {
+    const vi = v[i] as number;
+    if (vi === 0) continue;
+    const offset = i * n;
+    let row = 0;
+    for (let j = 0; j < n; j++) row += (a[offset + j] as number) * (v[j] as number);
+    sum += vi * row;
+  }
+  return sum;
+}
+
 /** Irreps of one eigenspace from the characters of the group's operations on it. */
 function eigenspaceIrreps(
   space: Eigenspace,
   symmetry: SymmetryContext | undefined,
 ): Map<string, number> | undefined {
-  if (!symmetry?.irreps) return undefined;
-  const chi = symmetry.operations.map((op) => space.vectors.reduce((s, v) => s + bilinear(v, op, v), 0));
-  return reduceRepresentation(symmetry.irreps, chi);
+  if (!symmetry?.table) return undefined;
+  const chi = symmetry.operations.map((op) => space.vectors.reduce((s, v) => s + quadraticForm(v, op), 0));
+  return reduceRepresentation(symmetry.table, chi);
 }
 
 /**
@@ -176,28 +212,46 @@ function eigenspaceIrreps(
  * @throws InputError for n outside 1…9, a negative or non-finite B or C, or a field that is not
  * a finite symmetric 5×5 matrix.
  */
-export function solveField(input: FieldInput, symmetry?: SymmetryContext): FieldResult {
+export function solveField(input: FieldInput, options: SolveFieldOptions = {}): FieldResult {
+  const { symmetry } = options;
   const spaces = fieldEigenspaces(input);
-  const dims = new Map((symmetry?.irreps ?? []).map((g) => [g.name, g.dimension]));
+  const parents = options.parents?.(spaces) ?? [];
+  const dims = new Map((symmetry?.table?.irreps ?? []).map((g) => [g.name, g.dimension]));
   const raw: Omit<FieldLevel, 'label' | 'energy' | 'spinAllowed'>[] = [];
   const energies: number[] = [];
-  for (const space of spaces) {
+  spaces.forEach((space, si) => {
+    const parent = parents[si];
+    const extra = parent ? { cubicParent: parent } : {};
     const mult = Math.round(2 * space.S + 1);
     const irreps = eigenspaceIrreps(space, symmetry);
     if (irreps && irreps.size > 0) {
       for (const [irrep, count] of irreps) {
         const dimension = dims.get(irrep) ?? 1;
         for (let c = 0; c < count; c++) {
-          raw.push({ symbol: `${mult}${irrep}`, S: space.S, irrep, dimension, degeneracy: mult * dimension });
+          raw.push({
+            symbol: `${mult}${irrep}`,
+            S: space.S,
+            irrep,
+            dimension,
+            degeneracy: mult * dimension,
+            ...extra,
+          });
           energies.push(space.energy);
         }
       }
     } else {
       const dimension = space.vectors.length;
-      raw.push({ symbol: `${mult}?`, S: space.S, irrep: undefined, dimension, degeneracy: mult * dimension });
+      raw.push({
+        symbol: `${mult}?`,
+        S: space.S,
+        irrep: undefined,
+        dimension,
+        degeneracy: mult * dimension,
+        ...extra,
+      });
       energies.push(space.energy);
     }
-  }
+  });
   const ground = energies[0] ?? 0;
   const total = new Map<string, number>();
   for (const r of raw) total.set(r.symbol, (total.get(r.symbol) ?? 0) + 1);

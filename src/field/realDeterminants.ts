@@ -88,6 +88,30 @@ export interface OrbitalMatrix {
   readonly im: (row: number, col: number) => number;
 }
 
+/** The minors det U[a, b] for every pair of k-subsets a, b (as bit masks over 5 orbitals). */
+function minorTable(subsets: readonly number[], u: OrbitalMatrix): { re: Float64Array; im: Float64Array } {
+  const m = subsets.length;
+  const re = new Float64Array(m * m);
+  const im = new Float64Array(m * m);
+  const lists = subsets.map((s) => occupied(s, false));
+  lists.forEach((a, r) => {
+    lists.forEach((b, c) => {
+      const mr: number[] = [];
+      const mi: number[] = [];
+      for (const i of a) {
+        for (const j of b) {
+          mr.push(u.re(i, j));
+          mi.push(u.im(i, j));
+        }
+      }
+      const [dr, di] = a.length === 0 ? [1, 0] : complexDeterminant(mr, mi, a.length);
+      re[r * m + c] = dr;
+      im[r * m + c] = di;
+    });
+  });
+  return { re, im };
+}
+
 /**
  * ⟨row determinant|U|column determinant⟩ for a one-electron U applied to every electron (spin
  * untouched): the product of the α and β minors of U, as every determinant is its α creators
@@ -98,34 +122,32 @@ export function determinantMatrix(
   cols: readonly number[],
   u: OrbitalMatrix,
 ): { re: Float64Array; im: Float64Array } {
-  const minorCache = new Map<string, [number, number]>();
-  const minor = (a: number[], b: number[]): [number, number] => {
-    const key = `${a.join('')}|${b.join('')}`;
-    const hit = minorCache.get(key);
-    if (hit) return hit;
-    const k = a.length;
-    const re: number[] = [];
-    const im: number[] = [];
-    for (const i of a) {
-      for (const j of b) {
-        re.push(u.re(i, j));
-        im.push(u.im(i, j));
-      }
-    }
-    const d: [number, number] = k === 0 ? [1, 0] : complexDeterminant(re, im, k);
-    minorCache.set(key, d);
-    return d;
-  };
+  const alphaOf = (mask: number) => mask & 31;
+  const betaOf = (mask: number) => (mask >> 5) & 31;
+  const alphaSets = [...new Set([...rows, ...cols].map(alphaOf))];
+  const betaSets = [...new Set([...rows, ...cols].map(betaOf))];
+  const alphaIndex = new Map(alphaSets.map((s, i) => [s, i]));
+  const betaIndex = new Map(betaSets.map((s, i) => [s, i]));
+  const ma = minorTable(alphaSets, u);
+  const mb = minorTable(betaSets, u);
+  const na = alphaSets.length;
+  const nb = betaSets.length;
   const re = new Float64Array(rows.length * cols.length);
   const im = new Float64Array(rows.length * cols.length);
+  const colA = cols.map((c) => alphaIndex.get(alphaOf(c)) ?? 0);
+  const colB = cols.map((c) => betaIndex.get(betaOf(c)) ?? 0);
   rows.forEach((rowMask, r) => {
-    cols.forEach((colMask, c) => {
-      const [ar, ai] = minor(occupied(rowMask, false), occupied(colMask, false));
-      if (ar === 0 && ai === 0) return;
-      const [br, bi] = minor(occupied(rowMask, true), occupied(colMask, true));
+    const ra = (alphaIndex.get(alphaOf(rowMask)) ?? 0) * na;
+    const rb = (betaIndex.get(betaOf(rowMask)) ?? 0) * nb;
+    for (let c = 0; c < cols.length; c++) {
+      const ar = ma.re[ra + (colA[c] ?? 0)] ?? 0;
+      const ai = ma.im[ra + (colA[c] ?? 0)] ?? 0;
+      if (ar === 0 && ai === 0) continue;
+      const br = mb.re[rb + (colB[c] ?? 0)] ?? 0;
+      const bi = mb.im[rb + (colB[c] ?? 0)] ?? 0;
       re[r * cols.length + c] = ar * br - ai * bi;
       im[r * cols.length + c] = ar * bi + ai * br;
-    });
+    }
   });
   return { re, im };
 }
