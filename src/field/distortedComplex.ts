@@ -5,7 +5,7 @@ import { cubicParents, cubicReference } from './cubicParent.js';
 import { presetLigands } from './geometries.js';
 import { type FieldResult, solveField, symmetryContext } from './lowSymmetrySolver.js';
 import { DEFAULT_SYMMETRY_TOLERANCE, type PointGroup, pointGroup } from './pointGroups.js';
-import { apply3 } from './realOrbitals.js';
+import { apply3, orbitalTransform, transformField } from './realOrbitals.js';
 
 /**
  * The levels of a dⁿ ion in a complex of lower than cubic symmetry, from its geometry and bonding
@@ -95,8 +95,8 @@ export function groupOf(spec: FieldSpec, tolerance = DEFAULT_SYMMETRY_TOLERANCE)
 export function solveDistorted(input: DistortedInput): DistortedResult {
   const { n, B, C, field: spec } = input;
   ensure(spec.kind === 'aom' ? spec.ligands.length > 0 : true, 'ligands: expected at least one');
-  const field = fieldOf(spec);
   const group = groupOf(spec, input.symmetryTolerance);
+  const field = symmetrised(fieldOf(spec), group);
   const ligands = standInLigands(spec);
   const reference = cubicReference(field, ligands, group);
   const result = solveField(
@@ -116,6 +116,20 @@ export function solveDistorted(input: DistortedInput): DistortedResult {
     orbitals: orbitalLevels(field, group),
     cubic: { dq: reference.dq, misfit: reference.misfit },
   };
+}
+
+/**
+ * The field averaged over the group, (1/|G|) Σ T_g V T_gᵀ: unchanged (to rounding) for ligands that
+ * have the group's symmetry exactly, and idealised to it for coordinates that have it only within
+ * a loose tolerance, so that the levels carry the group's labels.
+ */
+export function symmetrised(field: Float64Array, group: PointGroup): Float64Array {
+  const out = new Float64Array(25);
+  for (const op of group.operations) {
+    const moved = transformField(orbitalTransform(op.matrix), field);
+    for (let k = 0; k < 25; k++) out[k] = (out[k] ?? 0) + (moved[k] ?? 0) / group.operations.length;
+  }
+  return out;
 }
 
 /** The d orbital levels of a field labelled in a group: the levels of d¹ with B = C = 0. */
