@@ -34,7 +34,10 @@ export function parseXyz(text: string): XyzStructure {
     /^\d+$/.test(countText) && count > 0,
     `XYZ line 1 "${countText}": expected the number of atoms, a whole number above 0`,
   );
-  ensure(lines.length >= count + 2, `XYZ: the count says ${count} atoms, but the file has ${Math.max(0, lines.length - 2)} atom lines`);
+  ensure(
+    lines.length >= count + 2,
+    `XYZ: the count says ${count} atoms, but the file has ${Math.max(0, lines.length - 2)} atom lines`,
+  );
   const atoms: XyzAtom[] = [];
   for (let i = 2; i < count + 2; i++) {
     const raw = lines[i] ?? '';
@@ -43,7 +46,9 @@ export function parseXyz(text: string): XyzStructure {
     const element = symbol.replace(/\d+$/, '');
     const position = [xs, ys, zs].map(Number);
     if (!/^[A-Za-z]{1,3}$/.test(element) || fields.length < 4 || !position.every(Number.isFinite)) {
-      throw new InputError(`XYZ line ${i + 1} "${raw.trim()}": expected an element symbol and three coordinates`);
+      throw new InputError(
+        `XYZ line ${i + 1} "${raw.trim()}": expected an element symbol and three coordinates`,
+      );
     }
     atoms.push({ element: normaliseElement(element), position: position as unknown as Vec3, line: i + 1 });
   }
@@ -78,7 +83,10 @@ export interface CoordinationSphere {
  * The coordination sphere of a metal in an XYZ structure.
  * @throws InputError for a metal not in the file, a bad cutoff or no atom within it.
  */
-export function coordinationSphere(structure: XyzStructure, options: CoordinationOptions = {}): CoordinationSphere {
+export function coordinationSphere(
+  structure: XyzStructure,
+  options: CoordinationOptions = {},
+): CoordinationSphere {
   const { atoms } = structure;
   let metal: XyzAtom | undefined;
   if (options.metal === undefined) metal = atoms[0];
@@ -95,16 +103,26 @@ export function coordinationSphere(structure: XyzStructure, options: Coordinatio
   const others = atoms
     .filter((a) => a !== centre)
     .map((a) => {
-      const d: Vec3 = [a.position[0] - centre.position[0], a.position[1] - centre.position[1], a.position[2] - centre.position[2]];
+      const d: Vec3 = [
+        a.position[0] - centre.position[0],
+        a.position[1] - centre.position[1],
+        a.position[2] - centre.position[2],
+      ];
       return { atom: a, d, r: Math.hypot(d[0], d[1], d[2]) };
     });
   ensure(others.length > 0, 'XYZ: expected atoms besides the metal');
-  ensure(others.every((o) => o.r > 1e-6), `XYZ line ${centre.line}: another atom sits on the metal`);
+  ensure(
+    others.every((o) => o.r > 1e-6),
+    `XYZ line ${centre.line}: another atom sits on the metal`,
+  );
   const nearest = Math.min(...others.map((o) => o.r));
   const cutoff = options.cutoff ?? DEFAULT_SHELL_FACTOR * nearest;
   ensure(Number.isFinite(cutoff) && cutoff > 0, `cutoff ${cutoff} Å: expected a positive distance`);
   const donors = others.filter((o) => o.r <= cutoff);
-  ensure(donors.length > 0, `cutoff ${cutoff} Å: no atom that close to the metal (nearest ${nearest.toFixed(3)} Å)`);
+  ensure(
+    donors.length > 0,
+    `cutoff ${cutoff} Å: no atom that close to the metal (nearest ${nearest.toFixed(3)} Å)`,
+  );
   return {
     metal: centre,
     ligands: donors.map((o) => ({ kind: o.atom.element, direction: o.d })),

@@ -36,7 +36,11 @@ describe('parseXyz and coordinationSphere', () => {
       n: 3,
       B: 700,
       C: 3000,
-      field: { kind: 'aom', ligands, parameters: { O: { eSigma: 7000, ePi: 1200 }, Cl: { eSigma: 5500, ePi: 1000 } } },
+      field: {
+        kind: 'aom',
+        ligands,
+        parameters: { O: { eSigma: 7000, ePi: 1200 }, Cl: { eSigma: 5500, ePi: 1000 } },
+      },
     });
     expect(r.group).toBe('D4h');
     expect(r.ground.label).toBe('4B1g');
@@ -44,7 +48,9 @@ describe('parseXyz and coordinationSphere', () => {
 
   it('parseXyz and coordinationSphere refuse a bad count, a bad atom line and an absent metal with one line each', () => {
     expect(() => parseXyz('x\n\nCr 0 0 0')).toThrow(/line 1 "x": expected the number of atoms/);
-    expect(() => parseXyz('2\n\nCr 0 0 0\nO 1 0')).toThrow(/line 4 "O 1 0": expected an element symbol and three coordinates/);
+    expect(() => parseXyz('2\n\nCr 0 0 0\nO 1 0')).toThrow(
+      /line 4 "O 1 0": expected an element symbol and three coordinates/,
+    );
     expect(() => coordinationSphere(parseXyz(TRANS), { metal: 'Ni' })).toThrow(InputError);
   });
 });
