@@ -1,0 +1,207 @@
+/**
+ * The geometry options shared by `levels`, `fit` and `diagram`: a named shape (with its angle),
+ * XYZ coordinates (metal and cutoff), bonding parameters per ligand kind, or published tetragonal
+ * or trigonal parameters, each checked once into the library's field description, with a plain
+ * description of the geometry used for the reports.
+ */
+
+import type { Command } from 'commander';
+import type { BondParameters, Ligand } from '../src/field/angularOverlap.js';
+import { trigonalFromSplitting } from '../src/field/axialFields.js';
+import type { FieldSpec } from '../src/field/distortedComplex.js';
+import { GEOMETRY_NAMES, GEOMETRY_PRESETS, presetLigands } from '../src/field/geometries.js';
+import { InputError } from '../src/index.js';
+import { coordinationSphere, parseXyz } from '../src/sheets/xyz.js';
+import { numberOption } from './options.js';
+
+/** Options that describe a field of lower than cubic symmetry. */
+export interface FieldOptions {
+  shape?: string;
+  angle?: string;
+  bond?: string[];
+  xyz?: string;
+  metal?: string;
+  cutoff?: string;
+  tetragonal?: string;
+  trigonal?: string;
+  trigonalSplit?: string;
+}
+
+/** The geometry used, as reports show it. */
+export interface GeometryUsed {
+  /** `shape`, `xyz`, `tetragonal` or `trigonal`. */
+  readonly source: string;
+  /** Shape name, XYZ file, or the parameterisation. */
+  readonly name: string;
+  readonly angle?: number;
+  readonly ligands?: readonly { kind: string; direction: readonly number[] }[];
+  readonly parameters: Readonly<Record<string, number | BondParameters>>;
+}
+
+/** Adds the geometry options to a command. */
+export function addFieldOptions(command: Command): Command {
+  return command
+    .option('--shape <name>', `a named arrangement of ligands: ${GEOMETRY_NAMES.join(', ')}`)
+    .option('--angle <degrees>', 'the shape angle of shapes that take one (see --shape list in the README)')
+    .option('--xyz <file>', 'ligand positions from an XYZ file (count, comment, then element x y z per line)')
+    .option(
+      '--metal <atom>',
+      'the metal in the XYZ file: element symbol or atom number (default: the first atom)',
+    )
+    .option(
+      '--cutoff <Å>',
+      'donor atoms lie within this distance of the metal (default: 1.25 × the shortest)',
+    )
+    .option(
+      '--bond <kind=eσ,eπ>',
+      'angular-overlap parameters of one ligand kind in cm⁻¹, e.g. eq=7000,1000; repeat per kind; a bare 7000,1000 applies to every kind not named',
+      collect,
+      [],
+    )
+    .option('--tetragonal <Dq,Ds,Dt>', 'tetragonal crystal-field parameters, cm⁻¹ (z the fourfold axis)')
+    .option('--trigonal <Dq,Dσ,Dτ>', 'trigonal crystal-field parameters, cm⁻¹ (z the threefold axis)')
+    .option(
+      '--trigonal-split <Dq,v,v′>',
+      'trigonal field from the t₂g splitting v = E(a₁) − E(e) and the mixing v′, cm⁻¹',
+    );
+}
+
+function collect(value: string, previous: string[]): string[] {
+  return [...previous, value];
+}
+
+/** Whether any option asks for a field of lower than cubic symmetry. */
+export function hasFieldOptions(opts: FieldOptions): boolean {
+  return (
+    opts.shape !== undefined ||
+    opts.xyz !== undefined ||
+    opts.tetragonal !== undefined ||
+    opts.trigonal !== undefined ||
+    opts.trigonalSplit !== undefined
+  );
+}
+
+function numberList(name: string, text: string, count: number): number[] {
+  const parts = text.split(',').map((p) => p.trim());
+  const values = parts.map(Number);
+  if (parts.length !== count || parts.some((p) => p === '') || !values.every(Number.isFinite)) {
+    throw new InputError(`${name} "${text}": expected ${count} comma-separated numbers of cm⁻¹`);
+  }
+  return values;
+}
+
+/** Parses the `--bond` values into parameters per kind; the bare one (no kind) under `*`. */
+export function parseBonds(texts: readonly string[]): Record<string, BondParameters> {
+  const out: Record<string, BondParameters> = {};
+  for (const text of texts) {
+    const m = /^(?:([^=]+)=)?\s*([^,]+)(?:,(.+))?$/.exec(text.trim());
+    const eSigma = Number(m?.[2]);
+    const ePi = m?.[3] === undefined ? 0 : Number(m[3]);
+    if (!m || !Number.isFinite(eSigma) || !Number.isFinite(ePi)) {
+      throw new InputError(`--bond "${text}": expected kind=eσ,eπ in cm⁻¹, e.g. eq=7000,1000`);
+    }
+    out[(m[1] ?? '*').trim()] = { eSigma, ePi };
+  }
+  return out;
+}
+
+/** Bonding parameters for every kind of a ligand set, the bare `--bond` filling the gaps. */
+function bondsFor(ligands: readonly Ligand[], texts: readonly string[]): Record<string, BondParameters> {
+  const given = parseBonds(texts);
+  const kinds = [...new Set(ligands.map((l) => l.kind))];
+  const out: Record<string, BondParameters> = {};
+  for (const kind of kinds) {
+    const p = given[kind] ?? given['*'];
+    if (!p) {
+      throw new InputError(
+        `--bond: no parameters for ligand kind "${kind}"; give --bond ${kind}=eσ,eπ (kinds: ${kinds.join(', ')})`,
+      );
+    }
+    out[kind] = p;
+  }
+  for (const kind of Object.keys(given)) {
+    if (kind !== '*' && !kinds.includes(kind)) {
+      throw new InputError(`--bond ${kind}=…: no ligand of kind "${kind}" here (kinds: ${kinds.join(', ')})`);
+    }
+  }
+  return out;
+}
+
+/**
+ * The field and a description of it from the options. `readFile` reads the XYZ file (the
+ * command's I/O).
+ * @throws InputError for conflicting sources, an unknown shape, bad numbers or missing bonds.
+ */
+export function fieldFromOptions(
+  opts: FieldOptions,
+  readFile: (path: string) => string,
+): { spec: FieldSpec; geometry: GeometryUsed } {
+  const sources = ['shape', 'xyz', 'tetragonal', 'trigonal', 'trigonalSplit'].filter(
+    (k) => opts[k as keyof FieldOptions] !== undefined,
+  );
+  if (sources.length !== 1) {
+    throw new InputError(
+      `geometry: expected one of --shape, --xyz, --tetragonal, --trigonal, --trigonal-split (got ${sources.length})`,
+    );
+  }
+  if (opts.tetragonal !== undefined) {
+    const [dq = 0, ds = 0, dt = 0] = numberList('--tetragonal', opts.tetragonal, 3);
+    return {
+      spec: { kind: 'tetragonal', dq, ds, dt },
+      geometry: { source: 'tetragonal', name: 'Dq, Ds, Dt', parameters: { dq, ds, dt } },
+    };
+  }
+  if (opts.trigonal !== undefined || opts.trigonalSplit !== undefined) {
+    const split = opts.trigonalSplit !== undefined;
+    const [dq = 0, a = 0, b = 0] = numberList(
+      split ? '--trigonal-split' : '--trigonal',
+      opts.trigonalSplit ?? opts.trigonal ?? '',
+      3,
+    );
+    const { dSigma, dTau } = split ? trigonalFromSplitting(a, b) : { dSigma: a, dTau: b };
+    const parameters: Record<string, number> = split
+      ? { dq, v: a, vPrime: b, dSigma, dTau }
+      : { dq, dSigma, dTau };
+    return {
+      spec: { kind: 'trigonal', dq, dSigma, dTau },
+      geometry: { source: 'trigonal', name: split ? 'Dq, v, v′' : 'Dq, Dσ, Dτ', parameters },
+    };
+  }
+  let ligands: Ligand[];
+  let name: string;
+  let angle: number | undefined;
+  if (opts.xyz !== undefined) {
+    const metal =
+      opts.metal === undefined ? undefined : /^\d+$/.test(opts.metal) ? Number(opts.metal) : opts.metal;
+    const cutoff = numberOption('--cutoff', opts.cutoff, {
+      positive: true,
+      what: 'a positive distance in Å',
+    });
+    const sphere = coordinationSphere(parseXyz(readFile(opts.xyz)), {
+      ...(metal !== undefined ? { metal } : {}),
+      ...(cutoff !== undefined ? { cutoff } : {}),
+    });
+    ligands = [...sphere.ligands];
+    name = opts.xyz;
+  } else {
+    angle = numberOption('--angle', opts.angle, { positive: true, what: 'a number of degrees' });
+    ligands = presetLigands(opts.shape ?? '', angle);
+    const preset = GEOMETRY_PRESETS.find((p) => p.name.toLowerCase() === (opts.shape ?? '').toLowerCase());
+    name = preset?.name ?? opts.shape ?? '';
+    angle = angle ?? preset?.angle?.defaultDegrees;
+  }
+  const parameters = bondsFor(ligands, opts.bond ?? []);
+  return {
+    spec: { kind: 'aom', ligands, parameters },
+    geometry: {
+      source: opts.xyz !== undefined ? 'xyz' : 'shape',
+      name,
+      ...(angle !== undefined ? { angle } : {}),
+      ligands: ligands.map((l) => ({
+        kind: l.kind,
+        direction: l.direction.map((x) => Number(x.toFixed(4))),
+      })),
+      parameters,
+    },
+  };
+}
