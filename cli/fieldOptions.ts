@@ -10,6 +10,7 @@ import type { BondParameters, Ligand } from '../src/field/angularOverlap.js';
 import { trigonalFromSplitting } from '../src/field/axialFields.js';
 import type { FieldSpec } from '../src/field/distortedComplex.js';
 import { GEOMETRY_NAMES, GEOMETRY_PRESETS, presetLigands } from '../src/field/geometries.js';
+import { DEFAULT_SYMMETRY_TOLERANCE } from '../src/field/pointGroups.js';
 import { InputError } from '../src/index.js';
 import { coordinationSphere, parseXyz } from '../src/sheets/xyz.js';
 import { numberOption } from './options.js';
@@ -25,6 +26,7 @@ export interface FieldOptions {
   tetragonal?: string;
   trigonal?: string;
   trigonalSplit?: string;
+  tolerance?: string;
 }
 
 /** The geometry used, as reports show it. */
@@ -191,8 +193,17 @@ export function fieldFromOptions(
     angle = angle ?? preset?.angle?.defaultDegrees;
   }
   const parameters = bondsFor(ligands, opts.bond ?? []);
+  const tolerance = numberOption('--tolerance', opts.tolerance, {
+    positive: true,
+    what: 'a positive number',
+  });
   return {
-    spec: { kind: 'aom', ligands, parameters },
+    spec: {
+      kind: 'aom',
+      ligands,
+      parameters,
+      ...(tolerance !== undefined ? { symmetryTolerance: tolerance } : {}),
+    },
     geometry: {
       source: opts.xyz !== undefined ? 'xyz' : 'shape',
       name,

@@ -1,5 +1,5 @@
 import { ensure } from '../core/errors.js';
-import { type FieldSpec, fieldOf, groupOf } from '../field/distortedComplex.js';
+import { type FieldSpec, fieldOf, groupOf, idealised, symmetrised } from '../field/distortedComplex.js';
 import { solveField, symmetryContext } from '../field/lowSymmetrySolver.js';
 
 /**
@@ -75,7 +75,10 @@ export function distortionSweep(input: DistortionSweepInput): DistortionSweep {
   const ground: string[] = [];
   let groundS = 0;
   x.forEach((xi, i) => {
-    const r = solveField({ n, field: fieldOf(input.fieldAt(xi)), B, C }, { symmetry });
+    const r = solveField(
+      { n, field: symmetrised(fieldOf(idealised(input.fieldAt(xi))), group), B, C },
+      { symmetry },
+    );
     if (i === 0) groundS = r.ground.S;
     ground.push(r.ground.label);
     for (const level of r.levels) {

@@ -4,7 +4,13 @@ import { tetragonalField, trigonalField, trigonalFrame } from './axialFields.js'
 import { cubicParents, cubicReference } from './cubicParent.js';
 import { presetLigands } from './geometries.js';
 import { type FieldResult, solveField, symmetryContext } from './lowSymmetrySolver.js';
-import { DEFAULT_SYMMETRY_TOLERANCE, type PointGroup, pointGroup } from './pointGroups.js';
+import {
+  DEFAULT_SYMMETRY_TOLERANCE,
+  idealisedLigands,
+  MAX_SYMMETRY_TOLERANCE,
+  type PointGroup,
+  pointGroup,
+} from './pointGroups.js';
 import { apply3, orbitalTransform, transformField } from './realOrbitals.js';
 
 /**
@@ -20,6 +26,12 @@ export type FieldSpec =
       readonly kind: 'aom';
       readonly ligands: readonly Ligand[];
       readonly parameters: Readonly<Record<string, BondParameters>>;
+      /**
+       * Largest mismatch of a moved unit ligand direction for a symmetry operation; a loose one
+       * (e.g. 0.02 for measured coordinates) idealises the field to the group found.
+       * @default DEFAULT_SYMMETRY_TOLERANCE
+       */
+      readonly symmetryTolerance?: number;
     }
   | { readonly kind: 'tetragonal'; readonly dq: number; readonly ds: number; readonly dt: number }
   | { readonly kind: 'trigonal'; readonly dq: number; readonly dSigma: number; readonly dTau: number };
@@ -31,8 +43,6 @@ export interface DistortedInput {
   readonly B: number;
   readonly C: number;
   readonly field: FieldSpec;
-  /** Largest mismatch of a moved ligand direction for a symmetry operation. @default DEFAULT_SYMMETRY_TOLERANCE */
-  readonly symmetryTolerance?: number;
 }
 
 /** One d orbital level (an eigenvalue of the one-electron field) with its irrep. */
@@ -81,9 +91,26 @@ export function fieldOf(spec: FieldSpec): Float64Array {
   return trigonalField(spec.dq, spec.dSigma, spec.dTau);
 }
 
+/**
+ * The field description with its ligands idealised to the symmetry they have within a symmetry
+ * tolerance looser than the default (see {@link idealisedLigands}); others as they are.
+ */
+export function idealised(spec: FieldSpec): FieldSpec {
+  if (spec.kind !== 'aom' || spec.symmetryTolerance === undefined) return spec;
+  const tolerance = spec.symmetryTolerance;
+  ensure(
+    Number.isFinite(tolerance) && tolerance > 0 && tolerance <= MAX_SYMMETRY_TOLERANCE,
+    `symmetry tolerance ${tolerance}: expected a number above 0 and at most ${MAX_SYMMETRY_TOLERANCE}`,
+  );
+  const { symmetryTolerance: _, ...rest } = spec;
+  return tolerance <= DEFAULT_SYMMETRY_TOLERANCE
+    ? rest
+    : { ...rest, ligands: idealisedLigands(spec.ligands, tolerance) };
+}
+
 /** The point group of the field's ligands (or of the stand-in ligands of a parameterised field). */
-export function groupOf(spec: FieldSpec, tolerance = DEFAULT_SYMMETRY_TOLERANCE): PointGroup {
-  return pointGroup(standInLigands(spec), tolerance);
+export function groupOf(spec: FieldSpec): PointGroup {
+  return pointGroup(standInLigands(idealised(spec)));
 }
 
 /**
@@ -93,9 +120,10 @@ export function groupOf(spec: FieldSpec, tolerance = DEFAULT_SYMMETRY_TOLERANCE)
  * @throws InputError for bad n, B, C, ligands or parameters.
  */
 export function solveDistorted(input: DistortedInput): DistortedResult {
-  const { n, B, C, field: spec } = input;
+  const { n, B, C } = input;
+  const spec = idealised(input.field);
   ensure(spec.kind === 'aom' ? spec.ligands.length > 0 : true, 'ligands: expected at least one');
-  const group = groupOf(spec, input.symmetryTolerance);
+  const group = groupOf(spec);
   const field = symmetrised(fieldOf(spec), group);
   const ligands = standInLigands(spec);
   const reference = cubicReference(field, ligands, group);

@@ -46,6 +46,12 @@ export interface PointGroup {
 /** Default largest distance between a moved ligand direction and its image (unit vectors). */
 export const DEFAULT_SYMMETRY_TOLERANCE = 1e-4;
 
+/** Matrices closer than this many tolerances (entry by entry) are one operation. */
+const DUPLICATE_FACTOR = 4;
+
+/** Largest symmetry tolerance accepted: distinct operations differ by at least about 0.3 in some entry. */
+export const MAX_SYMMETRY_TOLERANCE = 0.05;
+
 /** Ligand count up to which sums of three directions are tried as axes (their number grows as n³). */
 const MAX_TRIPLE_LIGANDS = 12;
 
@@ -135,8 +141,10 @@ export function symmetryOperations(
   const dirs = ligands.map((l) => unit(l.direction));
   const kinds = ligands.map((l) => l.kind);
   const found: number[][] = [[1, 0, 0, 0, 1, 0, 0, 0, 1]];
+  // Within a loose tolerance one operation shows up once per nearby candidate axis: keep the first.
+  const distinct = Math.max(1e-6, DUPLICATE_FACTOR * tolerance);
   const consider = (m: number[]) => {
-    if (isSymmetry(m, dirs, kinds, tolerance) && !found.some((f) => same(f, m, 1e-6))) found.push(m);
+    if (isSymmetry(m, dirs, kinds, tolerance) && !found.some((f) => same(f, m, distinct))) found.push(m);
   };
   consider([-1, 0, 0, 0, -1, 0, 0, 0, -1]);
   for (const axis of candidateAxes(dirs)) {
@@ -190,6 +198,57 @@ export function identifyGroup(
   else if (operations.length === 2 * n) name = `S${2 * n}`;
   else name = `C${n}`;
   return { ...base, name, zAxis, xAxis: referenceAxis(operations, dirs, zAxis) };
+}
+
+/** Rounds of averaging in {@link idealisedLigands}; each roughly squares the remaining asymmetry. */
+const IDEALISE_ROUNDS = 8;
+
+/**
+ * The ligands moved onto the nearest arrangement with the symmetry found within `tolerance`:
+ * each direction replaced by the average of its images carried back by every operation found,
+ * (1/|G|) Σ_g g⁻¹ d_{g(i)}, repeated until the operations found are exact. Measured coordinates
+ * then get the group they nearly have, with exact degeneracies and labels.
+ */
+export function idealisedLigands(ligands: readonly Ligand[], tolerance: number): Ligand[] {
+  let current = ligands.map((l) => ({ ...l }));
+  for (let round = 0; round < IDEALISE_ROUNDS; round++) {
+    const ops = symmetryOperations(current, tolerance);
+    if (ops.length === 1) return current;
+    const dirs = current.map((l) => l.direction);
+    let change = 0;
+    const next = current.map((l, i) => {
+      const sum = [0, 0, 0];
+      for (const op of ops) {
+        const image = apply3(op.matrix, dirs[i] ?? [0, 0, 1]);
+        let best = i;
+        let bestDistance = Number.POSITIVE_INFINITY;
+        dirs.forEach((d, j) => {
+          if (current[j]?.kind !== l.kind) return;
+          const dist = Math.hypot(image[0] - d[0], image[1] - d[1], image[2] - d[2]);
+          if (dist < bestDistance) {
+            bestDistance = dist;
+            best = j;
+          }
+        });
+        // gᵀ = g⁻¹ carries the partner's direction back to ligand i.
+        const back = apply3(transpose(op.matrix), dirs[best] ?? [0, 0, 1]);
+        for (let k = 0; k < 3; k++) sum[k] = (sum[k] ?? 0) + (back[k] ?? 0) / ops.length;
+      }
+      const d: Vec3 = [sum[0] ?? 0, sum[1] ?? 0, sum[2] ?? 0];
+      change = Math.max(
+        change,
+        Math.hypot(d[0] - l.direction[0], d[1] - l.direction[1], d[2] - l.direction[2]),
+      );
+      return { ...l, direction: d };
+    });
+    current = next;
+    if (change < 1e-14) break;
+  }
+  return current;
+}
+
+function transpose(m: Mat3): number[] {
+  return [0, 3, 6, 1, 4, 7, 2, 5, 8].map((k) => m[k] ?? 0);
 }
 
 /** The point group of a ligand set. */

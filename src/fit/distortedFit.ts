@@ -1,7 +1,7 @@
 import { Matrix, SingularValueDecomposition } from 'ml-matrix';
 import { ensure } from '../core/errors.js';
 import type { BondParameters } from '../field/angularOverlap.js';
-import { type FieldSpec, fieldOf, groupOf, symmetrised } from '../field/distortedComplex.js';
+import { type FieldSpec, fieldOf, groupOf, idealised, symmetrised } from '../field/distortedComplex.js';
 import { type FieldResult, solveField, symmetryContext } from '../field/lowSymmetrySolver.js';
 import { inverseNormalMatrix, levenbergMarquardt, type StopReason } from '../numeric/leastSquares.js';
 
@@ -128,7 +128,8 @@ function checkFitInput(input: DistortedFitInput, names: readonly string[]): void
  * or bad starting values.
  */
 export function fitDistorted(input: DistortedFitInput): DistortedFitResult {
-  const { n, field: spec, bands } = input;
+  const { n, bands } = input;
+  const spec = idealised(input.field);
   const names = [...fitParameterNames(spec), 'B', 'C'];
   checkFitInput(input, names);
   const group = groupOf(spec);

@@ -46,6 +46,25 @@ describe('parseXyz and coordinationSphere', () => {
     expect(r.ground.label).toBe('4B1g');
   });
 
+  it('solveDistorted with a loose symmetry tolerance idealises slightly uneven coordinates to D4h; the default finds C1', () => {
+    const uneven = TRANS.replace('O    1.980  0.000  0.000', 'O    1.990  0.012  0.000').replace(
+      'Cl   0.000  0.000  2.300',
+      'Cl   0.010  0.000  2.310',
+    );
+    const { ligands } = coordinationSphere(parseXyz(uneven));
+    const parameters = { O: { eSigma: 7000, ePi: 1200 }, Cl: { eSigma: 5500, ePi: 1000 } };
+    const strict = solveDistorted({ n: 3, B: 700, C: 3000, field: { kind: 'aom', ligands, parameters } });
+    expect(strict.group).toBe('C1');
+    const loose = solveDistorted({
+      n: 3,
+      B: 700,
+      C: 3000,
+      field: { kind: 'aom', ligands, parameters, symmetryTolerance: 0.02 },
+    });
+    expect(loose.group).toBe('D4h');
+    expect(loose.ground.label).toBe('4B1g');
+  });
+
   it('parseXyz and coordinationSphere refuse a bad count, a bad atom line and an absent metal with one line each', () => {
     expect(() => parseXyz('x\n\nCr 0 0 0')).toThrow(/line 1 "x": expected the number of atoms/);
     expect(() => parseXyz('2\n\nCr 0 0 0\nO 1 0')).toThrow(
