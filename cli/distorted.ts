@@ -107,7 +107,8 @@ export function distortedFitCommand(opts: DistortedFitOptions, io: Io): string {
     ? B
     : (numberOption('--start-B', opts.startB, { positive: true, what: 'a positive number of cm⁻¹' }) ??
       (ion?.B !== undefined ? START_BETA * ion.B : START_B));
-  const names = fitParameterNames(spec);
+  // e_ds is fitted only when asked for: most complexes do not need it.
+  const names = fitParameterNames(spec).filter((p) => p !== 'eDs');
   const free =
     opts.free === undefined
       ? [...names, ...(held || n === 1 || n === 9 ? [] : ['B'])]

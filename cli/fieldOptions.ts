@@ -27,6 +27,7 @@ export interface FieldOptions {
   trigonal?: string;
   trigonalSplit?: string;
   tolerance?: string;
+  eds?: string;
 }
 
 /** The geometry used, as reports show it. */
@@ -59,6 +60,10 @@ export function addFieldOptions(command: Command): Command {
       'angular-overlap parameters of one ligand kind in cm⁻¹, e.g. eq=7000,1000; repeat per kind; a bare 7000,1000 applies to every kind not named',
       collect,
       [],
+    )
+    .option(
+      '--eds <cm-1>',
+      'd–s mixing parameter e_ds of the complex (lowers d_z² of a square plane by 4e_ds)',
     )
     .option('--tetragonal <Dq,Ds,Dt>', 'tetragonal crystal-field parameters, cm⁻¹ (z the fourfold axis)')
     .option('--trigonal <Dq,Dσ,Dτ>', 'trigonal crystal-field parameters, cm⁻¹ (z the threefold axis)')

@@ -46,6 +46,7 @@ export function geometryLine(geometry: GeometryUsed, group: string): string {
   for (const l of geometry.ligands ?? []) kinds.set(l.kind, (kinds.get(l.kind) ?? 0) + 1);
   const bonds = Object.entries(geometry.parameters)
     .map(([k, p]) => {
+      if (typeof p === 'number') return `${k} ${fixed(p)}`;
       const b = p as { eSigma: number; ePi?: number };
       return `${kinds.get(k) ?? 0}× ${k} eσ ${fixed(b.eSigma)}, eπ ${fixed(b.ePi ?? 0)}`;
     })
@@ -64,7 +65,8 @@ export function cautionsOf(result: DistortedResult, geometry: GeometryUsed): Dis
     kind: l.kind,
     direction: [l.direction[0] ?? 0, l.direction[1] ?? 0, l.direction[2] ?? 0],
   }));
-  return distortedCautions(result, ligands);
+  const eDs = geometry.parameters.eDs;
+  return distortedCautions(result, ligands, typeof eDs === 'number' ? eDs : 0);
 }
 
 /** The JSON object of a distorted result. */

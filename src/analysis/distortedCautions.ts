@@ -18,8 +18,15 @@ export interface DistortedCaution {
 /** A ligand counts as axial when its direction is within this cosine of the principal axis. */
 const AXIAL_COSINE = 0.9;
 
-/** Cautions about a distorted complex; `ligands` (when the field came from them) tell open axial sites. */
-export function distortedCautions(result: DistortedResult, ligands?: readonly Ligand[]): DistortedCaution[] {
+/**
+ * Cautions about a distorted complex; `ligands` (when the field came from them) tell open axial
+ * sites, and `eDs` whether d–s mixing was included.
+ */
+export function distortedCautions(
+  result: DistortedResult,
+  ligands?: readonly Ligand[],
+  eDs = 0,
+): DistortedCaution[] {
   const out: DistortedCaution[] = [];
   const g = result.ground;
   if (g.dimension > 1) {
@@ -28,7 +35,7 @@ export function distortedCautions(result: DistortedResult, ligands?: readonly Li
       message: `ground state ${g.symbol} is orbitally degenerate in ${result.group}: Jahn–Teller active, so the complex is expected to distort further unless spin–orbit coupling quenches it; the measured structure decides`,
     });
   }
-  if (ligands && (result.group === 'D4h' || result.group === 'C4v')) {
+  if (ligands && eDs === 0 && (result.group === 'D4h' || result.group === 'C4v')) {
     const axial = ligands.filter((l) => {
       const [x, y, z] = l.direction;
       return Math.abs(z) / Math.hypot(x, y, z) > AXIAL_COSINE;
@@ -37,7 +44,7 @@ export function distortedCautions(result: DistortedResult, ligands?: readonly Li
       out.push({
         code: 'd-s-mixing',
         message:
-          'open axial positions: d–s mixing lowers d_z² in such complexes by up to a few thousand cm⁻¹, and the angular overlap model here leaves it out, so levels with a d_z² hole or electron sit too high and fitted eσ absorb the error',
+          'open axial positions: d–s mixing lowers d_z² in such complexes by up to a few thousand cm⁻¹; without --eds it is left out, so levels with a d_z² hole or electron sit too high and fitted eσ absorb the error',
       });
     }
   }

@@ -105,3 +105,24 @@ export function aomField(
   }
   return v;
 }
+
+/**
+ * The d–s mixing term of the angular overlap model: the metal s orbital interacts with the
+ * totally symmetric combination of the ligands' σ orbitals and, through it, pushes down the
+ * d combination s_i = Σ_L Fσ_L(i); the field gains −e_ds·s sᵀ. It vanishes for centrosymmetric
+ * cubic sites and lowers d_z² of a square plane by 4e_ds (Smith, Inorg. Chim. Acta 22, 107, 1977;
+ * Deeth & Gerloch, Inorg. Chem. 23, 3846, 1984 — from memory).
+ */
+export function dsMixingField(ligands: readonly Ligand[], eDs: number): Float64Array {
+  ensure(Number.isFinite(eDs), `e_ds = ${eDs}: expected a number of cm⁻¹`);
+  const s = [0, 0, 0, 0, 0];
+  for (const ligand of ligands) {
+    const n = unit(ligand.direction);
+    formValues(n, n).forEach((f, i) => {
+      s[i] = (s[i] ?? 0) + f;
+    });
+  }
+  const v = new Float64Array(25);
+  addOuter(v, s, -eDs);
+  return v;
+}

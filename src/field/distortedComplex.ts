@@ -1,5 +1,5 @@
 import { ensure } from '../core/errors.js';
-import { aomField, type BondParameters, type Ligand } from './angularOverlap.js';
+import { aomField, type BondParameters, dsMixingField, type Ligand } from './angularOverlap.js';
 import { tetragonalField, trigonalField, trigonalFrame } from './axialFields.js';
 import { cubicParents, cubicReference } from './cubicParent.js';
 import { presetLigands } from './geometries.js';
@@ -32,6 +32,8 @@ export type FieldSpec =
        * @default DEFAULT_SYMMETRY_TOLERANCE
        */
       readonly symmetryTolerance?: number;
+      /** The d–s mixing parameter e_ds of the complex, cm⁻¹ (see dsMixingField). @default 0 */
+      readonly eDs?: number;
     }
   | { readonly kind: 'tetragonal'; readonly dq: number; readonly ds: number; readonly dt: number }
   | { readonly kind: 'trigonal'; readonly dq: number; readonly dSigma: number; readonly dTau: number };
@@ -86,7 +88,12 @@ function standInLigands(spec: FieldSpec): readonly Ligand[] {
 
 /** The field of a {@link FieldSpec}. */
 export function fieldOf(spec: FieldSpec): Float64Array {
-  if (spec.kind === 'aom') return aomField(spec.ligands, spec.parameters);
+  if (spec.kind === 'aom') {
+    const field = aomField(spec.ligands, spec.parameters);
+    if (!spec.eDs) return field;
+    const ds = dsMixingField(spec.ligands, spec.eDs);
+    return field.map((x, k) => x + (ds[k] ?? 0));
+  }
   if (spec.kind === 'tetragonal') return tetragonalField(spec.dq, spec.ds, spec.dt);
   return trigonalField(spec.dq, spec.dSigma, spec.dTau);
 }

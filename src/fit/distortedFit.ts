@@ -79,17 +79,17 @@ export interface DistortedFitResult {
 /** Singular values below this fraction of the largest mark a combination the bands do not fix. */
 export const UNDETERMINED_RCOND = 1e-6;
 
-/** The names of a field's parameters: `eSigma(kind)`, `ePi(kind)`; `dq`, `ds`, `dt`; `dq`, `dSigma`, `dTau`. */
+/** The names of a field's parameters: `eSigma(kind)`, `ePi(kind)`, `eDs`; `dq`, `ds`, `dt`; `dq`, `dSigma`, `dTau`. */
 export function fitParameterNames(spec: FieldSpec): string[] {
   if (spec.kind === 'tetragonal') return ['dq', 'ds', 'dt'];
   if (spec.kind === 'trigonal') return ['dq', 'dSigma', 'dTau'];
-  return Object.keys(spec.parameters).flatMap((k) => [`eSigma(${k})`, `ePi(${k})`]);
+  return [...Object.keys(spec.parameters).flatMap((k) => [`eSigma(${k})`, `ePi(${k})`]), 'eDs'];
 }
 
 function fieldValues(spec: FieldSpec): Record<string, number> {
   if (spec.kind === 'tetragonal') return { dq: spec.dq, ds: spec.ds, dt: spec.dt };
   if (spec.kind === 'trigonal') return { dq: spec.dq, dSigma: spec.dSigma, dTau: spec.dTau };
-  const out: Record<string, number> = {};
+  const out: Record<string, number> = { eDs: spec.eDs ?? 0 };
   for (const [k, p] of Object.entries(spec.parameters)) {
     out[`eSigma(${k})`] = p.eSigma;
     out[`ePi(${k})`] = p.ePi ?? 0;

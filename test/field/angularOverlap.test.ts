@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { aomField, type Ligand } from '../../src/field/angularOverlap.js';
+import { aomField, dsMixingField, type Ligand } from '../../src/field/angularOverlap.js';
 import {
   cubicField,
   tetragonalField,
@@ -156,6 +156,15 @@ describe('aomField: closed forms of the angular overlap model', () => {
     aom.forEach((x, i) => {
       expectClose(x, tetragonal[i] ?? 0, 1e-12, 1e-9);
     });
+  });
+});
+
+describe('dsMixingField: the d–s mixing term', () => {
+  it('dsMixingField lowers d_z² of a square plane by 4e_ds and leaves the octahedron alone (Smith, Inorg. Chim. Acta 22, 107, 1977 — from memory)', () => {
+    const plane = octahedron().filter((l) => l.direction[2] === 0);
+    const d = diagonal(dsMixingField(plane, 1500));
+    expect(d.map((x) => Math.round(x * 1e9) / 1e9)).toEqual([0, 0, -6000, 0, 0]);
+    for (const x of dsMixingField(octahedron(), 1500)) expectClose(x, 0, 0, 1e-9);
   });
 });
 
