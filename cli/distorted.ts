@@ -14,7 +14,13 @@ import { solveDistorted } from '../src/field/distortedComplex.js';
 import { presetLigands } from '../src/field/geometries.js';
 import { fitDistorted, fitParameterNames } from '../src/fit/distortedFit.js';
 import { type FreeIon, InputError, parseEnergyList, parseUnit } from '../src/index.js';
-import { type FieldOptions, fieldFromOptions, type GeometryUsed } from './fieldOptions.js';
+import type { SheetGeometry } from '../src/sheets/geometrySheet.js';
+import {
+  type FieldOptions,
+  fieldFromOptions,
+  fieldOptionsOfSheet,
+  type GeometryUsed,
+} from './fieldOptions.js';
 import { readTextFile, writeFilesAtomic } from './files.js';
 import { fixed, jsonText, table } from './format.js';
 import type { Io } from './io.js';
@@ -283,4 +289,56 @@ export function distortionDiagramCommand(
     ...(opts.data !== undefined ? [`Data written to ${resolve(io.cwd, opts.data)}`] : []),
     '',
   ].join('\n');
+}
+
+/** The distorted-complex part of a report sample: the geometry used and the fit, as plain data. */
+export interface DistortedSampleReport {
+  readonly geometry: GeometryUsed;
+  /** One line saying what geometry and parameters were used. */
+  readonly geometryText: string;
+  readonly group: string;
+  readonly free: readonly string[];
+  readonly parameters: Readonly<Record<string, number>>;
+  readonly errors: Readonly<Record<string, number | null>>;
+  readonly bands: readonly { level: string; observed: number; calculated: number }[];
+  readonly rms: number;
+  readonly ground: string;
+  readonly warnings: readonly string[];
+}
+
+/**
+ * Fits a report sample's bands with the geometry of its sheet entry (XYZ paths relative to
+ * `sheetDir`), B starting from β = {@link START_BETA} of the free ion.
+ */
+export function distortedSampleFit(
+  geometry: SheetGeometry,
+  sheetDir: string,
+  sample: { n: number; ion?: FreeIon; cOverB: number; bands: readonly { energy: number; sigma?: number }[] },
+): DistortedSampleReport {
+  const { spec, geometry: used } = fieldFromOptions(fieldOptionsOfSheet(geometry, sheetDir), (p) =>
+    readTextFile(p),
+  );
+  const startB = sample.ion?.B !== undefined ? START_BETA * sample.ion.B : START_B;
+  const single = sample.n === 1 || sample.n === 9;
+  const free = geometry.free ?? [
+    ...fitParameterNames(spec).filter((p) => p !== 'eDs'),
+    ...(single ? [] : ['B']),
+  ];
+  const bands = sample.bands.map((b, i) => {
+    const level = geometry.assign?.[i];
+    return { ...b, ...(level !== undefined && level !== '?' ? { level } : {}) };
+  });
+  const fit = fitDistorted({ n: sample.n, field: spec, B: startB, C: sample.cOverB * startB, free, bands });
+  return {
+    geometry: used,
+    geometryText: geometryLine(used, fit.group),
+    group: fit.group,
+    free: fit.free,
+    parameters: fit.parameters,
+    errors: fit.errors,
+    bands: fit.bands,
+    rms: fit.rms,
+    ground: fit.levels.ground.label,
+    warnings: fit.warnings.map((w) => w.message),
+  };
 }

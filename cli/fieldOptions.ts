@@ -5,6 +5,7 @@
  * description of the geometry used for the reports.
  */
 
+import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import type { BondParameters, Ligand } from '../src/field/angularOverlap.js';
 import { trigonalFromSplitting } from '../src/field/axialFields.js';
@@ -12,6 +13,7 @@ import type { FieldSpec } from '../src/field/distortedComplex.js';
 import { GEOMETRY_NAMES, GEOMETRY_PRESETS, presetLigands } from '../src/field/geometries.js';
 import { DEFAULT_SYMMETRY_TOLERANCE } from '../src/field/pointGroups.js';
 import { InputError } from '../src/index.js';
+import type { SheetGeometry } from '../src/sheets/geometrySheet.js';
 import { coordinationSphere, parseXyz } from '../src/sheets/xyz.js';
 import { numberOption } from './options.js';
 
@@ -220,4 +222,25 @@ export function fieldFromOptions(
       parameters,
     },
   };
+}
+
+/** The geometry options of a sample sheet's `geometry` object (paths relative to `sheetDir`). */
+export function fieldOptionsOfSheet(g: SheetGeometry, sheetDir: string): FieldOptions {
+  const list = (x: readonly number[] | undefined) => (x === undefined ? undefined : x.join(','));
+  const opts: FieldOptions = {
+    bond: Object.entries(g.bonds ?? {}).map(([kind, v]) => `${kind === '*' ? '' : `${kind}=`}${v.join(',')}`),
+  };
+  const set = (key: keyof FieldOptions, value: string | undefined) => {
+    if (value !== undefined) (opts as Record<string, unknown>)[key] = value;
+  };
+  set('shape', g.shape);
+  set('angle', g.angle?.toString());
+  set('xyz', g.xyz === undefined ? undefined : resolve(sheetDir, g.xyz));
+  set('metal', g.metal?.toString());
+  set('cutoff', g.cutoff?.toString());
+  set('eds', g.eds?.toString());
+  set('tolerance', g.tolerance?.toString());
+  set('tetragonal', list(g.tetragonal));
+  set('trigonal', list(g.trigonal));
+  return opts;
 }
