@@ -23,7 +23,7 @@ import {
 } from './fieldOptions.js';
 import { readTextFile, writeFilesAtomic } from './files.js';
 import { fixed, jsonText, table } from './format.js';
-import type { Io } from './io.js';
+import { type Io, progress } from './io.js';
 import { ionOrCount, numberOption, ratioChoice } from './options.js';
 import { distortedJson, distortedText, geometryLine, unicodeGroupLabel } from './present/distortedPresent.js';
 

@@ -22,6 +22,8 @@ export interface DistortionSweepInput {
   readonly coordinate: string;
   /** Number of intervals. @default DEFAULT_SWEEP_STEPS */
   readonly steps?: number;
+  /** Called after each point with the points done and the total. */
+  readonly onProgress?: (done: number, total: number) => void;
 }
 
 /** One level followed along the path. */
@@ -89,6 +91,7 @@ export function distortionSweep(input: DistortionSweepInput): DistortionSweep {
       s.energies[i] = level.energy;
       series.set(level.label, s);
     }
+    input.onProgress?.(i + 1, x.length);
   });
   const curves = [...series].map(([label, s]) => ({
     label,
