@@ -207,6 +207,21 @@ describe('tetragonalField and trigonalField: the published one-electron energies
     expectClose(t2, dTau);
   });
 
+  it('trigonalField(Dq, Dσ, Dτ) has the two e levels of the 2×2 block [−4Dq + Dσ + (2/3)Dτ, v′; v′, 6Dq + (7/3)Dτ], v′ = (√2/3)(3Dσ − 5Dτ) (Perumareddi, J. Phys. Chem. 71, 3144, 1967 — from memory)', () => {
+    const [dq, dSigma, dTau] = [1700, -250, 120];
+    const e = orbitalEnergies(trigonalField(dq, dSigma, dTau));
+    const a = -4 * dq + dSigma + (2 / 3) * dTau;
+    const d = 6 * dq + (7 / 3) * dTau;
+    const v = (Math.SQRT2 / 3) * (3 * dSigma - 5 * dTau);
+    const mid = (a + d) / 2;
+    const half = Math.sqrt(((d - a) / 2) ** 2 + v * v);
+    const a1 = -4 * dq - 2 * dSigma - 6 * dTau;
+    const expected = [a1, mid - half, mid - half, mid + half, mid + half].sort((x, y) => x - y);
+    expected.forEach((x, i) => {
+      expectClose(e[i], x, 1e-12, 1e-9);
+    });
+  });
+
   it('a rotated copy of the octahedral AOM field has the same orbital energies', () => {
     const r = compose3(axisRotation([0.2, 1, -0.4], 1.1), axisRotation([1, 0, 0], 0.3));
     const turned = octahedron().map((l) => ({ ...l, direction: apply3(r, l.direction) }));
