@@ -59,7 +59,7 @@ export function addFieldOptions(command: Command): Command {
     )
     .option(
       '--bond <kind=eσ,eπ>',
-      'angular-overlap parameters of one ligand kind in cm⁻¹, e.g. eq=7000,1000; repeat per kind; a bare 7000,1000 applies to every kind not named',
+      'angular-overlap parameters of one ligand kind in cm⁻¹, e.g. eq=7000,1000; repeat per kind; a bare 7000,1000 applies to every kind not named; three numbers eσ,eπz,eπ⊥ give π bonding in the plane through the bond and z, and in the plane across it',
       collect,
       [],
     )
@@ -103,13 +103,15 @@ function numberList(name: string, text: string, count: number): number[] {
 export function parseBonds(texts: readonly string[]): Record<string, BondParameters> {
   const out: Record<string, BondParameters> = {};
   for (const text of texts) {
-    const m = /^(?:([^=]+)=)?\s*([^,]+)(?:,(.+))?$/.exec(text.trim());
-    const eSigma = Number(m?.[2]);
-    const ePi = m?.[3] === undefined ? 0 : Number(m[3]);
-    if (!m || !Number.isFinite(eSigma) || !Number.isFinite(ePi)) {
-      throw new InputError(`--bond "${text}": expected kind=eσ,eπ in cm⁻¹, e.g. eq=7000,1000`);
+    const m = /^(?:([^=]+)=)?\s*(.+)$/.exec(text.trim());
+    const values = (m?.[2] ?? '').split(',').map((v) => Number(v.trim()));
+    if (!m || values.length > 3 || !values.every(Number.isFinite)) {
+      throw new InputError(
+        `--bond "${text}": expected kind=eσ,eπ (or eσ,eπz,eπ⊥) in cm⁻¹, e.g. eq=7000,1000`,
+      );
     }
-    out[(m[1] ?? '*').trim()] = { eSigma, ePi };
+    const [eSigma = 0, ePi = 0, ePiY] = values;
+    out[(m[1] ?? '*').trim()] = ePiY === undefined ? { eSigma, ePi } : { eSigma, ePiX: ePi, ePiY };
   }
   return out;
 }

@@ -47,8 +47,12 @@ export function geometryLine(geometry: GeometryUsed, group: string): string {
   const bonds = Object.entries(geometry.parameters)
     .map(([k, p]) => {
       if (typeof p === 'number') return `${k} ${fixed(p)}`;
-      const b = p as { eSigma: number; ePi?: number };
-      return `${kinds.get(k) ?? 0}× ${k} eσ ${fixed(b.eSigma)}, eπ ${fixed(b.ePi ?? 0)}`;
+      const b = p as { eSigma: number; ePi?: number; ePiX?: number; ePiY?: number };
+      const pi =
+        b.ePiX !== undefined || b.ePiY !== undefined
+          ? `eπ(z plane) ${fixed(b.ePiX ?? 0)}, eπ(across) ${fixed(b.ePiY ?? 0)}`
+          : `eπ ${fixed(b.ePi ?? 0)}`;
+      return `${kinds.get(k) ?? 0}× ${k} eσ ${fixed(b.eSigma)}, ${pi}`;
     })
     .join('; ');
   const where = geometry.source === 'xyz' ? `coordinates from ${geometry.name}` : geometry.name;

@@ -79,11 +79,15 @@ export interface DistortedFitResult {
 /** Singular values below this fraction of the largest mark a combination the bands do not fix. */
 export const UNDETERMINED_RCOND = 1e-6;
 
-/** The names of a field's parameters: `eSigma(kind)`, `ePi(kind)`, `eDs`; `dq`, `ds`, `dt`; `dq`, `dSigma`, `dTau`. */
+/**
+ * The names of a field's parameters: `eSigma(kind)` and `ePi(kind)` (or `ePiX(kind)`, `ePiY(kind)`
+ * for a kind with π bonding different in its two planes), `eDs`; `dq`, `ds`, `dt`; `dq`, `dSigma`,
+ * `dTau`.
+ */
 export function fitParameterNames(spec: FieldSpec): string[] {
   if (spec.kind === 'tetragonal') return ['dq', 'ds', 'dt'];
   if (spec.kind === 'trigonal') return ['dq', 'dSigma', 'dTau'];
-  return [...Object.keys(spec.parameters).flatMap((k) => [`eSigma(${k})`, `ePi(${k})`]), 'eDs'];
+  return [...Object.keys(fieldValues(spec)).filter((k) => k !== 'eDs'), 'eDs'];
 }
 
 function fieldValues(spec: FieldSpec): Record<string, number> {
@@ -92,7 +96,10 @@ function fieldValues(spec: FieldSpec): Record<string, number> {
   const out: Record<string, number> = { eDs: spec.eDs ?? 0 };
   for (const [k, p] of Object.entries(spec.parameters)) {
     out[`eSigma(${k})`] = p.eSigma;
-    out[`ePi(${k})`] = p.ePi ?? 0;
+    if (p.ePiX !== undefined || p.ePiY !== undefined) {
+      out[`ePiX(${k})`] = p.ePiX ?? p.ePi ?? 0;
+      out[`ePiY(${k})`] = p.ePiY ?? p.ePi ?? 0;
+    } else out[`ePi(${k})`] = p.ePi ?? 0;
   }
   return out;
 }
@@ -102,9 +109,13 @@ function withValues(spec: FieldSpec, v: Readonly<Record<string, number>>): Field
   if (spec.kind === 'tetragonal') return { ...spec, dq: at('dq'), ds: at('ds'), dt: at('dt') };
   if (spec.kind === 'trigonal') return { ...spec, dq: at('dq'), dSigma: at('dSigma'), dTau: at('dTau') };
   const parameters: Record<string, BondParameters> = {};
-  for (const k of Object.keys(spec.parameters))
-    parameters[k] = { eSigma: at(`eSigma(${k})`), ePi: at(`ePi(${k})`) };
-  return { ...spec, parameters };
+  for (const [k, p] of Object.entries(spec.parameters)) {
+    const anisotropic = p.ePiX !== undefined || p.ePiY !== undefined;
+    parameters[k] = anisotropic
+      ? { eSigma: at(`eSigma(${k})`), ePiX: at(`ePiX(${k})`), ePiY: at(`ePiY(${k})`) }
+      : { eSigma: at(`eSigma(${k})`), ePi: at(`ePi(${k})`) };
+  }
+  return { ...spec, parameters, eDs: at('eDs') };
 }
 
 function checkFitInput(input: DistortedFitInput, names: readonly string[]): void {

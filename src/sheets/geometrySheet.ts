@@ -14,8 +14,8 @@ export interface SheetGeometry {
   readonly xyz?: string;
   readonly metal?: string | number;
   readonly cutoff?: number;
-  /** Angular-overlap parameters per ligand kind, [eσ, eπ] in cm⁻¹; key `*` for every other kind. */
-  readonly bonds?: Readonly<Record<string, readonly [number, number] | readonly [number]>>;
+  /** Angular-overlap parameters per ligand kind, [eσ, eπ] or [eσ, eπ in the bond–z plane, eπ across it] in cm⁻¹; key `*` for every other kind. */
+  readonly bonds?: Readonly<Record<string, readonly number[]>>;
   readonly eds?: number;
   readonly tolerance?: number;
   /** [Dq, Ds, Dt], cm⁻¹. */
@@ -39,7 +39,14 @@ export const geometrySchema = z
     metal: z.union([z.string().min(1), z.number().int().positive()]).optional(),
     cutoff: z.number().positive().optional(),
     bonds: z
-      .record(z.string(), z.union([z.tuple([z.number(), z.number()]), z.tuple([z.number()])]))
+      .record(
+        z.string(),
+        z.union([
+          z.tuple([z.number()]),
+          z.tuple([z.number(), z.number()]),
+          z.tuple([z.number(), z.number(), z.number()]),
+        ]),
+      )
       .optional(),
     eds: z.number().nonnegative().optional(),
     tolerance: z.number().positive().optional(),

@@ -139,6 +139,14 @@ describe('aomField: closed forms of the angular overlap model', () => {
     expectClose(yz, 2 * ePi, 1e-12, 1e-9);
   });
 
+  it('aomField(square plane) with different π bonding in the two planes puts xz, yz at 2eπ(bond–z plane) and xy at 4eπ(in-plane) (Larsen & La Mar 1974)', () => {
+    const plane = octahedron().filter((l) => l.direction[2] === 0);
+    const [xy, yz, , xz] = diagonal(aomField(plane, { L: { eSigma: 6000, ePiX: 900, ePiY: 1000 } }));
+    expectClose(xz, 1800, 1e-12, 1e-9);
+    expectClose(yz, 1800, 1e-12, 1e-9);
+    expectClose(xy, 4000, 1e-12, 1e-9);
+  });
+
   it('aomField(trans-MA4B2) is the tetragonal field with 10Dq = 3eσ − 4eπ (equatorial), Ds = (2/7)(δσ + δπ), Dt = (2/35)(3δσ − 4δπ), δ = equatorial − axial (Lever, Inorganic Electronic Spectroscopy, 1984 — from memory)', () => {
     const ligands = octahedron().map((l) => ({ ...l, kind: l.direction[2] === 0 ? 'eq' : 'ax' }));
     const eq = { eSigma: 7200, ePi: 1100 };

@@ -60,6 +60,24 @@ describe('fitDistorted: tetragonal parameters', () => {
   });
 });
 
+describe('fitDistorted: parameters held', () => {
+  it('fitDistorted keeps a held e_ds and anisotropic π of the start in the fitted field', () => {
+    const ligands = presetLigands('square-plane');
+    const fit = fitDistorted({
+      n: 9,
+      field: { kind: 'aom', ligands, parameters: { L: { eSigma: 5000, ePiX: 900, ePiY: 1000 } }, eDs: 1400 },
+      B: 0,
+      C: 0,
+      free: ['eSigma(L)'],
+      bands: [{ energy: 12600, level: '2B2g' }],
+    });
+    expect(fit.field.kind === 'aom' && fit.field.eDs).toBe(1400);
+    expect(fit.parameters['ePiX(L)']).toBe(900);
+    // 2B2g: hole from x²−y² (3eσ) to xy (4eπ across the bond–z plane).
+    expectClose(fit.parameters['eSigma(L)'], (12600 + 4000) / 3, 1e-7);
+  });
+});
+
 describe('fitDistorted: warnings when the bands cannot fix the parameters', () => {
   it('fitDistorted warns "underdetermined" with more free parameters than bands', () => {
     const fit = fitDistorted({
