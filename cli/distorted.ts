@@ -9,11 +9,12 @@ import { resolve } from 'node:path';
 import { renderDistortionDiagram } from '../charts/distortionDiagram.js';
 import { formatOfPath } from '../charts/render.js';
 import { DEFAULT_SWEEP_STEPS, distortionCsv, distortionSweep } from '../src/analysis/distortionSweep.js';
+import { parseUnit } from '../src/core/units.js';
 import type { FieldSpec } from '../src/field/distortedComplex.js';
 import { solveDistorted } from '../src/field/distortedComplex.js';
 import { presetLigands } from '../src/field/geometries.js';
 import { fitDistorted, fitParameterNames } from '../src/fit/distortedFit.js';
-import { type FreeIon, InputError, parseEnergyList, parseUnit } from '../src/index.js';
+import { type FreeIon, InputError, parseEnergyList } from '../src/index.js';
 import type { SheetGeometry } from '../src/sheets/geometrySheet.js';
 import {
   type FieldOptions,
@@ -68,7 +69,12 @@ function title(n: number, ion: FreeIon | undefined): string {
 }
 
 /** `levels` with a geometry: returns stdout. */
-export function distortedLevels(opts: DistortedOptions & { output?: string }, io: Io): string {
+export function distortedLevels(opts: DistortedOptions & { output?: string; dq?: string }, io: Io): string {
+  if (opts.dq !== undefined) {
+    throw new InputError(
+      '--dq is for cubic fields: with a geometry, give --bond (or the Dq inside --tetragonal / --trigonal)',
+    );
+  }
   if (opts.output !== undefined) {
     throw new InputError(
       '-o: the level diagram is drawn for cubic fields only; use `termsplit diagram --distort …` for a distorted complex',
@@ -146,15 +152,21 @@ export function distortedFitCommand(opts: DistortedFitOptions, io: Io): string {
     '',
     table(
       ['parameter', 'value', '± error', 'free'],
-      Object.entries(fit.parameters).map(([k, v]) => {
-        const e = fit.errors[k];
-        return [
-          k,
-          fixed(v),
-          e === undefined ? '' : e === null ? '—' : fixed(e),
-          fit.free.includes(k) ? 'yes' : 'held',
-        ];
-      }),
+      Object.entries(fit.parameters)
+        .filter(
+          ([k, v]) =>
+            fit.free.includes(k) ||
+            !((k === 'eDs' && v === 0) || ((k === 'B' || k === 'C') && (n === 1 || n === 9))),
+        )
+        .map(([k, v]) => {
+          const e = fit.errors[k];
+          return [
+            k,
+            fixed(v),
+            e === undefined ? '' : e === null ? '—' : fixed(e),
+            fit.free.includes(k) ? 'yes' : 'held',
+          ];
+        }),
     ),
     '',
     table(

@@ -5,6 +5,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { distortedFitCommand, distortedLevels, distortionDiagramCommand } from '../../cli/distorted.js';
 import { memoryIo } from '../../cli/io.js';
 import { findIon, InputError } from '../../src/index.js';
+import { runInProcess, words } from '../cliRunner.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'termsplit-distorted-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -81,5 +82,48 @@ describe('distorted levels, fit and diagram from options', () => {
     );
     expect(text).toContain('Figure written to');
     expect(readFileSync(join(dir, 'path.csv'), 'utf8').split('\n')[0]).toMatch(/^e\(ax\)/);
+  });
+});
+
+describe('the commands with a geometry, in process', () => {
+  it('termsplit levels --shape square-plane --json labels the levels in D4h', async () => {
+    const r = await runInProcess(
+      words('levels --ion Ni2+ --B 700 --shape square-plane --bond 9500,1200 --eds 1200 --json'),
+      dir,
+    );
+    expect(r.code).toBe(0);
+    const json = JSON.parse(r.stdout);
+    expect(json.group).toBe('D4h');
+    expect(json.orbitals.map((o: { irrep: string }) => o.irrep)).toEqual(['eg', 'b2g', 'a1g', 'b1g']);
+  });
+
+  it('termsplit fit --tetragonal fits a d9 ion exactly and says so', async () => {
+    const r = await runInProcess(
+      words('fit --ion Cu2+ --tetragonal 1200,1500,400 --bands 9000,12500,15500 --assign 2A1g,2B2g,2Eg'),
+      dir,
+    );
+    expect(r.code).toBe(0);
+    expect(r.stdout).toContain('the fit is exact');
+    expect(r.stdout).not.toMatch(/^B\s/m);
+  });
+
+  it('termsplit diagram --distort writes the figure; bad combinations exit 2 with one line', async () => {
+    const ok = await runInProcess(
+      words(
+        'diagram d8 --B 700 --shape elongated-octahedron --bond 9000,1000 --distort ratio:ax --steps 6 -o p.svg',
+      ),
+      dir,
+    );
+    expect(ok.code).toBe(0);
+    for (const line of [
+      'levels --d 3 --B 700 --shape octahedron --bond 7000,1000 --dq 1700',
+      'fit --d 3 --shape octahedron --bond 7000,1000 --bands 17000 --fit-c',
+      'diagram d8 --B 700 --shape square-plane --bond 9000,1000',
+      'levels --d 3 --B 700 --shape hexagon --bond 7000',
+    ]) {
+      const r = await runInProcess(words(line), dir);
+      expect(r.code, line).toBe(2);
+      expect(r.stderr.trim().split('\n'), line).toHaveLength(1);
+    }
   });
 });
