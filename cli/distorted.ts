@@ -265,6 +265,7 @@ export function distortionDiagramCommand(
     numberOption('--steps', opts.steps, { integer: true, min: 1, what: 'a whole number' }) ??
     DEFAULT_SWEEP_STEPS;
   const eMax = numberOption('--emax', opts.emax, { positive: true, what: 'a positive number of cm⁻¹' });
+  const bar = progress(io, 'distortion diagram');
   const sweep = distortionSweep({
     n,
     B,
@@ -274,7 +275,9 @@ export function distortionDiagramCommand(
     to,
     steps,
     coordinate: path.axis,
+    onProgress: (done, total) => bar.update(done, total),
   });
+  bar.end();
   const files: { path: string; data: string | Uint8Array }[] = [];
   const figure = resolve(io.cwd, opts.output ?? `d${n}-distortion.png`);
   files.push({ path: figure, data: renderDistortionDiagram(sweep, { format: formatOfPath(figure) }, eMax) });

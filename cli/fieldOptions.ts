@@ -11,7 +11,7 @@ import type { BondParameters, Ligand } from '../src/field/angularOverlap.js';
 import { trigonalFromSplitting } from '../src/field/axialFields.js';
 import type { FieldSpec } from '../src/field/distortedComplex.js';
 import { GEOMETRY_NAMES, GEOMETRY_PRESETS, presetLigands } from '../src/field/geometries.js';
-import { DEFAULT_SYMMETRY_TOLERANCE } from '../src/field/pointGroups.js';
+import { DEFAULT_SYMMETRY_TOLERANCE, MAX_SYMMETRY_TOLERANCE } from '../src/field/pointGroups.js';
 import { InputError } from '../src/index.js';
 import type { SheetGeometry } from '../src/sheets/geometrySheet.js';
 import { coordinationSphere, parseXyz } from '../src/sheets/xyz.js';
@@ -56,6 +56,10 @@ export function addFieldOptions(command: Command): Command {
     .option(
       '--cutoff <Å>',
       'donor atoms lie within this distance of the metal (default: 1.25 × the shortest)',
+    )
+    .option(
+      '--tolerance <value>',
+      `how far (unit-vector distance) a ligand may sit from its symmetry image; e.g. 0.02 for measured coordinates, which idealises them to the group found (default ${DEFAULT_SYMMETRY_TOLERANCE}, at most ${MAX_SYMMETRY_TOLERANCE})`,
     )
     .option(
       '--bond <kind=eσ,eπ>',
@@ -206,12 +210,14 @@ export function fieldFromOptions(
     positive: true,
     what: 'a positive number',
   });
+  const eDs = numberOption('--eds', opts.eds, { min: 0, what: 'a non-negative number of cm⁻¹' });
   return {
     spec: {
       kind: 'aom',
       ligands,
       parameters,
       ...(tolerance !== undefined ? { symmetryTolerance: tolerance } : {}),
+      ...(eDs !== undefined ? { eDs } : {}),
     },
     geometry: {
       source: opts.xyz !== undefined ? 'xyz' : 'shape',
@@ -221,7 +227,7 @@ export function fieldFromOptions(
         kind: l.kind,
         direction: l.direction.map((x) => Number(x.toFixed(4))),
       })),
-      parameters,
+      parameters: eDs !== undefined ? { ...parameters, eDs } : parameters,
     },
   };
 }

@@ -94,7 +94,9 @@ describe('the commands with a geometry, in process', () => {
     expect(r.code).toBe(0);
     const json = JSON.parse(r.stdout);
     expect(json.group).toBe('D4h');
-    expect(json.orbitals.map((o: { irrep: string }) => o.irrep)).toEqual(['eg', 'b2g', 'a1g', 'b1g']);
+    // e_ds = 1200 pulls a1g (d_z², eσ = 9500) down by 4e_ds to 4700, below b2g (4eπ = 4800).
+    expect(json.orbitals.map((o: { irrep: string }) => o.irrep)).toEqual(['eg', 'a1g', 'b2g', 'b1g']);
+    expect(json.cautions.join(' ')).not.toContain('d–s mixing lowers');
   });
 
   it('termsplit fit --tetragonal fits a d9 ion exactly and says so', async () => {
