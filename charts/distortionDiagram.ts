@@ -37,8 +37,10 @@ export function groupStateRuns(label: string): TextRun[] {
   return runs;
 }
 
+/** A round top for the energy axis, on the 1-2-5 steps chart.js ticks use. */
 function niceTop(x: number): number {
-  const step = 10 ** Math.floor(Math.log10(x)) / 2;
+  const magnitude = 10 ** Math.floor(Math.log10(x));
+  const step = [1, 2, 5, 10].map((f) => f * magnitude).find((s) => x / s <= 8) ?? 10 * magnitude;
   return Math.ceil(x / step) * step;
 }
 
@@ -117,7 +119,9 @@ function curveLabels(sweep: DistortionSweep, top: number): Plugin {
         const style = { ...LABEL, color: c.spinAllowed ? STYLE.ink : STYLE.forbiddenText };
         drawRuns(ctx, groupStateRuns(c.label), area.right + 8, places[i] ?? 0, style);
       });
-      const title = `d^${sweep.n} along a distortion (${sweep.group}), B = ${Math.round(sweep.B)}, C = ${Math.round(sweep.C)} cm⁻¹`;
+      const racah =
+        sweep.n === 1 || sweep.n === 9 ? '' : `, B = ${Math.round(sweep.B)}, C = ${Math.round(sweep.C)} cm⁻¹`;
+      const title = `d^${sweep.n} along a distortion (${sweep.group})${racah}`;
       drawRuns(ctx, markupRuns(title), area.left, 22, { size: STYLE.titleSize, color: STYLE.ink });
       drawKey(
         ctx,

@@ -298,7 +298,7 @@ export function distortionDiagramCommand(
     });
   return [
     `d${n} along ${path.axis} from ${fixed(from, 3)} to ${fixed(to, 3)} (${sweep.group}), B = ${fixed(B)} cm⁻¹, C = ${fixed(cOverB * B)} cm⁻¹`,
-    `Geometry: ${geometryLine(geometry, sweep.group)}`,
+    `Geometry: ${geometryLine(opts.distort === 'angle' ? { ...geometry, angle: undefined } : geometry, sweep.group)}`,
     `Ground state: ${unicodeGroupLabel(sweep.ground[0] ?? '')} at the start, ${unicodeGroupLabel(sweep.ground[sweep.ground.length - 1] ?? '')} at the end`,
     `Figure written to ${figure}`,
     ...(opts.data !== undefined ? [`Data written to ${resolve(io.cwd, opts.data)}`] : []),

@@ -109,7 +109,9 @@ export function distortedJson(
 export function distortedText(result: DistortedResult, geometry: GeometryUsed, title: string): string {
   const g = result.ground;
   const lines = [
-    `${title}: B = ${fixed(result.B)} cm⁻¹, C = ${fixed(result.C)} cm⁻¹`,
+    result.n === 1 || result.n === 9
+      ? `${title}: one d electron or hole, so B and C play no part`
+      : `${title}: B = ${fixed(result.B)} cm⁻¹, C = ${fixed(result.C)} cm⁻¹`,
     `Geometry: ${geometryLine(geometry, result.group)}`,
     `d orbitals (cm⁻¹ from their barycentre): ${result.orbitals.map((o) => `${o.irrep} ${fixed(o.energy)}`).join(', ')}`,
     `Nearest cubic field: Dq = ${fixed(result.cubic.dq)} cm⁻¹ (${result.cubic.dq >= 0 ? 'octahedral' : 'tetrahedral'} sense), misfit ${fixed(100 * result.cubic.misfit)}% of the field`,
