@@ -83,15 +83,32 @@ function collect(value: string, previous: string[]): string[] {
   return [...previous, value];
 }
 
-/** Whether any option asks for a field of lower than cubic symmetry. */
+/**
+ * Whether any option asks for a field of lower than cubic symmetry.
+ * @throws InputError for a geometry detail (--bond, --angle, …) without a geometry to go with it.
+ */
 export function hasFieldOptions(opts: FieldOptions): boolean {
-  return (
+  const source =
     opts.shape !== undefined ||
     opts.xyz !== undefined ||
     opts.tetragonal !== undefined ||
     opts.trigonal !== undefined ||
-    opts.trigonalSplit !== undefined
-  );
+    opts.trigonalSplit !== undefined;
+  if (!source) {
+    const details: [string, boolean][] = [
+      ['--bond', (opts.bond ?? []).length > 0],
+      ['--angle', opts.angle !== undefined],
+      ['--eds', opts.eds !== undefined],
+      ['--metal', opts.metal !== undefined],
+      ['--cutoff', opts.cutoff !== undefined],
+      ['--tolerance', opts.tolerance !== undefined],
+    ];
+    const given = details.find(([, present]) => present);
+    if (given) {
+      throw new InputError(`${given[0]} needs a geometry: give --shape, --xyz, --tetragonal or --trigonal`);
+    }
+  }
+  return source;
 }
 
 function numberList(name: string, text: string, count: number): number[] {

@@ -122,6 +122,7 @@ describe('the commands with a geometry, in process', () => {
       'fit --d 3 --shape octahedron --bond 7000,1000 --bands 17000 --fit-c',
       'diagram d8 --B 700 --shape square-plane --bond 9000,1000',
       'levels --d 3 --B 700 --shape hexagon --bond 7000',
+      'levels --d 3 --B 700 --dq 1700 --bond 7000,1000',
     ]) {
       const r = await runInProcess(words(line), dir);
       expect(r.code, line).toBe(2);
