@@ -1,3 +1,9 @@
+/**
+ * The distortion diagram: every level of dⁿ (cm⁻¹ above the ground level) against a distortion
+ * coordinate, spin-allowed levels strong and the others light, each curve labelled at its right
+ * end with its state symbol in the point group of the path.
+ */
+
 import type { ChartConfiguration, Plugin } from 'chart.js';
 import type { DistortionSweep } from '../src/analysis/distortionSweep.js';
 import { drawKey, spinKey } from './key.js';
@@ -5,12 +11,6 @@ import { spreadLabels } from './labelLayout.js';
 import { type FigureOptions, renderChart } from './render.js';
 import { STYLE } from './style.js';
 import { chartContext, drawRuns, markupRuns, runsHeight, type TextRun, type TextStyle } from './typeset.js';
-
-/**
- * The distortion diagram: every level of dⁿ (cm⁻¹ above the ground level) against a distortion
- * coordinate, spin-allowed levels strong and the others light, each curve labelled at its right
- * end with its state symbol in the point group of the path.
- */
 
 /** Room right of the plot for the curve labels, px. */
 const LABEL_ROOM = 96;

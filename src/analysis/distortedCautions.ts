@@ -1,13 +1,13 @@
-import type { Ligand } from '../field/angularOverlap.js';
-import type { DistortedResult } from '../field/distortedComplex.js';
-import { CHARGE_TRANSFER_ONSET } from './cautions.js';
-
 /**
  * Where the levels of a distorted complex can mislead, in words a report can carry: an orbitally
  * degenerate ground state (Jahn–Teller), open axial positions (d–s mixing, which the angular
  * overlap model here leaves out), spin–orbit coupling (left out), and bands in the
  * charge-transfer region. Thresholds are rules of thumb (common practice, no source).
  */
+
+import type { Ligand } from '../field/angularOverlap.js';
+import type { DistortedResult } from '../field/distortedComplex.js';
+import { CHARGE_TRANSFER_ONSET } from './cautions.js';
 
 /** One caution about a distorted complex. */
 export interface DistortedCaution {

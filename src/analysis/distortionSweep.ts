@@ -1,13 +1,13 @@
-import { ensure } from '../core/errors.js';
-import { type FieldSpec, fieldOf, groupOf, idealised, symmetrised } from '../field/distortedComplex.js';
-import { solveField, symmetryContext } from '../field/lowSymmetrySolver.js';
-
 /**
  * Levels of dⁿ along a distortion coordinate (e.g. the axial-to-equatorial eσ ratio from 1,
  * octahedral, to 0, square planar), labelled in the group that the whole path keeps (taken at its
  * midpoint), so that each curve is one level: levels of one spin and irrep never cross, so the
  * k-th level of a symbol is the same curve all along.
  */
+
+import { ensure } from '../core/errors.js';
+import { type FieldSpec, fieldOf, groupOf, idealised, symmetrised } from '../field/distortedComplex.js';
+import { solveField, symmetryContext } from '../field/lowSymmetrySolver.js';
 
 /** Input of {@link distortionSweep}. Energies in cm⁻¹. */
 export interface DistortionSweepInput {

@@ -1,6 +1,3 @@
-import { ensure } from '../core/errors.js';
-import { cross, dot, formValues, unit, type Vec3 } from './realOrbitals.js';
-
 /**
  * The angular overlap model of the d-orbital field: each ligand adds eσ·Fσ(i)Fσ(j) +
  * eπx·Fπx(i)Fπx(j) + eπy·Fπy(i)Fπy(j) to ⟨i|V|j⟩, where F are the angular factors of the real d
@@ -10,6 +7,9 @@ import { cross, dot, formValues, unit, type Vec3 } from './realOrbitals.js';
  * orbital along n and a p orbital along u, normalised so that d_z² has Fσ = 1 towards z and
  * d_xz has Fπ = 1 towards z in the xz plane.
  */
+
+import { ensure } from '../core/errors.js';
+import { cross, dot, formValues, unit, type Vec3 } from './realOrbitals.js';
 
 /** One donor atom seen from the metal. */
 export interface Ligand {

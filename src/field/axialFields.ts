@@ -1,12 +1,12 @@
-import { ensure } from '../core/errors.js';
-import { axisRotation, compose3, type Mat3, orbitalTransform, transformField, unit } from './realOrbitals.js';
-
 /**
  * The crystal-field parameterisations of axial fields as published: tetragonal (Dq, Ds, Dt) about
  * z and trigonal (Dq, Dσ, Dτ, or Dq, v, v′) about a threefold axis. Each is a real 5×5 field over
  * the real d orbitals (see realOrbitals.ts), cm⁻¹, with zero trace (the barycentre of the d
  * orbitals at zero).
  */
+
+import { ensure } from '../core/errors.js';
+import { axisRotation, compose3, type Mat3, orbitalTransform, transformField, unit } from './realOrbitals.js';
 
 /** The cubic field per unit Dq with the fourfold axes along x, y, z: e_g at +6Dq, t₂g at −4Dq. */
 export function cubicField(dq: number): Float64Array {

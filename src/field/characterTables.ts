@@ -1,6 +1,3 @@
-import type { PointGroup, SymmetryOperation } from './pointGroups.js';
-import { dot, type Vec3 } from './realOrbitals.js';
-
 /**
  * Character tables of the point groups met by d-metal complexes (any group-theory text, e.g.
  * Cotton, Chemical Applications of Group Theory, 3rd ed., 1990, appendix IIA), the assignment of
@@ -12,6 +9,9 @@ import { dot, type Vec3 } from './realOrbitals.js';
  * are matched by their proper part P = det·R. Complex-conjugate pairs of one-dimensional irreps
  * (C3, C4, S4, C3h) are merged into one real E, as a real Hamiltonian keeps them degenerate.
  */
+
+import type { PointGroup, SymmetryOperation } from './pointGroups.js';
+import { dot, type Vec3 } from './realOrbitals.js';
 
 /** Where an operation's axis (of its proper part; a mirror's normal) lies in the standard frame. */
 type AxisRule = 'any' | 'z' | 'perp' | 'perp0' | 'perp1' | 'fourfold' | 'notFourfold';

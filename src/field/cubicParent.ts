@@ -1,11 +1,3 @@
-import type { Ligand } from './angularOverlap.js';
-import { rotatedCubicField, trigonalFrame } from './axialFields.js';
-import { cubicLevels } from './cubic.js';
-import type { Geometry } from './labels.js';
-import { type CubicParent, type Eigenspace, type FieldInput, fieldEigenspaces } from './lowSymmetrySolver.js';
-import type { PointGroup } from './pointGroups.js';
-import { cross, dot, type Mat3, transpose3, unit, type Vec3 } from './realOrbitals.js';
-
 /**
  * The cubic parent of a lower-symmetry field: the cubic field nearest to it (least squares over
  * the 5×5 matrix, among cube orientations suggested by the group's axes and the ligand
@@ -13,6 +5,14 @@ import { cross, dot, type Mat3, transpose3, unit, type Vec3 } from './realOrbita
  * most (the descent in symmetry followed by the states themselves, not by a table). For small
  * distortions the weight is near 1; a low weight says the cubic name no longer describes it.
  */
+
+import type { Ligand } from './angularOverlap.js';
+import { rotatedCubicField, trigonalFrame } from './axialFields.js';
+import { cubicLevels } from './cubic.js';
+import type { Geometry } from './labels.js';
+import { type CubicParent, type Eigenspace, type FieldInput, fieldEigenspaces } from './lowSymmetrySolver.js';
+import type { PointGroup } from './pointGroups.js';
+import { cross, dot, type Mat3, transpose3, unit, type Vec3 } from './realOrbitals.js';
 
 /** The nearest cubic field. */
 export interface CubicReference {

@@ -1,3 +1,10 @@
+/**
+ * The levels of a dⁿ ion in a complex of lower than cubic symmetry, from its geometry and bonding
+ * parameters (angular overlap model) or from published tetragonal or trigonal crystal-field
+ * parameters: the field, its point group, the labelled levels, the one-electron orbital energies
+ * and the nearest cubic field with each level's cubic parent.
+ */
+
 import { ensure } from '../core/errors.js';
 import { aomField, type BondParameters, dsMixingField, type Ligand } from './angularOverlap.js';
 import { tetragonalField, trigonalField, trigonalFrame } from './axialFields.js';
@@ -12,13 +19,6 @@ import {
   pointGroup,
 } from './pointGroups.js';
 import { apply3, orbitalTransform, transformField } from './realOrbitals.js';
-
-/**
- * The levels of a dⁿ ion in a complex of lower than cubic symmetry, from its geometry and bonding
- * parameters (angular overlap model) or from published tetragonal or trigonal crystal-field
- * parameters: the field, its point group, the labelled levels, the one-electron orbital energies
- * and the nearest cubic field with each level's cubic parent.
- */
 
 /** How the one-electron field is given. */
 export type FieldSpec =

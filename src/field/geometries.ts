@@ -1,13 +1,13 @@
-import { ensure } from '../core/errors.js';
-import type { Ligand } from './angularOverlap.js';
-import type { Vec3 } from './realOrbitals.js';
-
 /**
  * Named ligand arrangements (names of this project) for the angular overlap model. Each places
  * its ligands on unit directions from the metal with kinds: `L` where all are alike, `eq` and `ax`
  * for equatorial and axial positions, `A` and `B` for the two ligands of MA₄B₂ and MA₃B₃. Where an
  * angle shapes the figure it is an option with the regular figure's value as its default.
  */
+
+import { ensure } from '../core/errors.js';
+import type { Ligand } from './angularOverlap.js';
+import type { Vec3 } from './realOrbitals.js';
 
 /** A named arrangement. */
 export interface GeometryPreset {

@@ -1,3 +1,11 @@
+/**
+ * Levels of dⁿ in a one-electron field of any symmetry: electron repulsion (Racah B, C) plus the
+ * field, diagonalised over the real-orbital determinants of the lowest M_S (0 or ½), which hold
+ * one component of every spin multiplet because H conserves S² (no spin–orbit coupling here).
+ * S is read from S² within each degenerate eigenspace; the space's irreps in the point group
+ * come from the characters of the group's operations acting on it.
+ */
+
 import { ensure } from '../core/errors.js';
 import { column, resolveSubspace, symmetricEigen } from '../numeric/eigen.js';
 import { type GroupCharacters, groupCharacters, reduceRepresentation } from './characterTables.js';
@@ -10,14 +18,6 @@ import {
   realDeterminantBlock,
 } from './realDeterminants.js';
 import { orbitalTransform } from './realOrbitals.js';
-
-/**
- * Levels of dⁿ in a one-electron field of any symmetry: electron repulsion (Racah B, C) plus the
- * field, diagonalised over the real-orbital determinants of the lowest M_S (0 or ½), which hold
- * one component of every spin multiplet because H conserves S² (no spin–orbit coupling here).
- * S is read from S² within each degenerate eigenspace; the space's irreps in the point group
- * come from the characters of the group's operations acting on it.
- */
 
 /** Input of {@link solveField}. Energies in cm⁻¹. */
 export interface FieldInput {

@@ -1,3 +1,12 @@
+/**
+ * The point group of a set of ligands around a metal: every rotation, reflection and improper
+ * rotation that maps each ligand onto a ligand of the same kind, found by testing candidate axes
+ * and planes built from the ligand directions; the group's name by the usual flowchart (cubic
+ * groups by their threefold axes, then the principal axis, perpendicular twofold axes and mirror
+ * planes; Cotton, Chemical Applications of Group Theory, 3rd ed., 1990, §3.14); and a standard
+ * frame (principal axis z, reference axis x) in which its classes are told apart.
+ */
+
 import type { Ligand } from './angularOverlap.js';
 import {
   apply3,
@@ -10,15 +19,6 @@ import {
   unit,
   type Vec3,
 } from './realOrbitals.js';
-
-/**
- * The point group of a set of ligands around a metal: every rotation, reflection and improper
- * rotation that maps each ligand onto a ligand of the same kind, found by testing candidate axes
- * and planes built from the ligand directions; the group's name by the usual flowchart (cubic
- * groups by their threefold axes, then the principal axis, perpendicular twofold axes and mirror
- * planes; Cotton, Chemical Applications of Group Theory, 3rd ed., 1990, §3.14); and a standard
- * frame (principal axis z, reference axis x) in which its classes are told apart.
- */
 
 /** One symmetry operation and what kind of operation it is. */
 export interface SymmetryOperation {

@@ -1,3 +1,13 @@
+/**
+ * Determinants over the real d orbitals (spin-orbital p < 5: real orbital p with spin α,
+ * p ≥ 5: real orbital p − 5 with β; the same bit-mask algebra as the |m_l⟩ determinants). A field
+ * of any symmetry is real here, so every Hamiltonian stays real symmetric and the ordinary
+ * symmetric eigensolver applies; in the |m_l⟩ basis a general field is complex. The electron
+ * repulsion is carried over from the |m_l⟩ determinants by the exact change of basis (a product of
+ * one-electron unitaries, whose determinant-level matrix elements are minors), so the
+ * Slater–Condon rules stay in one place.
+ */
+
 import { microstates } from '../atom/microstates.js';
 import {
   type BasisBlock,
@@ -9,16 +19,6 @@ import {
 import { congruence } from '../numeric/eigen.js';
 import { determinantBlock } from './hamiltonian.js';
 import { realToComplex } from './realOrbitals.js';
-
-/**
- * Determinants over the real d orbitals (spin-orbital p < 5: real orbital p with spin α,
- * p ≥ 5: real orbital p − 5 with β; the same bit-mask algebra as the |m_l⟩ determinants). A field
- * of any symmetry is real here, so every Hamiltonian stays real symmetric and the ordinary
- * symmetric eigensolver applies; in the |m_l⟩ basis a general field is complex. The electron
- * repulsion is carried over from the |m_l⟩ determinants by the exact change of basis (a product of
- * one-electron unitaries, whose determinant-level matrix elements are minors), so the
- * Slater–Condon rules stay in one place.
- */
 
 /** The parts of H over the real-orbital determinants of one M_S. */
 export interface RealDeterminantBlock extends BasisBlock {

@@ -1,5 +1,3 @@
-import type { Complex } from '../atom/angular.js';
-
 /**
  * The five real d orbitals, in the order xy, yz, z², xz, x²−y² (the real combinations of
  * m = −2 … 2), as quadratic forms d(r) = rᵀQr on the unit sphere, all with the same norm
@@ -7,6 +5,8 @@ import type { Complex } from '../atom/angular.js';
  * any symmetry is a real symmetric 5×5 matrix over them (row-major, `V[5i + j]`); a rotation or
  * reflection acts on them by a real orthogonal 5×5 matrix.
  */
+
+import type { Complex } from '../atom/angular.js';
 
 /** A direction or position in space. */
 export type Vec3 = readonly [number, number, number];

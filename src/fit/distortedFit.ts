@@ -1,10 +1,3 @@
-import { Matrix, SingularValueDecomposition } from 'ml-matrix';
-import { ensure } from '../core/errors.js';
-import type { BondParameters } from '../field/angularOverlap.js';
-import { type FieldSpec, fieldOf, groupOf, idealised, symmetrised } from '../field/distortedComplex.js';
-import { type FieldResult, solveField, symmetryContext } from '../field/lowSymmetrySolver.js';
-import { inverseNormalMatrix, levenbergMarquardt, type StopReason } from '../numeric/leastSquares.js';
-
 /**
  * Fits the field parameters of a distorted complex (eσ and eπ of each ligand kind, or Dq, Ds, Dt,
  * or Dq, Dσ, Dτ) and Racah B to observed band energies, each band assigned to a level of the
@@ -13,6 +6,13 @@ import { inverseNormalMatrix, levenbergMarquardt, type StopReason } from '../num
  * fix the free parameters: fewer bands than parameters, as many (no error estimate), or a
  * combination of parameters the bands do not feel (a near-zero singular value of the Jacobian).
  */
+
+import { Matrix, SingularValueDecomposition } from 'ml-matrix';
+import { ensure } from '../core/errors.js';
+import type { BondParameters } from '../field/angularOverlap.js';
+import { type FieldSpec, fieldOf, groupOf, idealised, symmetrised } from '../field/distortedComplex.js';
+import { type FieldResult, solveField, symmetryContext } from '../field/lowSymmetrySolver.js';
+import { inverseNormalMatrix, levenbergMarquardt, type StopReason } from '../numeric/leastSquares.js';
 
 /** One observed band. */
 export interface DistortedBand {

@@ -1,13 +1,13 @@
-import { z } from 'zod';
-
 /**
- * The geometry fields of a sample sheet, for a complex of lower than cubic symmetry: one source
+ * The `structure` field of a sample sheet, for a complex of lower than cubic symmetry: one source
  * of the field (a named shape, XYZ coordinates, or tetragonal or trigonal parameters), the bonding
  * parameters per ligand kind as starting values, the parameters to fit and the assignment of the
  * bands to levels of the point group. Checked with zod like the rest of the sheet.
  */
 
-/** The `geometry` object of a sample (JSON sheets). */
+import { z } from 'zod';
+
+/** The `structure` object of a sample (JSON sheets). */
 export interface SheetGeometry {
   readonly shape?: string;
   readonly angle?: number;

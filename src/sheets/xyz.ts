@@ -1,12 +1,12 @@
-import { ensure, InputError } from '../core/errors.js';
-import type { Ligand } from '../field/angularOverlap.js';
-import type { Vec3 } from '../field/realOrbitals.js';
-
 /**
  * Plain XYZ coordinates (a line with the atom count, a comment line, then one line per atom:
  * element symbol and x y z in ångström) and the coordination sphere of a metal in them: the donor
  * atoms as ligands of the angular overlap model, each of the kind named by its element.
  */
+
+import { ensure, InputError } from '../core/errors.js';
+import type { Ligand } from '../field/angularOverlap.js';
+import type { Vec3 } from '../field/realOrbitals.js';
 
 /** One atom of an XYZ file. */
 export interface XyzAtom {
