@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { binomial, microstates } from '../../src/atom/microstates.js';
 import { type OneBodyTerm, oneBodyMatrix } from '../../src/atom/operators.js';
 import { aomField, type Ligand } from '../../src/field/angularOverlap.js';
+import { groupCharacters } from '../../src/field/characterTables.js';
 import { solveCubic } from '../../src/field/cubic.js';
 import { type DistortedResult, solveDistorted } from '../../src/field/distortedComplex.js';
 import { GEOMETRY_PRESETS, presetLigands } from '../../src/field/geometries.js';
@@ -141,6 +142,37 @@ describe('pointGroup and labels: the groups of the presets and the character tab
     expect(pointGroup(twisted).name).toBe('D3');
     const pyramid = [0, 120, 240].map((phi) => ({ kind: 'L', direction: polar(110, phi) }));
     expect(pointGroup(pyramid).name).toBe('C3v');
+  });
+
+  it('groupCharacters gives class sizes that add up to the group and rows that are orthogonal (the great orthogonality theorem)', () => {
+    const sets = [
+      ...GEOMETRY_PRESETS.map((p) => p.ligands(p.angle?.defaultDegrees ?? 0)),
+      presetLigands('flattened-tetrahedron', 90),
+      [0, 120, 240].flatMap((phi) => [
+        { kind: 'L', direction: polar(50, phi) },
+        { kind: 'L', direction: polar(130, phi + 25) },
+      ]),
+    ];
+    for (const ligands of sets) {
+      const group = pointGroup(ligands);
+      const table = groupCharacters(group);
+      expect(table, group.name).toBeDefined();
+      if (!table) continue;
+      const order = group.operations.length;
+      expect(table.classSizes.reduce((a, b) => a + b, 0)).toBe(order);
+      table.irreps.forEach((a, i) => {
+        table.irreps.forEach((b, j) => {
+          const sum = a.characters.reduce(
+            (s, x, c) => s + (table.classSizes[c] ?? 0) * x * (b.characters[c] ?? 0),
+            0,
+          );
+          // A merged complex pair (a real E of a cyclic group) has norm 2|G|.
+          const merged =
+            a.dimension === 2 && ['C3', 'C4', 'S4', 'C3h', 'C4h', 'S6'].includes(group.name) ? 2 : 1;
+          expect(sum, `${group.name} ${a.name}·${b.name}`).toBeCloseTo(i === j ? order * merged : 0, 9);
+        });
+      });
+    }
   });
 
   it('every labelled level has an irrep of the group, and dimensions add up to C(10, n) (d2, d5, d8, every preset)', () => {
