@@ -65,7 +65,6 @@ export function addFieldOptions(command: Command): Command {
       '--bond <kind=eσ,eπ>',
       'angular-overlap parameters of one ligand kind in cm⁻¹, e.g. eq=7000,1000; repeat per kind; a bare 7000,1000 applies to every kind not named; three numbers eσ,eπz,eπ⊥ give π bonding in the plane through the bond and z, and in the plane across it',
       collect,
-      [],
     )
     .option(
       '--eds <cm-1>',
@@ -79,8 +78,8 @@ export function addFieldOptions(command: Command): Command {
     );
 }
 
-function collect(value: string, previous: string[]): string[] {
-  return [...previous, value];
+function collect(value: string, previous: string[] | undefined): string[] {
+  return [...(previous ?? []), value];
 }
 
 /**
