@@ -3,6 +3,7 @@
 import { benchCrossover } from './crossover.js';
 import { benchDiagram } from './diagram.js';
 import { benchFit } from './fit.js';
+import { benchLowSymmetry } from './lowSymmetry.js';
 import { benchSolver } from './solver.js';
 import { benchSpectrum } from './spectrum.js';
 
@@ -10,6 +11,7 @@ const benches: [string, () => void | Promise<void>][] = [
   ['solver', benchSolver],
   ['diagram', benchDiagram],
   ['fit', benchFit],
+  ['low symmetry', benchLowSymmetry],
   ['crossover', benchCrossover],
   ['spectrum', benchSpectrum],
 ];

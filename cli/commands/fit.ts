@@ -10,6 +10,8 @@ import { formatOfPath } from '../../charts/render.js';
 import { DEFAULT_ENERGY_UNIT } from '../../src/core/defaults.js';
 import { parseUnit } from '../../src/core/units.js';
 import { type FitResult, fitBands, InputError, parseEnergyList } from '../../src/index.js';
+import { type DistortedFitOptions, distortedFitCommand } from '../distorted.js';
+import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { jsonText } from '../format.js';
 import { type Io, progress } from '../io.js';
@@ -46,9 +48,11 @@ export interface FitOptions {
 
 /** `termsplit fit`: Dq, B (and C) from observed band maxima, with the assignment search. */
 export function registerFit(program: Command, io: Io): void {
-  program
+  const command = program
     .command('fit')
-    .description('fit Dq and Racah B (and C) to observed d–d band maxima, assigning the bands')
+    .description(
+      'fit Dq and Racah B (and C) to observed d–d band maxima, assigning the bands; with a geometry (--shape, --xyz, --tetragonal, --trigonal) fit eσ/eπ or Ds/Dt and B of a distorted complex',
+    )
     .option('--ion <name>', 'the metal ion, e.g. Ni2+ (gives n, the free-ion B for β and the default C/B)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
     .option(
@@ -83,10 +87,28 @@ export function registerFit(program: Command, io: Io): void {
       '--diagram <file>',
       'draw the correlation diagram at the fitted C/B with the sample on it (.png, .svg, .pdf)',
     )
-    .option('--json', 'print one JSON object on stdout')
-    .action((opts: FitOptions) => {
-      io.out(fitCommand(opts, io));
-    });
+    .option(
+      '--free <names>',
+      'with a geometry: the parameters to fit, e.g. "eSigma(eq),ePi(eq),B" (default: all and B)',
+    )
+    .option('--start-B <cm-1>', 'with a geometry: starting Racah B (default: 0.75 × the free-ion B)')
+    .option('--json', 'print one JSON object on stdout');
+  addFieldOptions(command).action((opts: FitOptions & DistortedFitOptions) => {
+    if (hasFieldOptions(opts)) {
+      for (const [flag, given] of [
+        ['--fit-c', opts.fitC],
+        ['--spin-forbidden', opts.spinForbidden],
+        ['--spin-state', opts.spinState],
+        ['--diagram', opts.diagram],
+      ] as const) {
+        if (given !== undefined)
+          throw new InputError(`${flag} is for cubic fits: leave it out with a geometry`);
+      }
+      io.out(distortedFitCommand(opts, io));
+      return;
+    }
+    io.out(fitCommand(opts, io));
+  });
 }
 
 /** The fit from the command's options, with the ion's name and the origin of C/B. */

@@ -12,6 +12,8 @@ import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
 import { unicodeConfiguration, unicodeTerm } from '../../src/field/labels.js';
 import { type CubicLevel, cmToEv, cmToNm, cubicCautions, unicodeLabel } from '../../src/index.js';
+import { distortedLevels } from '../distorted.js';
+import { addFieldOptions, type FieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFileAtomic } from '../files.js';
 import { fixed, jsonText, listSection, table } from '../format.js';
 import type { Io } from '../io.js';
@@ -33,10 +35,10 @@ export interface LevelsOptions extends LevelOptions {
 
 /** `termsplit levels`: every level of dⁿ in a cubic field, labelled, with the predicted bands. */
 export function registerLevels(program: Command, io: Io): void {
-  program
+  const command = program
     .command('levels')
     .description(
-      'levels of dⁿ in an octahedral or tetrahedral field, labelled, with predicted band positions',
+      'levels of dⁿ in an octahedral or tetrahedral field, or in a complex of lower symmetry (--shape, --xyz, --tetragonal, --trigonal), labelled, with predicted band positions',
     )
     .option('--ion <name>', 'the metal ion, e.g. Cr3+ (gives n and the free-ion C/B)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
@@ -46,17 +48,21 @@ export function registerLevels(program: Command, io: Io): void {
     .option('--cb <ratio>', cbHelp('C/B instead of --C'))
     .option(...GEOMETRY_OPTION)
     .option('-o, --output <file>', 'also draw the energy-level diagram, free ion → field: .png, .svg or .pdf')
-    .option('--json', 'print one JSON object on stdout')
-    .action((opts: LevelsOptions) => {
-      const figure = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
-      const format = opts.output === undefined ? undefined : formatOfPath(opts.output);
-      const solved = levelsFromOptions(opts);
-      if (figure !== undefined && format !== undefined) {
-        const options = solved.ion ? { ion: solved.ion } : {};
-        writeFileAtomic(figure, renderLevelDiagram(solved.result, { format }, options));
-      }
-      io.out(levelsText(opts, solved, figure));
-    });
+    .option('--json', 'print one JSON object on stdout');
+  addFieldOptions(command).action((opts: LevelsOptions & FieldOptions) => {
+    if (hasFieldOptions(opts)) {
+      io.out(distortedLevels(opts, io));
+      return;
+    }
+    const figure = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
+    const format = opts.output === undefined ? undefined : formatOfPath(opts.output);
+    const solved = levelsFromOptions(opts);
+    if (figure !== undefined && format !== undefined) {
+      const options = solved.ion ? { ion: solved.ion } : {};
+      writeFileAtomic(figure, renderLevelDiagram(solved.result, { format }, options));
+    }
+    io.out(levelsText(opts, solved, figure));
+  });
 }
 
 function levelsText(opts: LevelsOptions, solved: SolvedLevels, figure: string | undefined): string {

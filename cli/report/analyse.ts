@@ -24,6 +24,7 @@ import { DEFAULT_BASELINE } from '../../src/spectra/bandFinding.js';
 import { parseRange } from '../../src/spectra/energyRange.js';
 import { analyseSpectrum, type SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
 import { parseXUnit, parseYUnit } from '../../src/spectra/spectrumUnits.js';
+import { type DistortedSampleReport, distortedSampleFit } from '../distorted.js';
 import { readTextFile } from '../files.js';
 import { crossingsJson, verdictJson } from '../present/crossoverPresent.js';
 import { fitJson, solutionJson } from '../present/fitPresent.js';
@@ -70,6 +71,8 @@ export interface SampleResult {
   readonly series: SeriesEntry;
   readonly spin?: SpinReport;
   readonly cautions: readonly string[];
+  /** The fit with the sample's geometry, when the sheet gives one (`structure`). */
+  readonly structure?: DistortedSampleReport;
   /** Figures as SVG text (the HTML report embeds them; files are written beside it). */
   readonly svg: { readonly diagram?: string; readonly spectrum?: string };
 }
@@ -128,6 +131,7 @@ function analyse(task: SampleTask): SampleResult {
     ? spectrumFigure(fit.spectrum, `termsplit spectrum ${spectrumPath(task)}`, 'svg').toString('utf8')
     : undefined;
   const spin = spinReport(ion.n, sample.geometry, best);
+  const structure = structureFit(task, ion, ratio, result.bands, cautions);
   return {
     ok: true,
     name: sample.name,
@@ -144,8 +148,31 @@ function analyse(task: SampleTask): SampleResult {
     series: seriesEntry(sample, ion.ion, best, spin),
     ...(spin ? { spin } : {}),
     cautions: [...new Set(cautions)],
+    ...(structure ? { structure } : {}),
     svg: { ...(diagram ? { diagram } : {}), ...(spectrumSvg ? { spectrum: spectrumSvg } : {}) },
   };
+}
+
+/**
+ * The fit with the sample's geometry; a problem with the geometry becomes a caution, so the cubic
+ * analysis still stands.
+ */
+function structureFit(
+  task: SampleTask,
+  ion: FreeIon,
+  ratio: RatioChoice,
+  bands: readonly { energy: number; sigma?: number }[],
+  cautions: string[],
+): DistortedSampleReport | undefined {
+  const { structure } = task.sample;
+  if (!structure) return undefined;
+  try {
+    return distortedSampleFit(structure, task.sheetDir, { n: ion.n, ion, cOverB: ratio.cOverB, bands });
+  } catch (e) {
+    if (!(e instanceof InputError)) throw e;
+    cautions.push(`structure: ${e.message}; no fit with the geometry`);
+    return undefined;
+  }
 }
 
 /** The fit of the sample's given bands, or of the bands found in its spectrum. */

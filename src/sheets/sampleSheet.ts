@@ -11,6 +11,7 @@ import { findIon } from '../core/ions.js';
 import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
 import type { Geometry } from '../field/labels.js';
 import { splitCsvLine } from './csv.js';
+import { geometrySchema, type SheetGeometry } from './geometrySheet.js';
 
 /** Where a sample's spectrum is and how to read it (see the spectrum reader for each field). */
 export interface SpectrumSpec {
@@ -51,6 +52,8 @@ export interface SampleSpec {
   readonly keepBands: boolean;
   /** The ground-state spin when it is known (from magnetism, say); the fit then keeps only that. */
   readonly spinState?: 'high' | 'low';
+  /** The complex's geometry, for a fit of a distorted complex besides the cubic one (JSON sheets). */
+  readonly structure?: SheetGeometry;
   readonly notes?: string;
 }
 
@@ -107,6 +110,7 @@ const sampleSchema = z
     spectrum: spectrumSchema.optional(),
     assign: listField.optional(),
     spinState: z.enum(['high', 'low']).optional(),
+    structure: geometrySchema.optional(),
     notes: z.string().optional(),
     ...optionsShape,
   })
@@ -191,6 +195,8 @@ const EXPECTED: Readonly<Record<string, string>> = {
   keepBands: 'true or false',
   spinState: '"high" or "low"',
   assign: 'level labels as text ("3T2g,3T1g(F)") or a list of them',
+  structure:
+    'an object with one of shape, xyz, tetragonal, trigonal, and optionally angle, metal, cutoff, bonds, eds, tolerance, free, assign',
   notes: 'text',
 };
 
@@ -279,6 +285,7 @@ function checkSample(
       spinForbidden: s.spinForbidden ?? defaults.spinForbidden ?? false,
       keepBands: s.keepBands ?? defaults.keepBands ?? false,
       ...(s.spinState ? { spinState: s.spinState } : {}),
+      ...(s.structure ? { structure: s.structure } : {}),
       ...(s.notes ? { notes: s.notes } : {}),
     },
   };
