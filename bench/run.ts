@@ -5,6 +5,7 @@ import { benchDiagram } from './diagram.js';
 import { benchFit } from './fit.js';
 import { benchSolver } from './solver.js';
 import { benchSpectrum } from './spectrum.js';
+import { benchSpinOrbit } from './spinOrbit.js';
 
 const benches: [string, () => void | Promise<void>][] = [
   ['solver', benchSolver],
@@ -12,6 +13,7 @@ const benches: [string, () => void | Promise<void>][] = [
   ['fit', benchFit],
   ['crossover', benchCrossover],
   ['spectrum', benchSpectrum],
+  ['spin-orbit', benchSpinOrbit],
 ];
 
 console.log(`termsplit benchmark — Node ${process.version}, ${new Date().toISOString().slice(0, 10)}\n`);

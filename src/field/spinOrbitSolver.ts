@@ -6,6 +6,7 @@
  * which cubic level it comes from.
  */
 import { bilinear, clusterSorted, column, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
+import { symmetricEigenvalues } from '../numeric/eigenvalues.js';
 import { type CubicInput, checkCubicInput, cubicLevels } from './cubic.js';
 import {
   c2Character,
@@ -103,6 +104,61 @@ interface RawLevel {
   irrep: DoubleIrrep;
   energy: number;
   parentage: ParentWeight[];
+}
+
+/**
+ * The irreps of a degenerate run whose kept components fall one per class in the pattern of a
+ * single irrep (odd n: 2M_J ≡ 1 → Γ6, 3 → Γ7, both → Γ8; even n: 0 → Γ1, 4 → Γ2, 0 + 4 → Γ3,
+ * 0 + 2 → Γ4, 2 + 4 → Γ5), or null where the pattern could hide a coincidence of several.
+ */
+function irrepByPattern(odd: boolean, kept: ReadonlySet<number>, size: number): DoubleIrrep | null {
+  const key = [...kept].sort().join(',');
+  if (kept.size !== size) return null;
+  const table: Record<string, DoubleIrrep> = odd
+    ? { '1': 'Γ6', '3': 'Γ7', '1,3': 'Γ8' }
+    : { '0': 'Γ1', '4': 'Γ2', '0,4': 'Γ3', '0,2': 'Γ4', '2,4': 'Γ5' };
+  return table[key] ?? null;
+}
+
+/** Irrep and energy above the ground level of every level, without eigenvectors. */
+export interface LevelEnergy {
+  readonly irrep: DoubleIrrep;
+  readonly energy: number;
+}
+
+/**
+ * Energies and irreps of every level from eigenvalues alone, for sweeps: each block's spectrum
+ * (no eigenvectors), each degenerate run named by {@link irrepByPattern}. Returns null where a
+ * run's pattern leaves the name open (at ζ = 0, Dq = 0 or a coincidence); the caller then uses
+ * {@link spinOrbitLevels}.
+ */
+export function spinOrbitEnergies(
+  n: number,
+  dqOct: number,
+  B: number,
+  C: number,
+  zeta: number,
+): LevelEnergy[] | null {
+  const blocks = spinOrbitBlocks(n);
+  const pool: { cls: number; value: number }[] = [];
+  let scale = 1;
+  for (const b of blocks) {
+    for (const value of symmetricEigenvalues(blockHamiltonian(b, dqOct, B, C, zeta), b.masks.length)) {
+      pool.push({ cls: b.cls, value });
+      scale = Math.max(scale, Math.abs(value));
+    }
+  }
+  pool.sort((a, b) => a.value - b.value);
+  const values = pool.map((p) => p.value);
+  const zero = values[0] ?? 0;
+  const out: LevelEnergy[] = [];
+  for (const run of clusterSorted(values, 1e-9 * scale)) {
+    const kept = new Set(run.map((i) => pool[i]?.cls ?? -1));
+    const irrep = irrepByPattern(n % 2 === 1, kept, run.length);
+    if (!irrep) return null;
+    out.push({ irrep, energy: (values[run[0] ?? 0] ?? 0) - zero });
+  }
+  return out;
 }
 
 /** The levels for a signed Dq (checks left to the caller), named for `geometry`. */
