@@ -19,6 +19,7 @@ import {
   spinOrbitLevels,
 } from '../field/spinOrbitSolver.js';
 import {
+  type CorrelationDiagram,
   DEFAULT_MAX_DELTA_OVER_B,
   DEFAULT_SWEEP_POINTS,
   MAX_SWEEP_DELTA_OVER_B,
@@ -148,5 +149,34 @@ export function sweepSpinOrbit(n: number, options: SpinOrbitSweepOptions): SpinO
     maxDeltaOverB,
     deltaOverB: xs,
     curves: [...curves].sort((a, b) => order(a) - order(b)),
+  };
+}
+
+/**
+ * The diagram in the form of {@link CorrelationDiagram}, for the CSV and figure code of the
+ * spin–orbit-free diagram. Spin is no longer a good quantum number, so every curve is given
+ * S = 0 and the diagram one region: all curves are drawn alike, and a change of ground level
+ * shows as a kink, with no spin regions or crossings.
+ */
+export function spinOrbitAsCorrelation(d: SpinOrbitDiagram): CorrelationDiagram {
+  const ground = d.curves.find((c) => c.values[0] === 0)?.label ?? '';
+  return {
+    n: d.n,
+    geometry: d.geometry,
+    cOverB: d.cOverB,
+    maxDeltaOverB: d.maxDeltaOverB,
+    points: d.deltaOverB.length,
+    deltaOverB: d.deltaOverB,
+    curves: d.curves.map((c) => ({
+      label: c.label,
+      symbol: c.irrep,
+      S: 0,
+      irrep: c.irrep,
+      parent: c.freeIon,
+      strongField: c.strongField,
+      values: c.values,
+    })),
+    crossings: [],
+    regions: [{ fromDeltaOverB: 0, toDeltaOverB: d.maxDeltaOverB, S: 0, ground }],
   };
 }
