@@ -7,6 +7,7 @@
  * divided by B, as in sweep.ts.
  */
 import { freeIonLevels } from '../atom/jLevels.js';
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { DEFAULT_C_OVER_B, MAX_C_OVER_B } from '../core/ions.js';
 import type { DoubleIrrep } from '../field/doubleGroup.js';
@@ -29,7 +30,7 @@ import {
 
 /** Options of {@link sweepSpinOrbit}. */
 export interface SpinOrbitSweepOptions {
-  /** @default 'oct' */
+  /** @default DEFAULT_GEOMETRY ('oct') */
   readonly geometry?: Geometry;
   /** C/B held fixed. @default DEFAULT_C_OVER_B (4.5) */
   readonly cOverB?: number;
@@ -73,7 +74,7 @@ export interface SpinOrbitDiagram {
  * @throws InputError for a bad n, C/B, ζ/B, maximum or point count.
  */
 export function sweepSpinOrbit(n: number, options: SpinOrbitSweepOptions): SpinOrbitDiagram {
-  const geometry = options.geometry ?? 'oct';
+  const geometry = options.geometry ?? DEFAULT_GEOMETRY;
   const cOverB = options.cOverB ?? DEFAULT_C_OVER_B;
   const maxDeltaOverB = options.maxDeltaOverB ?? DEFAULT_MAX_DELTA_OVER_B;
   const points = options.points ?? DEFAULT_SWEEP_POINTS;

@@ -7,6 +7,8 @@
  * 1932, ch. 7) written so that near-degenerate pairs pass smoothly into the first-order term.
  * A cubic ion is magnetically isotropic, so χ_zz is χ; μ_eff = √(3kTχ/Nμ_B²).
  */
+
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { type CubicInput, checkCubicInput } from '../field/cubic.js';
 import { checkZeta } from '../field/spinOrbit.js';
@@ -67,7 +69,7 @@ interface ZeemanBlock {
  * @throws InputError for bad n, Dq, B, C, ζ, k, g or temperature.
  */
 export function susceptibility(input: SusceptibilityInput): MomentPoint[] {
-  const { n, geometry = 'oct', dq, B, C, zeta, temperatures } = input;
+  const { n, geometry = DEFAULT_GEOMETRY, dq, B, C, zeta, temperatures } = input;
   const k = input.k ?? DEFAULT_ORBITAL_REDUCTION;
   const g = input.g ?? DEFAULT_SPIN_G;
   checkCubicInput(input);

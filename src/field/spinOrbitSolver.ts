@@ -5,6 +5,8 @@
  * parentage: the weights of the spin–orbit-free cubic levels ²ˢ⁺¹Γ in it, so a reader sees
  * which cubic level it comes from.
  */
+
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { bilinear, clusterSorted, column, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
 import { symmetricEigenvalues } from '../numeric/eigenvalues.js';
 import { type CubicInput, checkCubicInput, cubicLevels } from './cubic.js';
@@ -95,7 +97,7 @@ export function spinOrbitStates(
  */
 export function solveSpinOrbit(input: SpinOrbitInput): SpinOrbitResult {
   checkCubicInput(input);
-  const { n, geometry = 'oct', dq, B, C, zeta } = input;
+  const { n, geometry = DEFAULT_GEOMETRY, dq, B, C, zeta } = input;
   checkZeta(zeta);
   return spinOrbitLevels(n, geometry === 'oct' ? dq : -dq, B, C, zeta, geometry, input.parentage ?? true);
 }

@@ -8,6 +8,7 @@
  * is calculated at that level's energy; such bands are what can fix ζ.
  */
 import { inverse, Matrix } from 'ml-matrix';
+import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import type { Geometry } from '../field/labels.js';
 import { checkZeta, MAX_ZETA } from '../field/spinOrbit.js';
@@ -26,7 +27,7 @@ export interface AssignedBand {
 /** Input of {@link refineWithSpinOrbit}. */
 export interface SpinOrbitRefineInput {
   readonly n: number;
-  /** @default 'oct' */
+  /** @default DEFAULT_GEOMETRY ('oct') */
   readonly geometry?: Geometry;
   /** Starting values, e.g. a spin–orbit-free fit's result. */
   readonly start: { readonly dq: number; readonly B: number; readonly C: number };
@@ -92,7 +93,7 @@ export function bandEnergy(result: SpinOrbitResult, level: string): number {
  * @throws InputError for bad parameters, a bad ζ, too few bands or an unknown level label.
  */
 export function refineWithSpinOrbit(input: SpinOrbitRefineInput): SpinOrbitRefinement {
-  const { n, geometry = 'oct', start, bands } = input;
+  const { n, geometry = DEFAULT_GEOMETRY, start, bands } = input;
   const fitZeta = input.fitZeta ?? false;
   const fitC = input.fitC ?? false;
   checkZeta(input.zeta);
