@@ -179,5 +179,6 @@ export function spinOrbitAsCorrelation(d: SpinOrbitDiagram): CorrelationDiagram 
     })),
     crossings: [],
     regions: [{ fromDeltaOverB: 0, toDeltaOverB: d.maxDeltaOverB, S: 0, ground }],
+    zetaOverB: d.zetaOverB,
   };
 }
