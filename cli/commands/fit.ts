@@ -9,7 +9,8 @@ import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { DEFAULT_ENERGY_UNIT } from '../../src/core/defaults.js';
 import { parseUnit } from '../../src/core/units.js';
-import { type FitResult, fitBands, InputError, parseEnergyList } from '../../src/index.js';
+import { refineWithSpinOrbit, type SpinOrbitRefinement } from '../../src/fit/spinOrbitRefinement.js';
+import { type FitResult, findIon, fitBands, InputError, parseEnergyList } from '../../src/index.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { jsonText } from '../format.js';
 import { type Io, progress } from '../io.js';
@@ -25,6 +26,8 @@ import {
 } from '../options.js';
 import { fitJson, fitText } from '../present/fitPresent.js';
 import { fittedDiagram } from '../present/fittedDiagram.js';
+import { refinementJson, refinementText } from '../present/spinOrbitPresent.js';
+import { ZETA_FACTOR_HELP, zetaOption } from '../zetaOption.js';
 
 /** Options of `termsplit fit`. */
 export interface FitOptions {
@@ -40,6 +43,8 @@ export interface FitOptions {
   spinState?: string;
   B?: string;
   diagram?: string;
+  zeta?: string;
+  zetaFactor?: string;
   json?: boolean;
 }
 
@@ -75,6 +80,11 @@ export function registerFit(program: Command, io: Io): void {
       '--diagram <file>',
       'draw the correlation diagram at the fitted C/B with the sample on it (.png, .svg, .pdf)',
     )
+    .option(
+      '--zeta <cm-1|ion>',
+      'then refine the best solution with spin–orbit coupling, ζ held (cm⁻¹, or "ion" for the free-ion value)',
+    )
+    .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('--json', 'print one JSON object on stdout')
     .action((opts: FitOptions) => {
       io.out(fitCommand(opts, io));
@@ -135,6 +145,8 @@ function fitCommand(opts: FitOptions, io: Io): string {
   }
   const { result, ion, cOrigin } = fitted;
   const best = result.solutions[0];
+  const zeta = zetaOption(opts.zeta, opts.zetaFactor, opts.ion === undefined ? undefined : findIon(opts.ion));
+  const spinOrbit = zeta === undefined || !best ? undefined : refineBest(result, best, zeta);
   if (diagramPath !== undefined && diagramFormat !== undefined && best) {
     writeFileAtomic(diagramPath, fittedDiagram(result, best, diagramFormat, ion));
   }
@@ -142,9 +154,33 @@ function fitCommand(opts: FitOptions, io: Io): string {
     diagramPath !== undefined && best
       ? `Correlation diagram with the sample written to ${opts.diagram}\n`
       : '';
-  if (!opts.json) return fitText(result, ion, cOrigin) + figureNote;
+  if (!opts.json) {
+    return fitText(result, ion, cOrigin) + (spinOrbit ? `\n${refinementText(spinOrbit)}` : '') + figureNote;
+  }
   return jsonText({
     ...(diagramPath !== undefined ? { diagram: best ? opts.diagram : null } : {}),
     ...fitJson(result, ion, cOrigin),
+    ...(spinOrbit ? { spinOrbit: refinementJson(spinOrbit) } : {}),
+  });
+}
+
+/** The best solution refined with spin–orbit coupling, each band on the centroid of its assigned level's components. */
+function refineBest(
+  result: FitResult,
+  best: FitResult['solutions'][number],
+  zeta: number,
+): SpinOrbitRefinement {
+  return refineWithSpinOrbit({
+    n: result.n,
+    geometry: result.geometry,
+    start: { dq: best.dq, B: best.B, C: best.C },
+    zeta,
+    fitC: best.cFitted,
+    holdB: best.bHeld || result.n === 1 || result.n === 9,
+    bands: best.assignments.map((a) => ({
+      energy: a.observed,
+      level: a.label,
+      ...(a.sigma !== null ? { sigma: a.sigma } : {}),
+    })),
   });
 }

@@ -8,6 +8,7 @@ import { cmToNm } from '../../src/core/units.js';
 import { DOUBLE_GROUP_NOTATION } from '../../src/field/doubleGroup.js';
 import { unicodeLabel, unicodeTerm } from '../../src/field/labels.js';
 import type { ParentWeight, SpinOrbitResult } from '../../src/field/spinOrbitSolver.js';
+import type { SpinOrbitRefinement } from '../../src/fit/spinOrbitRefinement.js';
 import { fixed, table } from '../format.js';
 
 /** Parents shown per level in text; JSON has them all. */
@@ -91,4 +92,46 @@ export function momentsText(points: readonly MomentPoint[], spinOnly: number | n
     spinOnly === null ? '—' : fixed(spinOnly, 3),
   ]);
   return table(['T / K', 'χ / cm³ mol⁻¹', 'χT / cm³ K mol⁻¹', 'μ_eff / μ_B', 'spin-only / μ_B'], rows);
+}
+
+/** `1234 ± 12`, or the bare value without an error. */
+function valueWithError(x: number, error: number | null | undefined): string {
+  return error === null || error === undefined ? fixed(x) : `${fixed(x)} ± ${fixed(error)}`;
+}
+
+/** The fit refined with spin–orbit coupling, as text. */
+export function refinementText(r: SpinOrbitRefinement): string {
+  const e = r.errors;
+  const rows = r.bands.map((b) => [
+    b.level.startsWith('Γ') ? b.level : unicodeLabel(b.level),
+    fixed(b.observed),
+    fixed(b.calculated),
+    fixed(b.observed - b.calculated),
+  ]);
+  return [
+    `With spin–orbit coupling (ζ = ${valueWithError(r.zeta, e?.zeta)} cm⁻¹${r.fitZeta ? ', fitted' : ', held'}; each band at the ` +
+      'centroid of its level’s spin–orbit components):',
+    `  Dq = ${valueWithError(r.dq, e?.dq)} cm⁻¹ (10Dq = ${fixed(10 * r.dq)}), B = ${valueWithError(r.B, e?.B)} cm⁻¹, ` +
+      `C = ${valueWithError(r.C, e?.C)} cm⁻¹, rms ${fixed(r.rms, 1)} cm⁻¹${r.converged ? '' : ` (not converged: ${r.reason})`}`,
+    table(['level', 'observed', 'calculated', 'obs − calc'], rows),
+    '',
+  ].join('\n');
+}
+
+/** The fit refined with spin–orbit coupling, as JSON. */
+export function refinementJson(r: SpinOrbitRefinement) {
+  return {
+    zeta: r.zeta,
+    fitZeta: r.fitZeta,
+    dq: r.dq,
+    tenDq: 10 * r.dq,
+    B: r.B,
+    C: r.C,
+    errors: r.errors,
+    rms: r.rms,
+    converged: r.converged,
+    reason: r.reason,
+    bands: r.bands,
+    levels: spinOrbitJson(r.levels).levels,
+  };
 }

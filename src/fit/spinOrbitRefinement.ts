@@ -37,6 +37,8 @@ export interface SpinOrbitRefineInput {
   readonly fitZeta?: boolean;
   /** Fit C too; otherwise C/B stays at the start's ratio. @default false */
   readonly fitC?: boolean;
+  /** Hold B at the start's value (one band, or d¹ and d⁹ where B plays no part). @default false */
+  readonly holdB?: boolean;
   readonly bands: readonly AssignedBand[];
 }
 
@@ -57,7 +59,7 @@ export interface SpinOrbitRefinement {
   /** Standard errors from the Jacobian and the residual scatter (null where the bands do not outnumber the parameters). */
   readonly errors: {
     readonly dq: number;
-    readonly B: number;
+    readonly B: number | null;
     readonly C: number | null;
     readonly zeta: number | null;
   } | null;
@@ -95,9 +97,10 @@ export function bandEnergy(result: SpinOrbitResult, level: string): number {
 export function refineWithSpinOrbit(input: SpinOrbitRefineInput): SpinOrbitRefinement {
   const { n, geometry = DEFAULT_GEOMETRY, start, bands } = input;
   const fitZeta = input.fitZeta ?? false;
-  const fitC = input.fitC ?? false;
+  const holdB = input.holdB ?? false;
+  const fitC = (input.fitC ?? false) && !holdB;
   checkZeta(input.zeta);
-  const count = 2 + (fitC ? 1 : 0) + (fitZeta ? 1 : 0);
+  const count = (holdB ? 1 : 2) + (fitC ? 1 : 0) + (fitZeta ? 1 : 0);
   ensure(bands.length >= count, `${bands.length} bands: expected at least ${count} for the parameters asked`);
   for (const b of bands) {
     ensure(
@@ -109,9 +112,10 @@ export function refineWithSpinOrbit(input: SpinOrbitRefineInput): SpinOrbitRefin
       `band σ ${b.sigma}: expected a positive number`,
     );
   }
-  const cOverB = start.C / start.B;
+  const cOverB = start.B > 0 ? start.C / start.B : 0;
   const unpack = (p: readonly number[]) => {
-    const [dq = 0, B = 0] = p;
+    const dq = p[0] ?? 0;
+    const B = holdB ? start.B : (p[1] ?? 0);
     const C = fitC ? (p[2] ?? 0) : cOverB * B;
     const zeta = fitZeta ? (p[count - 1] ?? 0) : input.zeta;
     return { dq, B, C, zeta };
@@ -121,13 +125,18 @@ export function refineWithSpinOrbit(input: SpinOrbitRefineInput): SpinOrbitRefin
     const r = solve(p);
     return bands.map((b) => (bandEnergy(r, b.level) - b.energy) / (b.sigma ?? 1));
   };
-  const startVector = [start.dq, start.B, ...(fitC ? [start.C] : []), ...(fitZeta ? [input.zeta] : [])];
+  const startVector = [
+    start.dq,
+    ...(holdB ? [] : [start.B]),
+    ...(fitC ? [start.C] : []),
+    ...(fitZeta ? [input.zeta] : []),
+  ];
   const fit = levenbergMarquardt(
     {
       residuals,
       start: startVector,
       lower: startVector.map(() => 0),
-      upper: [1e5, 1e4, ...(fitC ? [5e4] : []), ...(fitZeta ? [MAX_ZETA] : [])],
+      upper: [1e5, ...(holdB ? [] : [1e4]), ...(fitC ? [5e4] : []), ...(fitZeta ? [MAX_ZETA] : [])],
     },
     { maxIterations: 60 },
   );
@@ -142,7 +151,7 @@ export function refineWithSpinOrbit(input: SpinOrbitRefineInput): SpinOrbitRefin
   return {
     ...best,
     fitZeta,
-    errors: standardErrors(fit.jacobian, fit.sumOfSquares, bands.length, fitC, fitZeta),
+    errors: standardErrors(fit.jacobian, fit.sumOfSquares, bands.length, { holdB, fitC, fitZeta }),
     rms,
     bands: calculated,
     converged: fit.converged,
@@ -156,8 +165,7 @@ function standardErrors(
   jacobian: number[][],
   sumOfSquares: number,
   m: number,
-  fitC: boolean,
-  fitZeta: boolean,
+  held: { holdB: boolean; fitC: boolean; fitZeta: boolean },
 ): SpinOrbitRefinement['errors'] {
   const p = jacobian[0]?.length ?? 0;
   if (m <= p) return null;
@@ -171,8 +179,8 @@ function standardErrors(
   const sd = (i: number) => Math.sqrt(Math.max(0, covariance.get(i, i)));
   return {
     dq: sd(0),
-    B: sd(1),
-    C: fitC ? sd(2) : null,
-    zeta: fitZeta ? sd(p - 1) : null,
+    B: held.holdB ? null : sd(1),
+    C: held.fitC ? sd(2) : null,
+    zeta: held.fitZeta ? sd(p - 1) : null,
   };
 }

@@ -69,6 +69,22 @@ describe('--zeta on levels, terms and diagram (in process)', () => {
     expect(readFileSync(join(dir, 'cr.csv'), 'utf8').split('\n')[0]).toMatch(/^Delta\/B,Γ8\(1\)/);
   });
 
+  it('fit --zeta ion refines the best Ni²⁺ solution with ζ held, in text and JSON', async () => {
+    const argv = ['fit', '--ion', 'Ni2+', '--bands', '8500,13800,25300', '--zeta', 'ion'];
+    const text = await runInProcess(argv);
+    expect(text.code).toBe(0);
+    expect(text.stdout).toContain('With spin–orbit coupling (ζ = 649 cm⁻¹, held');
+    const json = JSON.parse((await runInProcess([...argv, '--json'])).stdout);
+    expect(json.spinOrbit.zeta).toBe(649);
+    expect(json.spinOrbit.bands.map((b: { level: string }) => b.level)).toEqual([
+      '3T2g',
+      '3T1g(F)',
+      '3T1g(P)',
+    ]);
+    expect(json.spinOrbit.dq).toBeGreaterThan(780);
+    expect(json.spinOrbit.dq).toBeLessThan(880);
+  });
+
   it('refuses a negative or absurd --zeta, and --zeta ion without an ion, in one line with exit code 2', async () => {
     for (const argv of [
       ['levels', '--d', '3', '--dq', '1740', '--B', '725', '--zeta', '-1'],
@@ -76,6 +92,7 @@ describe('--zeta on levels, terms and diagram (in process)', () => {
       ['levels', '--d', '3', '--dq', '1740', '--B', '725', '--zeta', 'ion'],
       ['terms', 'p2', '--zeta', '100'],
       ['diagram', 'd3', '--zeta', '300'],
+      ['fit', '--ion', 'Ni2+', '--bands', '8500,13800,25300', '--zeta', '-3'],
     ]) {
       const r = await runInProcess(argv, dir);
       expect(r.code).toBe(2);
