@@ -85,6 +85,17 @@ describe('--zeta on levels, terms and diagram (in process)', () => {
     expect(json.spinOrbit.dq).toBeLessThan(880);
   });
 
+  it('crossover --zeta ion puts μ_eff with spin–orbit coupling at the sample beside the spin-only moments', async () => {
+    const argv = ['crossover', '--ion', 'Fe2+', '--B', '800', '--dq', '1150', '--zeta', 'ion'];
+    const text = await runInProcess(argv);
+    expect(text.code).toBe(0);
+    expect(text.stdout).toMatch(/sample, Dq = 1150 cm⁻¹: ground Γ5 \(mainly ⁵T₂g\), μ_eff = /);
+    const json = JSON.parse((await runInProcess([...argv, '--json'])).stdout);
+    expect(json.magnetism[0].spinOnly).toBeCloseTo(4.899, 3);
+    // ⁵T₂g: an unquenched orbital moment puts μ_eff above spin-only at room temperature (Figgis & Lewis 1964).
+    expect(json.magnetismSpinOrbit.points[0].muEff[0]).toBeGreaterThan(5.2);
+  });
+
   it('refuses a negative or absurd --zeta, and --zeta ion without an ion, in one line with exit code 2', async () => {
     for (const argv of [
       ['levels', '--d', '3', '--dq', '1740', '--B', '725', '--zeta', '-1'],
