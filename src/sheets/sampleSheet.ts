@@ -10,6 +10,7 @@ import { InputError } from '../core/errors.js';
 import { findIon } from '../core/ions.js';
 import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
 import type { Geometry } from '../field/labels.js';
+import { MAX_ZETA } from '../field/spinOrbit.js';
 import { splitCsvLine } from './csv.js';
 
 /** Where a sample's spectrum is and how to read it (see the spectrum reader for each field). */
@@ -46,6 +47,8 @@ export interface SampleSpec {
   readonly spinForbidden: boolean;
   /** The ground-state spin when it is known (from magnetism, say); the fit then keeps only that. */
   readonly spinState?: 'high' | 'low';
+  /** Spin–orbit ζ, cm⁻¹ (the sheet's number, or the ion's free-ion value for "ion"): the report then adds μ_eff with it. */
+  readonly zeta?: number;
   readonly notes?: string;
 }
 
@@ -91,6 +94,7 @@ const optionsShape = {
   cb: z.number().positive().optional(),
   fitC: z.boolean().optional(),
   spinForbidden: z.boolean().optional(),
+  zeta: z.union([z.number().min(0).max(MAX_ZETA), z.literal('ion')]).optional(),
 };
 
 const sampleSchema = z
@@ -183,6 +187,7 @@ const EXPECTED: Readonly<Record<string, string>> = {
   fitC: 'true or false',
   spinForbidden: 'true or false',
   spinState: '"high" or "low"',
+  zeta: `a spin–orbit ζ in cm⁻¹ from 0 to ${MAX_ZETA}, or "ion" for the free-ion value`,
   assign: 'level labels as text ("3T2g,3T1g(F)") or a list of them',
   notes: 'text',
 };
@@ -220,8 +225,13 @@ function checkSample(
   const s = parsed.data;
   const fail = (field: string, message: string) => ({ problem: { sample: s.name, field, message } });
   let ion: string;
+  let zeta: number | undefined;
   try {
-    ion = findIon(s.ion).ion;
+    const found = findIon(s.ion);
+    ion = found.ion;
+    const z = s.zeta ?? defaults.zeta;
+    zeta = z === 'ion' ? found.zeta : z;
+    if (z === 'ion' && zeta === undefined) return fail('zeta', `no free-ion ζ is tabulated for ${ion}`);
   } catch (e) {
     return fail('ion', (e as Error).message);
   }
@@ -269,6 +279,7 @@ function checkSample(
       ...(assign ? { assign } : {}),
       spinForbidden: s.spinForbidden ?? defaults.spinForbidden ?? false,
       ...(s.spinState ? { spinState: s.spinState } : {}),
+      ...(zeta !== undefined ? { zeta } : {}),
       ...(s.notes ? { notes: s.notes } : {}),
     },
   };
@@ -294,12 +305,13 @@ const CSV_COLUMNS: Readonly<Record<string, string>> = {
   assign: 'assign',
   spin_forbidden: 'spinForbidden',
   spin_state: 'spinState',
+  zeta: 'zeta',
   notes: 'notes',
 };
 
 /**
  * The simple form: a header row (name, ion, geometry, bands, spectrum, cb, fit_c, assign,
- * spin_forbidden, notes; any order, only name and ion required), then one sample a row. Bands in
+ * spin_forbidden, spin_state, zeta, notes; any order, only name and ion required), then one sample a row. Bands in
  * one cell are separated by `;` (or commas inside double quotes). Lines starting with `#` are
  * comments.
  */
@@ -342,7 +354,8 @@ function csvSheet(text: string): unknown {
 }
 
 function csvValue(field: string, cell: string): unknown {
-  if (field === 'cb') {
+  if (field === 'zeta' && cell.toLowerCase() === 'ion') return 'ion';
+  if (field === 'cb' || field === 'zeta') {
     const x = Number(cell);
     return Number.isFinite(x) ? x : cell;
   }
