@@ -6,6 +6,7 @@ import { benchFit } from './fit.js';
 import { benchLowSymmetry } from './lowSymmetry.js';
 import { benchSolver } from './solver.js';
 import { benchSpectrum } from './spectrum.js';
+import { benchSpinOrbit } from './spinOrbit.js';
 
 const benches: [string, () => void | Promise<void>][] = [
   ['solver', benchSolver],
@@ -14,6 +15,7 @@ const benches: [string, () => void | Promise<void>][] = [
   ['low symmetry', benchLowSymmetry],
   ['crossover', benchCrossover],
   ['spectrum', benchSpectrum],
+  ['spin-orbit', benchSpinOrbit],
 ];
 
 console.log(`termsplit benchmark — Node ${process.version}, ${new Date().toISOString().slice(0, 10)}\n`);

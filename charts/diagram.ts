@@ -203,7 +203,8 @@ const GEOMETRY_NAME = { oct: 'an octahedral (O_h)', tet: 'a tetrahedral (T_d)' }
 function diagramTitleMarkup(diagram: CorrelationDiagram, ion: string | undefined): string {
   const who = `${ion === undefined ? '' : `${ionMarkup(ion)}, `}d^${diagram.n}`;
   const ratio = diagram.n === 1 || diagram.n === 9 ? '' : `, C/B = ${diagram.cOverB.toFixed(2)}`;
-  return `${who} in ${GEOMETRY_NAME[diagram.geometry]} field${ratio}`;
+  const zeta = diagram.zetaOverB === undefined ? '' : `, ζ/B = ${diagram.zetaOverB.toFixed(2)}`;
+  return `${who} in ${GEOMETRY_NAME[diagram.geometry]} field${ratio}${zeta}`;
 }
 
 /** The figure title as plain text (the PDF document title). */
@@ -287,7 +288,9 @@ function diagramLabels(
       }
       const colors = diagram.regions.length > 1 ? [STYLE.allowed, STYLE.allowedLowSpin] : [STYLE.allowed];
       const anyForbidden = diagram.curves.some((c) => diagram.regions.some((r) => r.S !== c.S));
-      drawKey(ctx, spinKey(colors, anyForbidden), chart.chartArea.right, chart.height - 16);
+      // With spin–orbit coupling spin is no good label: every curve is drawn alike, with no key.
+      if (diagram.zetaOverB === undefined)
+        drawKey(ctx, spinKey(colors, anyForbidden), chart.chartArea.right, chart.height - 16);
       onLabels?.(placed.map((p) => ({ text: p.text, kind: p.kind, box: p.box })));
     },
   };

@@ -42,6 +42,17 @@ export {
 export { type MomentEstimate, momentEstimate, spinOnlyMoment } from './analysis/magnetism.js';
 export { hasSpinChoice } from './analysis/spinChoice.js';
 export {
+  type SpinOrbitCurve,
+  type SpinOrbitDiagram,
+  type SpinOrbitSweepOptions,
+  sweepSpinOrbit,
+} from './analysis/spinOrbitSweep.js';
+export {
+  type MomentPoint,
+  type SusceptibilityInput,
+  susceptibility,
+} from './analysis/susceptibility.js';
+export {
   type CorrelationDiagram,
   type DiagramCrossing,
   type DiagramCurve,
@@ -53,6 +64,7 @@ export {
 } from './analysis/sweep.js';
 /** The free ion: microstates, terms, Hund's rules, J levels, term energies in Racah B and C. */
 export { type FreeIonTerm, freeIonTerms } from './atom/freeIon.js';
+export { type FreeIonLevel, freeIonLevels } from './atom/jLevels.js';
 export { type Microstate, microstates } from './atom/microstates.js';
 export {
   type Configuration,
@@ -96,10 +108,19 @@ export {
   type OrbitalLevel,
   solveDistorted,
 } from './field/distortedComplex.js';
+/** The ion in a cubic field with spin–orbit coupling: double-group levels with parentage. */
+export type { DoubleIrrep } from './field/doubleGroup.js';
 export { GEOMETRY_PRESETS, type GeometryPreset, presetLigands } from './field/geometries.js';
 export { unicodeLabel } from './field/labels.js';
 export type { CubicParent, FieldLevel } from './field/lowSymmetrySolver.js';
 export { type PointGroup, pointGroup } from './field/pointGroups.js';
+export {
+  type ParentWeight,
+  type SpinOrbitInput,
+  type SpinOrbitLevel,
+  type SpinOrbitResult,
+  solveSpinOrbit,
+} from './field/spinOrbitSolver.js';
 export {
   type DistortedBand,
   type DistortedFitInput,
@@ -108,6 +129,7 @@ export {
   fitDistorted,
   fitParameterNames,
 } from './fit/distortedFit.js';
+
 /** Fitting Dq, B (and C) to observed band maxima. */
 export { fitBands } from './fit/fitBands.js';
 export {
@@ -125,6 +147,13 @@ export {
 } from './fit/fitTypes.js';
 export { type FitSpinVerdict, fitSpinVerdict } from './fit/fitVerdict.js';
 export type { FitWarning } from './fit/fitWarnings.js';
+export {
+  type AssignedBand,
+  type RefinedBand,
+  refineWithSpinOrbit,
+  type SpinOrbitRefineInput,
+  type SpinOrbitRefinement,
+} from './fit/spinOrbitRefinement.js';
 /** Sample sheets and series of samples. */
 export { parseSampleSheet, type SampleSheet, type SampleSpec } from './sheets/sampleSheet.js';
 export { type SeriesEntry, seriesOrders, seriesTable } from './sheets/series.js';

@@ -9,7 +9,8 @@ import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { DEFAULT_ENERGY_UNIT } from '../../src/core/defaults.js';
 import { parseUnit } from '../../src/core/units.js';
-import { type FitResult, fitBands, InputError, parseEnergyList } from '../../src/index.js';
+import { refineWithSpinOrbit, type SpinOrbitRefinement } from '../../src/fit/spinOrbitRefinement.js';
+import { type FitResult, findIon, fitBands, InputError, parseEnergyList } from '../../src/index.js';
 import { type DistortedFitOptions, distortedFitCommand } from '../distorted.js';
 import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
@@ -27,6 +28,8 @@ import {
 } from '../options.js';
 import { fitJson, fitText } from '../present/fitPresent.js';
 import { fittedDiagram } from '../present/fittedDiagram.js';
+import { refinementJson, refinementText } from '../present/spinOrbitPresent.js';
+import { ZETA_FACTOR_HELP, zetaOption } from '../zetaOption.js';
 
 /** Options of `termsplit fit`. */
 export interface FitOptions {
@@ -43,6 +46,8 @@ export interface FitOptions {
   spinState?: string;
   B?: string;
   diagram?: string;
+  zeta?: string;
+  zetaFactor?: string;
   json?: boolean;
 }
 
@@ -92,6 +97,11 @@ export function registerFit(program: Command, io: Io): void {
       'with a geometry: the parameters to fit, e.g. "eSigma(eq),ePi(eq),B" (default: all and B)',
     )
     .option('--start-B <cm-1>', 'with a geometry: starting Racah B (default: 0.75 × the free-ion B)')
+    .option(
+      '--zeta <cm-1|ion>',
+      'then refine the best solution with spin–orbit coupling, ζ held (cm⁻¹, or "ion" for the free-ion value)',
+    )
+    .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('--json', 'print one JSON object on stdout');
   addFieldOptions(command).action((opts: FitOptions & DistortedFitOptions) => {
     if (hasFieldOptions(opts)) {
@@ -100,6 +110,7 @@ export function registerFit(program: Command, io: Io): void {
         ['--spin-forbidden', opts.spinForbidden],
         ['--spin-state', opts.spinState],
         ['--diagram', opts.diagram],
+        ['--zeta', opts.zeta],
       ] as const) {
         if (given !== undefined)
           throw new InputError(`${flag} is for cubic fits: leave it out with a geometry`);
@@ -168,6 +179,8 @@ function fitCommand(opts: FitOptions, io: Io): string {
   }
   const { result, ion, cOrigin } = fitted;
   const best = result.solutions[0];
+  const zeta = zetaOption(opts.zeta, opts.zetaFactor, opts.ion === undefined ? undefined : findIon(opts.ion));
+  const spinOrbit = zeta === undefined || !best ? undefined : refineBest(result, best, zeta);
   if (diagramPath !== undefined && diagramFormat !== undefined && best) {
     writeFileAtomic(diagramPath, fittedDiagram(result, best, diagramFormat, ion));
   }
@@ -175,9 +188,33 @@ function fitCommand(opts: FitOptions, io: Io): string {
     diagramPath !== undefined && best
       ? `Correlation diagram with the sample written to ${opts.diagram}\n`
       : '';
-  if (!opts.json) return fitText(result, ion, cOrigin) + figureNote;
+  if (!opts.json) {
+    return fitText(result, ion, cOrigin) + (spinOrbit ? `\n${refinementText(spinOrbit)}` : '') + figureNote;
+  }
   return jsonText({
     ...(diagramPath !== undefined ? { diagram: best ? opts.diagram : null } : {}),
     ...fitJson(result, ion, cOrigin),
+    ...(spinOrbit ? { spinOrbit: refinementJson(spinOrbit) } : {}),
+  });
+}
+
+/** The best solution refined with spin–orbit coupling, each band on the centroid of its assigned level's components. */
+function refineBest(
+  result: FitResult,
+  best: FitResult['solutions'][number],
+  zeta: number,
+): SpinOrbitRefinement {
+  return refineWithSpinOrbit({
+    n: result.n,
+    geometry: result.geometry,
+    start: { dq: best.dq, B: best.B, C: best.C },
+    zeta,
+    fitC: best.cFitted,
+    holdB: best.bHeld || result.n === 1 || result.n === 9,
+    bands: best.assignments.map((a) => ({
+      energy: a.observed,
+      level: a.label,
+      ...(a.sigma !== null ? { sigma: a.sigma } : {}),
+    })),
   });
 }

@@ -11,7 +11,16 @@ import { formatOfPath } from '../../charts/render.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
 import { unicodeConfiguration, unicodeTerm } from '../../src/field/labels.js';
-import { type CubicLevel, cmToEv, cmToNm, cubicCautions, unicodeLabel } from '../../src/index.js';
+import { type SpinOrbitResult, solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
+import {
+  type CubicLevel,
+  cmToEv,
+  cmToNm,
+  cubicCautions,
+  findIon,
+  InputError,
+  unicodeLabel,
+} from '../../src/index.js';
 import { distortedLevels } from '../distorted.js';
 import { addFieldOptions, type FieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFileAtomic } from '../files.js';
@@ -26,9 +35,13 @@ import {
   type SolvedLevels,
 } from '../options.js';
 import { levelJson } from '../present/levelPresent.js';
+import { spinOrbitJson, spinOrbitText } from '../present/spinOrbitPresent.js';
+import { ZETA_FACTOR_HELP, ZETA_HELP, zetaOption } from '../zetaOption.js';
 
 /** Options of `termsplit levels`. */
 export interface LevelsOptions extends LevelOptions {
+  zeta?: string;
+  zetaFactor?: string;
   output?: string;
   json?: boolean;
 }
@@ -47,25 +60,44 @@ export function registerLevels(program: Command, io: Io): void {
     .option('--C <cm-1>', 'Racah C of the complex, cm⁻¹')
     .option('--cb <ratio>', cbHelp('C/B instead of --C'))
     .option(...GEOMETRY_OPTION)
+    .option('--zeta <cm-1|ion>', ZETA_HELP)
+    .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('-o, --output <file>', 'also draw the energy-level diagram, free ion → field: .png, .svg or .pdf')
     .option('--json', 'print one JSON object on stdout');
   addFieldOptions(command).action((opts: LevelsOptions & FieldOptions) => {
     if (hasFieldOptions(opts)) {
+      // The general-field solver has no spin–orbit term yet.
+      if (opts.zeta !== undefined)
+        throw new InputError('--zeta goes with a cubic field: leave it out with a geometry');
       io.out(distortedLevels(opts, io));
       return;
     }
     const figure = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
     const format = opts.output === undefined ? undefined : formatOfPath(opts.output);
     const solved = levelsFromOptions(opts);
+    const spinOrbit = spinOrbitFromOptions(opts, solved);
     if (figure !== undefined && format !== undefined) {
       const options = solved.ion ? { ion: solved.ion } : {};
       writeFileAtomic(figure, renderLevelDiagram(solved.result, { format }, options));
     }
-    io.out(levelsText(opts, solved, figure));
+    io.out(levelsText(opts, solved, figure, spinOrbit));
   });
 }
 
-function levelsText(opts: LevelsOptions, solved: SolvedLevels, figure: string | undefined): string {
+/** The levels with spin–orbit coupling when `--zeta` is given, at the same Dq, B and C. */
+function spinOrbitFromOptions(opts: LevelsOptions, solved: SolvedLevels): SpinOrbitResult | undefined {
+  const zeta = zetaOption(opts.zeta, opts.zetaFactor, opts.ion === undefined ? undefined : findIon(opts.ion));
+  if (zeta === undefined) return undefined;
+  const { n, geometry, dq, B, C } = solved.result;
+  return solveSpinOrbit({ n, geometry, dq, B, C, zeta });
+}
+
+function levelsText(
+  opts: LevelsOptions,
+  solved: SolvedLevels,
+  figure: string | undefined,
+  spinOrbit: SpinOrbitResult | undefined,
+): string {
   const { result, cOrigin, ion } = solved;
   const cautions = cubicCautions(result);
   if (opts.json) {
@@ -83,6 +115,7 @@ function levelsText(opts: LevelsOptions, solved: SolvedLevels, figure: string | 
       levels: result.levels.map(levelJson),
       bands: result.levels.filter((l) => l !== result.ground && l.spinAllowed).map((l) => l.label),
       cautions: cautions.map((c) => c.message),
+      ...(spinOrbit ? { spinOrbit: spinOrbitJson(spinOrbit) } : {}),
       ...(figure !== undefined ? { figure } : {}),
     });
   }
@@ -127,6 +160,7 @@ function levelsText(opts: LevelsOptions, solved: SolvedLevels, figure: string | 
       cautions.map((c) => c.message),
     ),
   );
+  if (spinOrbit) lines.push('', spinOrbitText(spinOrbit));
   lines.push('');
   lines.push('These are model predictions for an ideal cubic field, not measurements.');
   if (figure !== undefined) lines.push(`Level diagram written to ${figure}`);

@@ -1,7 +1,8 @@
 /**
  * The work on one sample of a report: its bands (given, or found in its spectrum), the band fit,
  * the correlation diagram with the sample on it, the spectrum overlay, and the spin-state
- * verdict for dⁿ with a choice of spin. The sample's checked values go to the library functions
+ * verdict for dⁿ with a choice of spin, and μ_eff with spin–orbit coupling where the sheet gives
+ * a ζ. The sample's checked values go to the library functions
  * as numbers. Plain data in and out, so it can run in a worker thread.
  */
 
@@ -19,6 +20,10 @@ import {
   InputError,
   type SampleSpec,
   type SeriesEntry,
+  solveCubic,
+  solveSpinOrbit,
+  spinOnlyMoment,
+  susceptibility,
 } from '../../src/index.js';
 import { DEFAULT_BASELINE } from '../../src/spectra/bandFinding.js';
 import { parseRange } from '../../src/spectra/energyRange.js';
@@ -38,6 +43,22 @@ export interface SampleTask {
   readonly sheetDir: string;
   /** File-name stem for the sample's tables and figures. */
   readonly slug: string;
+}
+
+/** Temperatures at which the report gives μ_eff with spin–orbit coupling, K. */
+export const REPORT_TEMPERATURES = [300, 80, 2] as const;
+
+/** μ_eff with spin–orbit coupling at the fitted parameters, beside the spin-only moment of the ground spin. */
+export interface MagnetismReport {
+  readonly zeta: number;
+  /** The fitted ground state without spin–orbit coupling, its S and μ_so. */
+  readonly ground: string;
+  readonly S: number;
+  readonly spinOnly: number;
+  /** The ground level with spin–orbit coupling, e.g. `Γ6(1)`. */
+  readonly groundSpinOrbit: string;
+  readonly temperatures: readonly number[];
+  readonly muEff: readonly number[];
 }
 
 /** The spin-state verdict of a sample, as reported: the crossings, the sample's side and margin, cautions. */
@@ -70,6 +91,8 @@ export interface SampleResult {
   readonly best: ReturnType<typeof solutionJson>;
   readonly series: SeriesEntry;
   readonly spin?: SpinReport;
+  /** μ_eff with spin–orbit coupling beside spin-only, when the sheet gives the sample a ζ. */
+  readonly magnetism?: MagnetismReport;
   readonly cautions: readonly string[];
   /** The fit with the sample's geometry, when the sheet gives one (`structure`). */
   readonly structure?: DistortedSampleReport;
@@ -132,6 +155,8 @@ function analyse(task: SampleTask): SampleResult {
     : undefined;
   const spin = spinReport(ion.n, sample.geometry, best);
   const structure = structureFit(task, ion, ratio, result.bands, cautions);
+  const magnetism =
+    sample.zeta === undefined ? undefined : magnetismReport(ion.n, sample.geometry, best, sample.zeta);
   return {
     ok: true,
     name: sample.name,
@@ -147,6 +172,7 @@ function analyse(task: SampleTask): SampleResult {
     best: solutionJson(best),
     series: seriesEntry(sample, ion.ion, best, spin),
     ...(spin ? { spin } : {}),
+    ...(magnetism ? { magnetism } : {}),
     cautions: [...new Set(cautions)],
     ...(structure ? { structure } : {}),
     svg: { ...(diagram ? { diagram } : {}), ...(spectrumSvg ? { spectrum: spectrumSvg } : {}) },
@@ -266,6 +292,21 @@ function spectrumBands(spectrum: SpectrumAnalysis): SampleResult['spectrumBands'
     fwhm: b.fwhm,
     flags: b.flags,
   }));
+}
+
+function magnetismReport(n: number, geometry: Geometry, best: FitSolution, zeta: number): MagnetismReport {
+  const { dq, B, C } = best;
+  const cubic = solveCubic({ n, geometry, dq, B, C }).ground;
+  const temperatures = [...REPORT_TEMPERATURES];
+  return {
+    zeta,
+    ground: cubic.label,
+    S: cubic.S,
+    spinOnly: spinOnlyMoment(cubic.S),
+    groundSpinOrbit: solveSpinOrbit({ n, geometry, dq, B, C, zeta, parentage: false }).ground.label,
+    temperatures,
+    muEff: susceptibility({ n, geometry, dq, B, C, zeta, temperatures }).map((p) => p.muEff),
+  };
 }
 
 function spinReport(n: number, geometry: Geometry, best: FitSolution): SpinReport | undefined {

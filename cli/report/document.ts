@@ -362,6 +362,17 @@ function spinBlocks(s: SampleResult): Block[] {
         'The model places the crossover; magnetic or Mössbauer measurement decides.',
     });
   }
+  const mag = s.magnetism;
+  if (mag) {
+    out.push({
+      kind: 'paragraph',
+      text:
+        `Magnetic moment with spin–orbit coupling (ζ = ${fixed(mag.zeta)} cm⁻¹, Van Vleck over all states at the fitted ` +
+        `parameters): μ_eff = ${mag.muEff.map((m, i) => `${fixed(m, 2)} μ_B at ${mag.temperatures[i]} K`).join(', ')}, ` +
+        `beside the spin-only ${fixed(mag.spinOnly, 2)} μ_B of ${unicodeLabel(mag.ground)} (ground level ` +
+        `${mag.groundSpinOrbit.replace(/\(\d+\)$/, '')}). An ideal cubic ion: distortion and exchange change real moments; measurement decides.`,
+    });
+  }
   return out;
 }
 

@@ -10,6 +10,7 @@ import { InputError } from '../core/errors.js';
 import { findIon } from '../core/ions.js';
 import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
 import type { Geometry } from '../field/labels.js';
+import { MAX_ZETA } from '../field/spinOrbit.js';
 import { splitCsvLine } from './csv.js';
 import { geometrySchema, type SheetGeometry } from './geometrySheet.js';
 
@@ -54,6 +55,8 @@ export interface SampleSpec {
   readonly spinState?: 'high' | 'low';
   /** The complex's geometry, for a fit of a distorted complex besides the cubic one (JSON sheets). */
   readonly structure?: SheetGeometry;
+  /** Spin–orbit ζ, cm⁻¹ (the sheet's number, or the ion's free-ion value for "ion"): the report then adds μ_eff with it. */
+  readonly zeta?: number;
   readonly notes?: string;
 }
 
@@ -100,6 +103,7 @@ const optionsShape = {
   fitC: z.boolean().optional(),
   spinForbidden: z.boolean().optional(),
   keepBands: z.boolean().optional(),
+  zeta: z.union([z.number().min(0).max(MAX_ZETA), z.literal('ion')]).optional(),
 };
 
 const sampleSchema = z
@@ -194,6 +198,7 @@ const EXPECTED: Readonly<Record<string, string>> = {
   spinForbidden: 'true or false',
   keepBands: 'true or false',
   spinState: '"high" or "low"',
+  zeta: `a spin–orbit ζ in cm⁻¹ from 0 to ${MAX_ZETA}, or "ion" for the free-ion value`,
   assign: 'level labels as text ("3T2g,3T1g(F)") or a list of them',
   structure:
     'an object with one of shape, xyz, tetragonal, trigonal, and optionally angle, metal, cutoff, bonds, eds, tolerance, free, assign',
@@ -233,8 +238,13 @@ function checkSample(
   const s = parsed.data;
   const fail = (field: string, message: string) => ({ problem: { sample: s.name, field, message } });
   let ion: string;
+  let zeta: number | undefined;
   try {
-    ion = findIon(s.ion).ion;
+    const found = findIon(s.ion);
+    ion = found.ion;
+    const z = s.zeta ?? defaults.zeta;
+    zeta = z === 'ion' ? found.zeta : z;
+    if (z === 'ion' && zeta === undefined) return fail('zeta', `no free-ion ζ is tabulated for ${ion}`);
   } catch (e) {
     return fail('ion', (e as Error).message);
   }
@@ -286,6 +296,7 @@ function checkSample(
       keepBands: s.keepBands ?? defaults.keepBands ?? false,
       ...(s.spinState ? { spinState: s.spinState } : {}),
       ...(s.structure ? { structure: s.structure } : {}),
+      ...(zeta !== undefined ? { zeta } : {}),
       ...(s.notes ? { notes: s.notes } : {}),
     },
   };
@@ -312,12 +323,14 @@ const CSV_COLUMNS: Readonly<Record<string, string>> = {
   spin_forbidden: 'spinForbidden',
   keep_bands: 'keepBands',
   spin_state: 'spinState',
+  zeta: 'zeta',
   notes: 'notes',
 };
 
 /**
  * The simple form: a header row (name, ion, geometry, bands, spectrum, cb, fit_c, assign,
- * spin_forbidden, keep_bands, spin_state, notes; any order, only name and ion required), then one sample a row. Bands in
+ * spin_forbidden, keep_bands, spin_state, zeta, notes; any order, only name and ion required), then one sample a
+ * row. Bands in
  * one cell are separated by `;` (or commas inside double quotes). Lines starting with `#` are
  * comments.
  */
@@ -360,7 +373,8 @@ function csvSheet(text: string): unknown {
 }
 
 function csvValue(field: string, cell: string): unknown {
-  if (field === 'cb') {
+  if (field === 'zeta' && cell.toLowerCase() === 'ion') return 'ion';
+  if (field === 'cb' || field === 'zeta') {
     const x = Number(cell);
     return Number.isFinite(x) ? x : cell;
   }
