@@ -8,6 +8,7 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { DEFAULT_ENERGY_UNIT } from '../../src/core/defaults.js';
+import { COMPLEX_B_LIMIT } from '../../src/core/limits.js';
 import { parseUnit } from '../../src/core/units.js';
 import { type FitResult, fitBands, InputError, parseEnergyList } from '../../src/index.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
@@ -96,7 +97,7 @@ export function fitFromOptions(
     b.sigma === undefined ? { energy: b.value } : { energy: b.value, sigma: b.sigma },
   );
   const single = choice.n === 1 || choice.n === 9;
-  const heldB = numberOption('--B', opts.B, { positive: true, what: 'a positive number of cm⁻¹' });
+  const heldB = numberOption('--B', opts.B, COMPLEX_B_LIMIT);
   const ratio = ratioChoice(undefined, undefined, opts.cb, choice.ion);
   const assignments =
     opts.assign === undefined

@@ -33,7 +33,8 @@ export async function runSamples(
 ): Promise<SampleOutcome[]> {
   const jobs = Math.max(
     1,
-    Math.min(options.jobs ?? Math.min(availableParallelism(), DEFAULT_MAX_JOBS), tasks.length),
+    // More threads than cores only cost memory.
+    Math.min(options.jobs ?? DEFAULT_MAX_JOBS, availableParallelism(), tasks.length),
   );
   const script = new URL('./worker.js', import.meta.url);
   const bar = progress(io, `report: ${tasks.length} sample${tasks.length === 1 ? '' : 's'}`);
