@@ -11,6 +11,7 @@ import {
   C_OVER_B_LIMIT,
   COMPLEX_B_LIMIT,
   checkLimit,
+  DELTA_OVER_B_LIMIT,
   DQ_LIMIT,
   type Limit,
   limitText,
@@ -79,6 +80,19 @@ export function numberWithSigma(
     throw new InputError(`${name} "${text}": expected a positive uncertainty up to ${limit.max} after ±`);
   }
   return { value, sigma };
+}
+
+/**
+ * Checks the Δ/B = 10Dq/B a sample's Dq and B imply, naming both options as given.
+ * @throws InputError `--dq "10000" with B = 10 cm⁻¹ gives Δ/B = 10000: expected Δ/B up to 200`.
+ */
+export function checkSampleRatio(dqText: string | undefined, dq: number, B: number): void {
+  const ratio = (10 * dq) / B;
+  if (!(ratio <= DELTA_OVER_B_LIMIT.max)) {
+    throw new InputError(
+      `--dq "${dqText?.trim()}" with B = ${Number(B.toPrecision(4))} cm⁻¹ gives Δ/B = 10Dq/B = ${Number(ratio.toPrecision(4))}: expected Δ/B up to ${DELTA_OVER_B_LIMIT.max}`,
+    );
+  }
 }
 
 /** Parses `--geometry`. */

@@ -51,6 +51,7 @@ import { fixed, jsonText, table } from '../format.js';
 import { type Io, progress } from '../io.js';
 import {
   cbHelp,
+  checkSampleRatio,
   configOrIon,
   GEOMETRY_OPTION,
   geometryOption,
@@ -313,6 +314,7 @@ export function crossoverCommand(
   const input = fitted?.input ?? given;
   const sampleDq = fitted?.dq ?? numberWithSigma('--dq', opts.dq, positive(DQ_LIMIT));
   const { n, geometry, B, C } = input;
+  if (sampleDq && B > 0) checkSampleRatio(opts.dq ?? fixed(sampleDq.value), sampleDq.value, B);
   const analysis = crossoverAnalysis({ n, geometry, B, C });
   const verdict = sampleDq
     ? sampleVerdict(analysis, {

@@ -45,11 +45,14 @@ export async function runSamples(
   };
   try {
     if (jobs === 1 || !existsSync(fileURLToPath(script))) {
-      return tasks.map((t) => {
-        const outcome = analyseSample(t);
+      const outcomes: SampleOutcome[] = [];
+      for (const t of tasks) {
+        outcomes.push(analyseSample(t));
         tick();
-        return outcome;
-      });
+        // A turn of the event loop between samples, so that Ctrl-C is handled without waiting for all.
+        await new Promise((res) => setImmediate(res));
+      }
+      return outcomes;
     }
     const outcomes = new Array<SampleOutcome | undefined>(tasks.length);
     let next = 0;

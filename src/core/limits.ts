@@ -57,8 +57,8 @@ export const BAND_WIDTH_LIMIT: Limit = { what: 'a number of cm⁻¹', min: 1, ma
 /** The number of bands fitted in one spectrum window. */
 export const BAND_COUNT_LIMIT: Limit = { what: 'a whole number', min: 1, max: 30, integer: true };
 
-/** The number of Δ/B points of a diagram. */
-export const POINTS_LIMIT: Limit = { what: 'a whole number', min: 2, max: 100_000, integer: true };
+/** The number of Δ/B points of a diagram: 5000 take a few seconds; far more only take minutes. */
+export const POINTS_LIMIT: Limit = { what: 'a whole number', min: 2, max: 5_000, integer: true };
 
 /** Concentration, mol/L. */
 export const CONCENTRATION_LIMIT: Limit = { what: 'a number of mol/L', min: 1e-12, max: 100 };
