@@ -103,6 +103,12 @@ export function fitFromOptions(
     opts.assign === undefined
       ? undefined
       : splitLabels(opts.assign).map((a) => (a === '?' || a === '' ? null : a));
+  // Fewer labels than bands would leave the last bands free without saying so.
+  if (assignments && assignments.length !== bands.length) {
+    throw new InputError(
+      `--assign "${opts.assign}": ${assignments.length} label${assignments.length === 1 ? '' : 's'} for ${bands.length} band${bands.length === 1 ? '' : 's'}: expected one per band, in band order (? leaves a band free)`,
+    );
+  }
   const result = fitBands({
     n: choice.n,
     geometry,
