@@ -14,7 +14,7 @@ const SIGNAL_NUMBERS = { SIGINT: 2, SIGTERM: 15 } as const;
 for (const [signal, number] of Object.entries(SIGNAL_NUMBERS)) {
   process.once(signal, () => {
     const undone = removeTemporaries();
-    const what = undone.length > 0 ? undone.join('; ') : 'no output was being written';
+    const what = undone.length > 0 ? undone.join('; ') : 'no file was left half-written';
     process.stderr.write(`\ntermsplit: interrupted (${signal}): ${what}\n`);
     process.exit(128 + number);
   });
