@@ -76,8 +76,8 @@ export function numberWithSigma(
   const value = checkLimit(name, parseDecimal(name, main, limit.what), limit, text.trim());
   if (spread === undefined) return { value };
   const sigma = parseDecimal(`${name} uncertainty`, spread, 'a positive number');
-  if (!(sigma > 0) || !(sigma <= limit.max)) {
-    throw new InputError(`${name} "${text}": expected a positive uncertainty up to ${limit.max} after ±`);
+  if (!(sigma >= 1e-3) || !(sigma <= limit.max)) {
+    throw new InputError(`${name} "${text}": expected an uncertainty from 0.001 to ${limit.max} after ±`);
   }
   return { value, sigma };
 }

@@ -254,6 +254,16 @@ describe('silent misreads are now refused or named', () => {
       ['fit', '--ion', 'Ni2+', '--bands', '8500,13800,25300', '--assign', '3T2g'],
       /1 label for 3 bands: expected one per band/,
     ],
+    [
+      ['fit', '--ion', 'Ni2+', '--bands', '1e-320,13800,25300'],
+      /energy "1e-320": expected 100 to 200000 cm⁻¹/,
+    ],
+    [
+      ['fit', '--ion', 'Ni2+', '--bands', '0.0001nm,13800,25300'],
+      /energy "0.0001nm": expected 100 to 200000/,
+    ],
+    [['fit', '--ion', 'Ni2+', '--bands', '8500±1e308,13800±1,25300±1'], /uncertainty in "8500±1e308"/],
+    [['crossover', 'd6', '--B', '700±1e-320'], /--B "700±1e-320": expected an uncertainty from 0.001/],
   ])('%j is refused, not downgraded or guessed', async (argv, message) => {
     await refused(argv, message);
   });
