@@ -19,6 +19,7 @@ import { parse } from 'parse5';
 import { afterAll, describe, expect, it } from 'vitest';
 import { readTextFile } from '../../cli/files.js';
 import { uniformRandom } from '../../src/numeric/seededRandom.js';
+import { parseSampleSheet } from '../../src/sheets/sampleSheet.js';
 import { readSpectrum } from '../../src/spectra/spectrumAnalysis.js';
 import { ROOT, runInProcess } from '../cliRunner.js';
 
@@ -299,6 +300,28 @@ describe('silent misreads are now refused or named', () => {
     ]) {
       await refused(argv, bigCb);
     }
+  });
+});
+
+describe('sample sheets take the same ranges as the options', () => {
+  it('parseSampleSheet refuses a C/B of 1000 or 1e-320 and a denormal concentration, sample by sample', () => {
+    const sheet = parseSampleSheet(
+      JSON.stringify({
+        samples: [
+          { name: 'ok', ion: 'Ni2+', bands: '8500,13800,25300', cb: 4.5 },
+          { name: 'big', ion: 'Ni2+', bands: '8500,13800,25300', cb: 1000 },
+          { name: 'tiny', ion: 'Ni2+', bands: '8500,13800,25300', cb: 1e-320 },
+          { name: 'conc', ion: 'Cr3+', spectrum: { file: 'cr.csv', conc: 1e-320, path: 1 } },
+        ],
+      }),
+      'json',
+    );
+    expect(sheet.samples.map((s) => s.name)).toEqual(['ok']);
+    expect(sheet.problems.map((p) => `${p.sample} ${p.field}: ${p.message}`)).toEqual([
+      'big cb: expected a positive number from 1 to 20 (C/B), got 1000',
+      'tiny cb: expected a positive number from 1 to 20 (C/B), got 1e-320',
+      'conc spectrum.conc: expected a number of mol/L from 1e-12 to 100, got 1e-320',
+    ]);
   });
 });
 
