@@ -9,6 +9,7 @@ import { resolve } from 'node:path';
 import { renderDistortionDiagram } from '../charts/distortionDiagram.js';
 import { formatOfPath } from '../charts/render.js';
 import { DEFAULT_SWEEP_STEPS, distortionCsv, distortionSweep } from '../src/analysis/distortionSweep.js';
+import { B_LIMIT, COMPLEX_B_LIMIT, COORDINATE_LIMIT, ENERGY_LIMIT, STEPS_LIMIT } from '../src/core/limits.js';
 import { parseUnit } from '../src/core/units.js';
 import type { FieldSpec } from '../src/field/distortedComplex.js';
 import { solveDistorted } from '../src/field/distortedComplex.js';
@@ -52,7 +53,7 @@ function reader(io: Io): (path: string) => string {
 function racah(opts: DistortedOptions, bRequired: boolean) {
   const choice = ionOrCount(opts.ion, opts.d);
   const single = choice.n === 1 || choice.n === 9;
-  const B = numberOption('--B', opts.B, { min: 0, what: 'a non-negative number of cm⁻¹' });
+  const B = numberOption('--B', opts.B, B_LIMIT);
   if (B === undefined && bRequired && !single)
     throw new InputError('--B is required: give Racah B of the complex in cm⁻¹');
   const ratio = ratioChoice(B, opts.C, opts.cb, choice.ion);
@@ -117,7 +118,7 @@ export function distortedFitCommand(opts: DistortedFitOptions, io: Io): string {
   const held = opts.B !== undefined;
   const startB = held
     ? B
-    : (numberOption('--start-B', opts.startB, { positive: true, what: 'a positive number of cm⁻¹' }) ??
+    : (numberOption('--start-B', opts.startB, COMPLEX_B_LIMIT) ??
       (ion?.B !== undefined ? START_BETA * ion.B : START_B));
   // e_ds is fitted only when asked for: most complexes do not need it.
   const names = fitParameterNames(spec).filter((p) => p !== 'eDs');
@@ -257,14 +258,12 @@ export function distortionDiagramCommand(
   const { B, cOverB } = racah({ ...opts, d: String(n), ...(ion ? { ion: ion.ion } : {}) }, true);
   const { spec, geometry } = fieldFromOptions(opts, reader(io));
   const path = pathOf(opts.distort ?? '', spec, geometry);
-  const from = numberOption('--from', opts.from) ?? path.from;
-  const to = numberOption('--to', opts.to) ?? path.to;
+  const from = numberOption('--from', opts.from, COORDINATE_LIMIT) ?? path.from;
+  const to = numberOption('--to', opts.to, COORDINATE_LIMIT) ?? path.to;
   if (from === undefined || to === undefined)
     throw new InputError(`--distort ${opts.distort}: give --from and --to`);
-  const steps =
-    numberOption('--steps', opts.steps, { integer: true, min: 1, what: 'a whole number' }) ??
-    DEFAULT_SWEEP_STEPS;
-  const eMax = numberOption('--emax', opts.emax, { positive: true, what: 'a positive number of cm⁻¹' });
+  const steps = numberOption('--steps', opts.steps, STEPS_LIMIT) ?? DEFAULT_SWEEP_STEPS;
+  const eMax = numberOption('--emax', opts.emax, ENERGY_LIMIT);
   const bar = progress(io, 'distortion diagram');
   const sweep = distortionSweep({
     n,

@@ -7,6 +7,7 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
+import { ANGLE_LIMIT, AOM_POSITIVE_LIMIT, DISTANCE_LIMIT, TOLERANCE_LIMIT } from '../src/core/limits.js';
 import type { BondParameters, Ligand } from '../src/field/angularOverlap.js';
 import { trigonalFromSplitting } from '../src/field/axialFields.js';
 import type { FieldSpec } from '../src/field/distortedComplex.js';
@@ -204,10 +205,7 @@ export function fieldFromOptions(
   if (opts.xyz !== undefined) {
     const metal =
       opts.metal === undefined ? undefined : /^\d+$/.test(opts.metal) ? Number(opts.metal) : opts.metal;
-    const cutoff = numberOption('--cutoff', opts.cutoff, {
-      positive: true,
-      what: 'a positive distance in Å',
-    });
+    const cutoff = numberOption('--cutoff', opts.cutoff, DISTANCE_LIMIT);
     const sphere = coordinationSphere(parseXyz(readFile(opts.xyz)), {
       ...(metal !== undefined ? { metal } : {}),
       ...(cutoff !== undefined ? { cutoff } : {}),
@@ -215,18 +213,15 @@ export function fieldFromOptions(
     ligands = [...sphere.ligands];
     name = opts.xyz;
   } else {
-    angle = numberOption('--angle', opts.angle, { positive: true, what: 'a number of degrees' });
+    angle = numberOption('--angle', opts.angle, ANGLE_LIMIT);
     ligands = presetLigands(opts.shape ?? '', angle);
     const preset = GEOMETRY_PRESETS.find((p) => p.name.toLowerCase() === (opts.shape ?? '').toLowerCase());
     name = preset?.name ?? opts.shape ?? '';
     angle = angle ?? preset?.angle?.defaultDegrees;
   }
   const parameters = bondsFor(ligands, opts.bond ?? []);
-  const tolerance = numberOption('--tolerance', opts.tolerance, {
-    positive: true,
-    what: 'a positive number',
-  });
-  const eDs = numberOption('--eds', opts.eds, { min: 0, what: 'a non-negative number of cm⁻¹' });
+  const tolerance = numberOption('--tolerance', opts.tolerance, TOLERANCE_LIMIT);
+  const eDs = numberOption('--eds', opts.eds, AOM_POSITIVE_LIMIT);
   return {
     spec: {
       kind: 'aom',

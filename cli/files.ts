@@ -1,6 +1,7 @@
 /**
- * Files for the commands: reading text, writing one or several outputs whole or not at all, and
- * finding the package's own folder (for the shipped fixtures).
+ * Files for the commands: reading text (regular files only, under a size cap), writing one or
+ * several outputs whole or not at all, the temporary files an interrupt must remove, and finding
+ * the package's own folder (for the shipped fixtures).
  */
 
 import { randomBytes } from 'node:crypto';
@@ -8,6 +9,38 @@ import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writ
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { InputError } from '../src/index.js';
+
+/**
+ * The largest input file read, bytes: a spectrum of 10⁶ rows is about 30 MB; anything much
+ * larger is not a spectrum or sheet (common practice, no source).
+ */
+export const INPUT_FILE_MAX_BYTES = 256 * 1024 * 1024;
+
+/** Temporary files and folders in use, with what an interrupt leaves undone if they go. */
+const temporaries = new Map<string, string>();
+
+/**
+ * Registers a temporary file or folder that an interrupt must remove; `undone` says what is then
+ * not written. Returns the function that forgets it once it is renamed into place or removed.
+ */
+export function trackTemporary(path: string, undone: string): () => void {
+  temporaries.set(path, undone);
+  return () => temporaries.delete(path);
+}
+
+/**
+ * Removes every registered temporary file and folder (on SIGINT or SIGTERM) and returns what
+ * was therefore not written, one entry per temporary.
+ */
+export function removeTemporaries(): string[] {
+  const undone: string[] = [];
+  for (const [path, what] of temporaries) {
+    rmSync(path, { recursive: true, force: true });
+    undone.push(what);
+  }
+  temporaries.clear();
+  return undone;
+}
 
 /**
  * Writes a file whole or not at all: to a temporary name in the same directory, then renamed,
@@ -27,12 +60,15 @@ export function writeFileAtomic(path: string, data: string | Uint8Array, makeDir
     checkOutputDirectory(path);
   }
   const temp = `${path}.${randomBytes(4).toString('hex')}.tmp`;
+  const forget = trackTemporary(temp, `${path} not written`);
   try {
     writeFileSync(temp, data);
     renameSync(temp, path);
   } catch (e) {
     rmSync(temp, { force: true });
     throw new InputError(`cannot write ${path}: ${reason(e)}`);
+  } finally {
+    forget();
   }
 }
 
@@ -54,7 +90,7 @@ export function checkOutputDirectory(path: string): void {
  * @throws InputError naming the path that failed and the reason.
  */
 export function writeFilesAtomic(files: readonly { path: string; data: string | Uint8Array }[]): void {
-  const temps: { temp: string; path: string }[] = [];
+  const temps: { temp: string; path: string; forget: () => void }[] = [];
   try {
     for (const f of files) {
       const dir = dirname(f.path);
@@ -65,7 +101,7 @@ export function writeFilesAtomic(files: readonly { path: string; data: string | 
         throw new InputError(`cannot write ${f.path}: it is a directory`);
       }
       const temp = `${f.path}.${randomBytes(4).toString('hex')}.tmp`;
-      temps.push({ temp, path: f.path });
+      temps.push({ temp, path: f.path, forget: trackTemporary(temp, `${f.path} not written`) });
       try {
         writeFileSync(temp, f.data);
       } catch (e) {
@@ -80,17 +116,49 @@ export function writeFilesAtomic(files: readonly { path: string; data: string | 
       }
     }
   } finally {
-    for (const t of temps) rmSync(t.temp, { force: true });
+    for (const t of temps) {
+      rmSync(t.temp, { force: true });
+      t.forget();
+    }
   }
 }
 
-/** Reads a text file. @throws InputError naming the path. */
+/**
+ * Reads a text file: a regular file (not a device, pipe or folder, which could block or never
+ * end) of at most {@link INPUT_FILE_MAX_BYTES}, in UTF-8 or UTF-16 with a byte-order mark.
+ * @throws InputError naming the path and what is wrong.
+ */
 export function readTextFile(path: string): string {
+  let bytes: Buffer;
   try {
-    return readFileSync(path, 'utf8');
+    const stat = statSync(path);
+    if (stat.isDirectory()) throw new InputError(`cannot read ${path}: it is a folder, not a file`);
+    if (!stat.isFile()) {
+      throw new InputError(`cannot read ${path}: not a regular file (a device, pipe or socket)`);
+    }
+    if (stat.size > INPUT_FILE_MAX_BYTES) {
+      throw new InputError(
+        `cannot read ${path}: ${stat.size} bytes, expected at most ${INPUT_FILE_MAX_BYTES} bytes`,
+      );
+    }
+    bytes = readFileSync(path);
   } catch (e) {
+    if (e instanceof InputError) throw e;
     throw new InputError(`cannot read ${path}: ${reason(e)}`);
   }
+  return decodeText(path, bytes);
+}
+
+/** UTF-8 text, or UTF-16 named by its byte-order mark; other binary data (NUL bytes) refused. */
+function decodeText(path: string, bytes: Buffer): string {
+  if (bytes[0] === 0xff && bytes[1] === 0xfe) return new TextDecoder('utf-16le').decode(bytes.subarray(2));
+  if (bytes[0] === 0xfe && bytes[1] === 0xff) return new TextDecoder('utf-16be').decode(bytes.subarray(2));
+  if (bytes.includes(0)) {
+    throw new InputError(
+      `cannot read ${path}: it holds NUL bytes — binary data, or UTF-16 text without a byte-order mark (save it as UTF-8)`,
+    );
+  }
+  return bytes.toString('utf8');
 }
 
 function reason(e: unknown): string {

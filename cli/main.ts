@@ -1,9 +1,23 @@
 #!/usr/bin/env node
 /**
  * The executable: runs the program on the process's arguments and streams and exits with its code.
+ * On SIGINT or SIGTERM it removes the temporary files and folders of unfinished outputs, says
+ * what was not written, and exits with 128 + the signal number.
  */
 
+import { removeTemporaries } from './files.js';
 import { processIo } from './io.js';
 import { run } from './program.js';
+
+const SIGNAL_NUMBERS = { SIGINT: 2, SIGTERM: 15 } as const;
+
+for (const [signal, number] of Object.entries(SIGNAL_NUMBERS)) {
+  process.once(signal, () => {
+    const undone = removeTemporaries();
+    const what = undone.length > 0 ? undone.join('; ') : 'no file was left half-written';
+    process.stderr.write(`\ntermsplit: interrupted (${signal}): ${what}\n`);
+    process.exit(128 + number);
+  });
+}
 
 process.exitCode = await run(process.argv.slice(2), processIo());

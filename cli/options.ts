@@ -5,6 +5,19 @@
  */
 
 import { DEFAULT_C_OVER_B, DEFAULT_GEOMETRY } from '../src/core/defaults.js';
+import {
+  B_LIMIT,
+  C_LIMIT,
+  C_OVER_B_LIMIT,
+  COMPLEX_B_LIMIT,
+  checkLimit,
+  DELTA_OVER_B_LIMIT,
+  DQ_LIMIT,
+  type Limit,
+  limitText,
+  parseDecimal,
+  parseWithin,
+} from '../src/core/limits.js';
 import { chooseRatio, type RatioChoice } from '../src/core/ratioChoice.js';
 import {
   type CubicResult,
@@ -31,36 +44,55 @@ export function cbHelp(lead: string): string {
 }
 
 /**
- * Parses a number option. `min` is inclusive unless `positive`.
- * @throws InputError `--B "-5": expected a positive number (cm⁻¹)`.
+ * Parses a number option: plain decimal digits only (no `0x10`, no empty text), checked against
+ * the quantity's range in `src/core/limits.ts`.
+ * @throws InputError `--B "1e308": expected a number of cm⁻¹ from 0 to 5000`.
  */
-export function numberOption(
-  name: string,
-  text: string | undefined,
-  rule: { positive?: boolean; min?: number; integer?: boolean; what?: string } = {},
-): number | undefined {
-  if (text === undefined) return undefined;
-  const value = Number(text.trim());
-  const what = rule.what ?? 'a number';
-  const fail = (expected: string) => new InputError(`${name} "${text}": expected ${expected}`);
-  if (text.trim() === '' || !Number.isFinite(value)) throw fail(what);
-  if (rule.integer && !Number.isInteger(value)) throw fail(`a whole number`);
-  if (rule.positive && !(value > 0)) throw fail(`a positive ${what.replace(/^an? (positive )?/, '')}`);
-  // "non-negative" already says ≥ 0.
-  if (rule.min !== undefined && value < rule.min)
-    throw fail(rule.min === 0 && /non-negative/.test(what) ? what : `${what} ≥ ${rule.min}`);
-  return value;
+export function numberOption(name: string, text: string | undefined, limit: Limit): number | undefined {
+  return text === undefined ? undefined : parseWithin(name, text, limit);
 }
 
 /** Like {@link numberOption} but the option must be present. */
-export function requiredNumber(
-  name: string,
-  text: string | undefined,
-  rule: Parameters<typeof numberOption>[2] = {},
-): number {
-  const v = numberOption(name, text, rule);
+export function requiredNumber(name: string, text: string | undefined, limit: Limit): number {
+  const v = numberOption(name, text, limit);
   if (v === undefined) throw new InputError(`${name} is required`);
   return v;
+}
+
+/**
+ * Parses a number option with an optional uncertainty, `2300` or `2300±60` (also `+-`), in
+ * cm⁻¹ without a unit: Racah parameters and Dq are not energies of light, so nm or eV would
+ * not mean what they seem.
+ * @throws InputError naming the option and the text.
+ */
+export function numberWithSigma(
+  name: string,
+  text: string | undefined,
+  limit: Limit,
+): { value: number; sigma?: number } | undefined {
+  if (text === undefined) return undefined;
+  const [main = '', spread, ...extra] = text.split(/±|\+\/-|\+-/);
+  if (extra.length > 0) throw new InputError(`${name} "${text}": expected a number with at most one ±`);
+  const value = checkLimit(name, parseDecimal(name, main, limit.what), limit, text.trim());
+  if (spread === undefined) return { value };
+  const sigma = parseDecimal(`${name} uncertainty`, spread, 'a positive number');
+  if (!(sigma >= 1e-3) || !(sigma <= limit.max)) {
+    throw new InputError(`${name} "${text}": expected an uncertainty from 0.001 to ${limit.max} after ±`);
+  }
+  return { value, sigma };
+}
+
+/**
+ * Checks the Δ/B = 10Dq/B a sample's Dq and B imply, naming both options as given.
+ * @throws InputError `--dq "10000" with B = 10 cm⁻¹ gives Δ/B = 10000: expected Δ/B up to 200`.
+ */
+export function checkSampleRatio(dqText: string | undefined, dq: number, B: number): void {
+  const ratio = (10 * dq) / B;
+  if (!(ratio <= DELTA_OVER_B_LIMIT.max)) {
+    throw new InputError(
+      `--dq "${dqText?.trim()}" with B = ${Number(B.toPrecision(4))} cm⁻¹ gives Δ/B = 10Dq/B = ${Number(ratio.toPrecision(4))}: expected Δ/B up to ${DELTA_OVER_B_LIMIT.max}`,
+    );
+  }
 }
 
 /** Parses `--geometry`. */
@@ -84,10 +116,12 @@ export function ionOrCount(
   range = { min: 1, max: 9 },
 ): IonChoice {
   const ion = ionText === undefined ? undefined : findIon(ionText);
-  const d = numberOption('--d', dText, { integer: true, what: 'a whole number' });
-  if (d !== undefined && (d < range.min || d > range.max)) {
-    throw new InputError(`--d "${dText}": expected a whole number from ${range.min} to ${range.max}`);
-  }
+  const d = numberOption('--d', dText, {
+    what: 'a whole number',
+    min: range.min,
+    max: range.max,
+    integer: true,
+  });
   if (ion && d !== undefined && ion.n !== d) {
     throw new InputError(`--d ${d} disagrees with --ion ${ion.ion}, which is d${ion.n}`);
   }
@@ -131,12 +165,18 @@ export function ratioChoice(
   ion: FreeIon | undefined,
 ): RatioChoice {
   if (cText !== undefined && cbText !== undefined) throw new InputError('give --C or --cb, not both');
-  const C = numberOption('--C', cText, { min: 0, what: 'a non-negative number of cm⁻¹' });
+  const C = numberOption('--C', cText, C_LIMIT);
   if (C !== undefined) {
     if (B === undefined || B === 0) throw new InputError('--C needs a positive --B to go with it');
-    return { cOverB: C / B, origin: 'given' };
+    const cOverB = C / B;
+    if (!(cOverB >= C_OVER_B_LIMIT.min && cOverB <= C_OVER_B_LIMIT.max)) {
+      throw new InputError(
+        `--C "${cText?.trim()}" with B = ${B} cm⁻¹ gives C/B = ${Number(cOverB.toPrecision(3))}: expected C/B ${limitText(C_OVER_B_LIMIT).replace(/^a positive number /, '')}`,
+      );
+    }
+    return { cOverB, origin: 'given' };
   }
-  const cb = numberOption('--cb', cbText, { positive: true, what: 'a positive number' });
+  const cb = numberOption('--cb', cbText, C_OVER_B_LIMIT);
   return chooseRatio(cb === undefined ? undefined : { cOverB: cb, origin: 'given as C/B' }, ion);
 }
 
@@ -195,11 +235,11 @@ export interface SolvedLevels {
 export function levelsFromOptions(opts: LevelOptions): SolvedLevels {
   const choice = ionOrCount(opts.ion, opts.d);
   const geometry = geometryOption(opts.geometry);
-  const dq = requiredNumber('--dq', opts.dq, { min: 0, what: 'a non-negative number of cm⁻¹' });
+  const dq = requiredNumber('--dq', opts.dq, DQ_LIMIT);
   const single = choice.n === 1 || choice.n === 9;
   const B = single
-    ? (numberOption('--B', opts.B, { min: 0, what: 'a non-negative number of cm⁻¹' }) ?? 0)
-    : requiredNumber('--B', opts.B, { positive: true, what: 'a positive number of cm⁻¹' });
+    ? (numberOption('--B', opts.B, B_LIMIT) ?? 0)
+    : requiredNumber('--B', opts.B, COMPLEX_B_LIMIT);
   const ratio = ratioChoice(B, opts.C, opts.cb, choice.ion);
   const result = solveCubic({ n: choice.n, geometry, dq, B, C: B * ratio.cOverB });
   return {

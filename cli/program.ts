@@ -16,6 +16,7 @@ import { registerMagnetism } from './commands/magnetism.js';
 import { registerReport } from './commands/report.js';
 import { registerSpectrum } from './commands/spectrum.js';
 import { registerTerms } from './commands/terms.js';
+import { messageLine } from './format.js';
 import type { Io } from './io.js';
 import { VERSION } from './version.js';
 
@@ -60,10 +61,12 @@ function output(io: Io) {
     writeErr: (t: string) => io.err(t),
     outputError: (t: string, write: (s: string) => void) =>
       write(
-        `termsplit: ${t
-          .trim()
-          .replace(/^error: /, '')
-          .replace(/\n+/g, ' ')} (see --help)\n`,
+        `termsplit: ${messageLine(
+          t
+            .trim()
+            .replace(/^error: /, '')
+            .replace(/\n+/g, ' '),
+        )} (see --help)\n`,
       ),
   };
 }
@@ -93,11 +96,11 @@ export async function run(argv: readonly string[], io: Io): Promise<number> {
       return EXIT_INPUT;
     }
     if (e instanceof InputError) {
-      io.err(`termsplit: ${e.message}\n`);
+      io.err(`termsplit: ${messageLine(e.message)}\n`);
       return EXIT_INPUT;
     }
     const message = e instanceof Error ? e.message : String(e);
-    io.err(`termsplit: internal error: ${message}\n`);
+    io.err(`termsplit: internal error: ${messageLine(message)}\n`);
     if (process.env.TERMSPLIT_DEBUG && e instanceof Error && e.stack) io.err(`${e.stack}\n`);
     return EXIT_INTERNAL;
   }

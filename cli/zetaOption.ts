@@ -2,6 +2,8 @@
  * The `--zeta` and `--zeta-factor` options: the spin–orbit constant ζ as a number of cm⁻¹ or as
  * the named ion's free-ion value, times a reduction factor for covalency, checked into one ζ.
  */
+
+import { ZETA_FACTOR_LIMIT, ZETA_LIMIT } from '../src/core/limits.js';
 import { checkZeta } from '../src/field/spinOrbit.js';
 import { type FreeIon, InputError } from '../src/index.js';
 import { numberOption } from './options.js';
@@ -37,10 +39,9 @@ export function zetaOption(
       throw new InputError(`--zeta "${zetaText}": no free-ion ζ is tabulated for ${ion.ion}`);
     zeta = ion.zeta;
   } else {
-    zeta = numberOption('--zeta', zetaText, { min: 0, what: 'a non-negative number of cm⁻¹ (or ion)' }) ?? 0;
+    zeta = numberOption('--zeta', zetaText, ZETA_LIMIT) ?? 0;
   }
-  const factor =
-    numberOption('--zeta-factor', factorText, { positive: true, what: 'a positive number' }) ?? 1;
+  const factor = numberOption('--zeta-factor', factorText, ZETA_FACTOR_LIMIT) ?? 1;
   if (factor > MAX_ZETA_FACTOR) {
     throw new InputError(
       `--zeta-factor "${factorText}": expected a positive number up to ${MAX_ZETA_FACTOR}`,

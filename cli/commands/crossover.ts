@@ -23,6 +23,7 @@ import { hasSpinChoice } from '../../src/analysis/spinChoice.js';
 import { susceptibility } from '../../src/analysis/susceptibility.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { DEFAULT_C_OVER_B, NOMINAL_B } from '../../src/core/defaults.js';
+import { COMPLEX_B_LIMIT, DQ_LIMIT, positive } from '../../src/core/limits.js';
 import { unicodeConfiguration } from '../../src/field/labels.js';
 import { solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
 import {
@@ -41,7 +42,6 @@ import {
   type OneElectronStates,
   oneElectronStates,
   pairingEnergy,
-  parseEnergy,
   parseEnergyList,
   type SampleVerdict,
   sampleVerdict,
@@ -51,7 +51,15 @@ import {
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { fixed, jsonText, table } from '../format.js';
 import { type Io, progress } from '../io.js';
-import { cbHelp, configOrIon, GEOMETRY_OPTION, geometryOption, ratioChoice } from '../options.js';
+import {
+  cbHelp,
+  checkSampleRatio,
+  configOrIon,
+  GEOMETRY_OPTION,
+  geometryOption,
+  numberWithSigma,
+  ratioChoice,
+} from '../options.js';
 import { crossingsJson, verdictJson } from '../present/crossoverPresent.js';
 import { solutionJson } from '../present/fitPresent.js';
 import { ZETA_FACTOR_HELP, zetaOption } from '../zetaOption.js';
@@ -96,17 +104,6 @@ export function registerCrossover(program: Command, io: Io): void {
     .action((configText: string | undefined, opts: CrossoverCommandOptions) => {
       io.out(crossoverCommand(configText, opts, io));
     });
-}
-
-/** A value with its uncertainty, from an option such as `--dq 2300±60`. */
-function energyOption(name: string, text: string | undefined): { value: number; sigma?: number } | undefined {
-  if (text === undefined) return undefined;
-  try {
-    return parseEnergy(text);
-  } catch (e) {
-    if (e instanceof InputError) throw new InputError(`${name}: ${e.message}`);
-    throw e;
-  }
 }
 
 interface Resolved {
@@ -173,7 +170,7 @@ function resolveInput(configText: string | undefined, opts: CrossoverCommandOpti
   const { n, ion } = configOrIon(configText, opts.ion);
   const geometry = geometryOption(opts.geometry);
   const single = n === 1 || n === 9;
-  const givenB = energyOption('--B', opts.B);
+  const givenB = numberWithSigma('--B', opts.B, COMPLEX_B_LIMIT);
   let B: number;
   let bOrigin: string;
   if (givenB) {
@@ -376,8 +373,9 @@ export function crossoverCommand(
   if (opts.output !== undefined) checkOutputDirectory(resolve(io.cwd, opts.output));
   const fitted = opts.bands === undefined ? undefined : fittedSample(given, opts.bands);
   const input = fitted?.input ?? given;
-  const sampleDq = fitted?.dq ?? energyOption('--dq', opts.dq);
+  const sampleDq = fitted?.dq ?? numberWithSigma('--dq', opts.dq, positive(DQ_LIMIT));
   const { n, geometry, B, C } = input;
+  if (sampleDq && B > 0) checkSampleRatio(opts.dq ?? fixed(sampleDq.value), sampleDq.value, B);
   const analysis = crossoverAnalysis({ n, geometry, B, C });
   const verdict = sampleDq
     ? sampleVerdict(analysis, {

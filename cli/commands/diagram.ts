@@ -15,13 +15,16 @@ import {
   spinOrbitAsCorrelation,
   sweepSpinOrbit,
 } from '../../src/analysis/spinOrbitSweep.js';
-import {
-  DEFAULT_MAX_DELTA_OVER_B,
-  DEFAULT_SWEEP_POINTS,
-  diagramCautions,
-  MAX_SWEEP_POINTS,
-} from '../../src/analysis/sweep.js';
+import { DEFAULT_MAX_DELTA_OVER_B, DEFAULT_SWEEP_POINTS, diagramCautions } from '../../src/analysis/sweep.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
+import {
+  COMPLEX_B_LIMIT,
+  DELTA_OVER_B_LIMIT,
+  DQ_LIMIT,
+  ENERGY_OVER_B_LIMIT,
+  POINTS_LIMIT,
+  positive,
+} from '../../src/core/limits.js';
 import { DOUBLE_GROUP_NOTATION } from '../../src/field/doubleGroup.js';
 import { unicodeTerm } from '../../src/field/labels.js';
 import {
@@ -130,8 +133,8 @@ interface Sample extends SampleMark {
 }
 
 function sampleFromOptions(opts: DiagramOptions): Sample | undefined {
-  const dq = numberOption('--dq', opts.dq, { positive: true, what: 'a positive number of cm⁻¹' });
-  const B = numberOption('--B', opts.B, { positive: true, what: 'a positive number of cm⁻¹' });
+  const dq = numberOption('--dq', opts.dq, positive(DQ_LIMIT));
+  const B = numberOption('--B', opts.B, COMPLEX_B_LIMIT);
   if (opts.bands !== undefined && (dq === undefined || B === undefined)) {
     throw new InputError("--bands needs the sample's --dq and --B to place the bands on the diagram");
   }
@@ -177,16 +180,9 @@ function diagramJob(configText: string | undefined, opts: DiagramOptions, io: Io
   const ratio = ratioChoice(sample?.B, opts.C, opts.cb, ion);
   // One electron or one hole has a single free-ion term: C/B changes nothing.
   const cOrigin = n === 1 || n === 9 ? 'not used (one d electron or hole)' : ratio.origin;
-  const maxDeltaOverB =
-    numberOption('--max', opts.max, { positive: true, what: 'a positive number' }) ??
-    DEFAULT_MAX_DELTA_OVER_B;
-  const points =
-    numberOption('--points', opts.points, { integer: true, min: 2, what: 'a whole number' }) ??
-    DEFAULT_SWEEP_POINTS;
-  if (points > MAX_SWEEP_POINTS) {
-    throw new InputError(`--points "${opts.points}": expected a whole number from 2 to ${MAX_SWEEP_POINTS}`);
-  }
-  const eMax = numberOption('--emax', opts.emax, { positive: true, what: 'a positive number' });
+  const maxDeltaOverB = numberOption('--max', opts.max, DELTA_OVER_B_LIMIT) ?? DEFAULT_MAX_DELTA_OVER_B;
+  const points = numberOption('--points', opts.points, POINTS_LIMIT) ?? DEFAULT_SWEEP_POINTS;
+  const eMax = numberOption('--emax', opts.emax, ENERGY_OVER_B_LIMIT);
   if (sample && sample.deltaOverB > maxDeltaOverB) {
     throw new InputError(
       `the sample's Δ/B = 10Dq/B = ${fixed(sample.deltaOverB, 2)} lies beyond --max ${maxDeltaOverB}: raise --max`,

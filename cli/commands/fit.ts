@@ -8,6 +8,7 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { DEFAULT_ENERGY_UNIT } from '../../src/core/defaults.js';
+import { COMPLEX_B_LIMIT } from '../../src/core/limits.js';
 import { parseUnit } from '../../src/core/units.js';
 import { refineWithSpinOrbit, type SpinOrbitRefinement } from '../../src/fit/spinOrbitRefinement.js';
 import { type FitResult, findIon, fitBands, InputError, parseEnergyList } from '../../src/index.js';
@@ -137,12 +138,18 @@ export function fitFromOptions(
     b.sigma === undefined ? { energy: b.value } : { energy: b.value, sigma: b.sigma },
   );
   const single = choice.n === 1 || choice.n === 9;
-  const heldB = numberOption('--B', opts.B, { positive: true, what: 'a positive number of cm⁻¹' });
+  const heldB = numberOption('--B', opts.B, COMPLEX_B_LIMIT);
   const ratio = ratioChoice(undefined, undefined, opts.cb, choice.ion);
   const assignments =
     opts.assign === undefined
       ? undefined
       : splitLabels(opts.assign).map((a) => (a === '?' || a === '' ? null : a));
+  // Fewer labels than bands would leave the last bands free without saying so.
+  if (assignments && assignments.length !== bands.length) {
+    throw new InputError(
+      `--assign "${opts.assign}": ${assignments.length} label${assignments.length === 1 ? '' : 's'} for ${bands.length} band${bands.length === 1 ? '' : 's'}: expected one per band, in band order (? leaves a band free)`,
+    );
+  }
   // C is fitted when asked, held when C/B is given, and otherwise fitted where the bands fix it.
   const fitC = opts.fitC ? true : opts.cb !== undefined ? false : undefined;
   const result = fitBands({

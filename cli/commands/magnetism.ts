@@ -18,6 +18,12 @@ import {
   susceptibility,
 } from '../../src/analysis/susceptibility.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
+import {
+  G_FACTOR_LIMIT,
+  ORBITAL_REDUCTION_LIMIT,
+  STEPS_LIMIT,
+  TEMPERATURE_LIMIT,
+} from '../../src/core/limits.js';
 import { unicodeIon } from '../../src/field/labels.js';
 import { spinOrbitLevels } from '../../src/field/spinOrbitSolver.js';
 import { findIon, InputError, spinOnlyMoment, unicodeLabel } from '../../src/index.js';
@@ -100,11 +106,11 @@ function tableTemperatures(lo: number, hi: number): number[] {
 
 function temperatureRange(opts: MagnetismOptions): { tmin: number; tmax: number; steps: number | undefined } {
   const what = `a number of K from ${MIN_TEMPERATURE} to ${MAX_TEMPERATURE}`;
-  const tmin = numberOption('--tmin', opts.tmin, { min: MIN_TEMPERATURE, what }) ?? DEFAULT_T_MIN;
-  const tmax = numberOption('--tmax', opts.tmax, { min: MIN_TEMPERATURE, what }) ?? DEFAULT_T_MAX;
+  const tmin = numberOption('--tmin', opts.tmin, TEMPERATURE_LIMIT) ?? DEFAULT_T_MIN;
+  const tmax = numberOption('--tmax', opts.tmax, TEMPERATURE_LIMIT) ?? DEFAULT_T_MAX;
   if (tmax > MAX_TEMPERATURE) throw new InputError(`--tmax "${opts.tmax}": expected ${what}`);
   if (!(tmax > tmin)) throw new InputError(`--tmax "${opts.tmax}": expected more than --tmin ${tmin}`);
-  const steps = numberOption('--steps', opts.steps, { integer: true, min: 1, what: 'a whole number' });
+  const steps = numberOption('--steps', opts.steps, STEPS_LIMIT);
   if (steps !== undefined && steps > 1000)
     throw new InputError(`--steps "${opts.steps}": expected a whole number from 1 to 1000`);
   return { tmin, tmax, steps };
@@ -116,9 +122,8 @@ function magnetismCommand(opts: MagnetismOptions, io: Io): string {
   const ion = opts.ion === undefined ? undefined : findIon(opts.ion);
   const zeta = zetaOption(opts.zeta ?? (ion ? 'ion' : undefined), opts.zetaFactor, ion);
   if (zeta === undefined) throw new InputError('--zeta is required without --ion (a number of cm⁻¹)');
-  const k =
-    numberOption('--k', opts.k, { min: 0, what: 'a number from 0 to 1' }) ?? DEFAULT_ORBITAL_REDUCTION;
-  const g = numberOption('--g', opts.g, { positive: true, what: 'a positive number' }) ?? DEFAULT_SPIN_G;
+  const k = numberOption('--k', opts.k, ORBITAL_REDUCTION_LIMIT) ?? DEFAULT_ORBITAL_REDUCTION;
+  const g = numberOption('--g', opts.g, G_FACTOR_LIMIT) ?? DEFAULT_SPIN_G;
   const { tmin, tmax, steps } = temperatureRange(opts);
   const base = {
     n: result.n,

@@ -4,6 +4,7 @@
  */
 
 import type { Command } from 'commander';
+import { JOBS_LIMIT } from '../../src/core/limits.js';
 import { jsonText } from '../format.js';
 import type { Io } from '../io.js';
 import { numberOption } from '../options.js';
@@ -14,6 +15,7 @@ import { reportSummary } from '../report/summary.js';
 export interface ReportOptions {
   output?: string;
   jobs?: string;
+  allowOutsideFiles?: boolean;
   json?: boolean;
 }
 
@@ -29,11 +31,22 @@ export function registerReport(program: Command, io: Io): void {
     )
     .argument('<sheet>', 'sample sheet: .json (full form) or .csv (one sample a row)')
     .option('-o, --output <dir>', `report folder (default: ./${DEFAULT_REPORT_DIR})`)
-    .option('--jobs <n>', 'worker threads for the samples (default: the cores, at most 4)')
+    .option(
+      '--jobs <n>',
+      'worker threads for the samples (default: the cores, at most 4; never more than the cores)',
+    )
+    .option(
+      '--allow-outside-files',
+      'let the sheet name spectrum files outside its own folder and the working folder (only for sheets you trust)',
+    )
     .option('--json', 'print the report as one JSON object on stdout')
     .action(async (sheetPath: string, opts: ReportOptions) => {
-      const jobs = numberOption('--jobs', opts.jobs, { integer: true, min: 1, what: 'a whole number' });
-      const job = { output: opts.output ?? DEFAULT_REPORT_DIR, ...(jobs !== undefined ? { jobs } : {}) };
+      const jobs = numberOption('--jobs', opts.jobs, JOBS_LIMIT);
+      const job = {
+        output: opts.output ?? DEFAULT_REPORT_DIR,
+        ...(jobs !== undefined ? { jobs } : {}),
+        allowOutside: opts.allowOutsideFiles === true,
+      };
       const run = await runReport(sheetPath, job, io);
       io.out(opts.json ? jsonText(reportJson(run.model)) : reportSummary(run));
     });

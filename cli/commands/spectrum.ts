@@ -8,6 +8,12 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { quantityTitle } from '../../charts/spectrum.js';
+import {
+  BAND_COUNT_LIMIT,
+  BAND_WIDTH_LIMIT,
+  CONCENTRATION_LIMIT,
+  PATH_LENGTH_LIMIT,
+} from '../../src/core/limits.js';
 import { cmToNm, type FoundBand, InputError, unicodeLabel } from '../../src/index.js';
 import type { BaselineKind } from '../../src/spectra/bandDecomposition.js';
 import { DEFAULT_BASELINE, DEFAULT_MAX_BANDS, DEFAULT_MIN_FWHM } from '../../src/spectra/bandFinding.js';
@@ -146,20 +152,13 @@ function spectrumJob(opts: SpectrumOptions): {
 } {
   const xUnit = opts.xUnit === undefined ? undefined : parseXUnit(opts.xUnit);
   const yUnit = opts.yUnit === undefined ? undefined : parseYUnit(opts.yUnit);
-  const conc = numberOption('--conc', opts.conc, { positive: true, what: 'a positive number of mol/L' });
-  const path = numberOption('--path', opts.path, { positive: true, what: 'a positive number of cm' });
+  const conc = numberOption('--conc', opts.conc, CONCENTRATION_LIMIT);
+  const path = numberOption('--path', opts.path, PATH_LENGTH_LIMIT);
   if ((conc === undefined) !== (path === undefined)) {
     throw new InputError('give both --conc (mol/L) and --path (cm) to turn absorbance into ε');
   }
-  const maxBands = numberOption('--max-bands', opts.maxBands, {
-    integer: true,
-    min: 1,
-    what: 'a whole number',
-  });
-  const minFwhm = numberOption('--min-width', opts.minWidth, {
-    positive: true,
-    what: 'a positive number of cm⁻¹',
-  });
+  const maxBands = numberOption('--max-bands', opts.maxBands, BAND_COUNT_LIMIT);
+  const minFwhm = numberOption('--min-width', opts.minWidth, BAND_WIDTH_LIMIT);
   const reading = {
     ...(opts.xCol !== undefined ? { xColumn: opts.xCol } : {}),
     ...(opts.yCol !== undefined ? { yColumn: opts.yCol } : {}),
@@ -182,17 +181,20 @@ function spectrumJob(opts: SpectrumOptions): {
   const geometry = geometryOption(opts.geometry);
   const choice = opts.ion !== undefined || opts.d !== undefined ? ionOrCount(opts.ion, opts.d) : undefined;
   const predicted = opts.dq === undefined ? undefined : levelsFromOptions(opts);
+  // Checked whether or not a fit follows, so a bad value is refused rather than ignored.
+  const spinState = opts.spinState === undefined ? undefined : spinStateOption(opts.spinState);
+  const ratio = predicted ? undefined : ratioChoice(undefined, undefined, opts.cb, choice?.ion);
   const fit: SpectrumFitRequest | undefined =
-    predicted || !choice
+    predicted || !choice || !ratio
       ? undefined
       : {
           n: choice.n,
           geometry,
           ...(choice.ion ? { ion: choice.ion } : {}),
-          ratio: ratioChoice(undefined, undefined, opts.cb, choice.ion),
+          ratio,
           fitC: opts.fitC === true,
           includeSpinForbidden: opts.spinForbidden === true,
-          ...(opts.spinState !== undefined ? { spinState: spinStateOption(opts.spinState) } : {}),
+          ...(spinState !== undefined ? { spinState } : {}),
         };
   const options: SpectrumAnalysisOptions = {
     ...reading,

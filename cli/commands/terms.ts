@@ -8,6 +8,7 @@ import type { Command } from 'commander';
 import { freeIonLevels } from '../../src/atom/jLevels.js';
 import { binomial } from '../../src/atom/microstates.js';
 import { halfIntegerText, microstateTable } from '../../src/atom/terms.js';
+import { B_LIMIT, C_LIMIT } from '../../src/core/limits.js';
 import { unicodeTerm } from '../../src/field/labels.js';
 import {
   type FreeIon,
@@ -79,8 +80,8 @@ function termsJob(configText: string | undefined, opts: TermsOptions): TermsJob 
   if (ion && (config.l !== 2 || config.n !== ion.n)) {
     throw new InputError(`configuration ${config.text} disagrees with --ion ${ion.ion}, which is d${ion.n}`);
   }
-  let B = numberOption('--B', opts.B, { min: 0, what: 'a non-negative number of cm⁻¹' });
-  let C = numberOption('--C', opts.C, { min: 0, what: 'a non-negative number of cm⁻¹' });
+  let B = numberOption('--B', opts.B, B_LIMIT);
+  let C = numberOption('--C', opts.C, C_LIMIT);
   if ((B === undefined) !== (C === undefined))
     throw new InputError('free-ion energies need both --B and --C');
   if (ion && B === undefined) {

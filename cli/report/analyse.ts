@@ -205,6 +205,11 @@ function structureFit(
 function sampleFit(task: SampleTask, ion: FreeIon, ratio: RatioChoice): SampleFit {
   const { sample } = task;
   if (sample.bands) {
+    if (sample.assign && sample.assign.length !== sample.bands.length) {
+      throw new InputError(
+        `field "assign": ${sample.assign.length} labels for ${sample.bands.length} bands: expected one per band, in band order (? leaves a band free)`,
+      );
+    }
     const result = fitBands({
       n: ion.n,
       geometry: sample.geometry,

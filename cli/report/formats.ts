@@ -7,8 +7,22 @@
 import { csvText } from '../../src/sheets/csv.js';
 import type { Block, TableBlock } from './document.js';
 
-function mdEscape(text: string): string {
-  return text.replace(/\|/g, '\\|').replace(/\n/g, ' ');
+/** Control characters (NUL, line breaks, escape codes; C0, DEL and C1) become spaces: one line of text. */
+function oneLine(text: string): string {
+  // biome-ignore lint/suspicious/noControlCharactersInRegex: the control characters are the point
+  return text.replace(/[\u0000-\u001f\u007f-\u009f]/g, ' ');
+}
+
+/**
+ * Plain text for Markdown: every character with a meaning there (emphasis, code, links, raw
+ * HTML, table pipes) backslash-escaped, `&` as an entity, and the marks of a heading, quote or
+ * list at the start escaped, so a title or sample name shows as written and never as markup.
+ */
+export function mdEscape(text: string): string {
+  return oneLine(text)
+    .replace(/[\\`*_[\]<>|~!]/g, (c) => `\\${c}`)
+    .replace(/&/g, '&amp;')
+    .replace(/^(\s*)([#>+=-]|\d+[.)])/, (_, space: string, mark: string) => `${space}\\${mark}`);
 }
 
 /** Markdown of the blocks. */
@@ -17,16 +31,16 @@ export function toMarkdown(blocks: readonly Block[]): string {
   for (const b of blocks) {
     switch (b.kind) {
       case 'heading':
-        out.push(`${'#'.repeat(b.level)} ${b.text}`);
+        out.push(`${'#'.repeat(b.level)} ${mdEscape(b.text)}`);
         break;
       case 'paragraph':
-        out.push(b.text);
+        out.push(mdEscape(b.text));
         break;
       case 'note':
-        out.push(`> **${b.text}**`);
+        out.push(`> **${mdEscape(b.text)}**`);
         break;
       case 'list':
-        out.push(b.items.map((i) => `- ${i}`).join('\n'));
+        out.push(b.items.map((i) => `- ${mdEscape(i)}`).join('\n'));
         break;
       case 'table':
         out.push(
@@ -38,16 +52,21 @@ export function toMarkdown(blocks: readonly Block[]): string {
         );
         break;
       case 'figure':
-        out.push(`![${mdEscape(b.caption)}](${b.path})\n\n*${b.caption}*`);
+        out.push(`![${mdEscape(b.caption)}](${encodeURI(b.path)})\n\n*${mdEscape(b.caption)}*`);
         break;
     }
   }
   return `${out.join('\n\n')}\n`;
 }
 
-/** Escapes text for HTML content and attribute values. */
+/** Escapes text for HTML content and attribute values; control characters become spaces. */
 export function htmlEscape(text: string): string {
-  return text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+  return oneLine(text)
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;')
+    .replace(/'/g, '&#39;');
 }
 
 /** The SVG element of an SVG document, for inlining (the XML declaration dropped, a role and title added). */

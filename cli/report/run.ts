@@ -33,7 +33,8 @@ export async function runSamples(
 ): Promise<SampleOutcome[]> {
   const jobs = Math.max(
     1,
-    Math.min(options.jobs ?? Math.min(availableParallelism(), DEFAULT_MAX_JOBS), tasks.length),
+    // More threads than cores only cost memory.
+    Math.min(options.jobs ?? DEFAULT_MAX_JOBS, availableParallelism(), tasks.length),
   );
   const script = new URL('./worker.js', import.meta.url);
   const bar = progress(io, `report: ${tasks.length} sample${tasks.length === 1 ? '' : 's'}`);
@@ -44,11 +45,14 @@ export async function runSamples(
   };
   try {
     if (jobs === 1 || !existsSync(fileURLToPath(script))) {
-      return tasks.map((t) => {
-        const outcome = analyseSample(t);
+      const outcomes: SampleOutcome[] = [];
+      for (const t of tasks) {
+        outcomes.push(analyseSample(t));
         tick();
-        return outcome;
-      });
+        // A turn of the event loop between samples, so that Ctrl-C is handled without waiting for all.
+        await new Promise((res) => setImmediate(res));
+      }
+      return outcomes;
     }
     const outcomes = new Array<SampleOutcome | undefined>(tasks.length);
     let next = 0;

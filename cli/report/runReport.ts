@@ -5,12 +5,12 @@
  */
 
 import { existsSync } from 'node:fs';
-import { dirname, extname, resolve } from 'node:path';
+import { dirname, extname, isAbsolute, relative, resolve } from 'node:path';
 import { renderTrend } from '../../charts/series.js';
 import { InputError, parseSampleSheet, type SampleSheet } from '../../src/index.js';
 import type { SheetFormat, SheetProblem } from '../../src/sheets/sampleSheet.js';
 import { readTextFile } from '../files.js';
-import { jsonText } from '../format.js';
+import { jsonText, messageLine } from '../format.js';
 import type { Io } from '../io.js';
 import { VERSION } from '../version.js';
 import type { SampleOutcome, SampleTask } from './analyse.js';
@@ -18,12 +18,14 @@ import { reportBlocks, SERIES_FILES, sampleFiles } from './document.js';
 import { toCsv, toHtml, toMarkdown } from './formats.js';
 import { type ReportModel, reportModel } from './model.js';
 import { runSamples } from './run.js';
-import { REPORT_GENERATOR, writeReportFolder } from './write.js';
+import { abandonReportFolder, commitReportFolder, REPORT_GENERATOR, reserveReportFolder } from './write.js';
 
 /** A checked report job: where to write, and how many worker threads (default: the cores, at most 4). */
 export interface ReportJob {
   readonly output: string;
   readonly jobs?: number;
+  /** Let the sheet name spectrum files outside its own folder and the working folder. @default false */
+  readonly allowOutside?: boolean;
 }
 
 /** The format of a sheet file: by extension, else by its first character. */
@@ -50,17 +52,39 @@ export function slugs(names: readonly string[]): string[] {
   });
 }
 
-/** The checks a sheet needs from the file system: each spectrum file must exist. */
-function missingSpectra(sheet: SampleSheet, dir: string): { sheet: SampleSheet; problems: SheetProblem[] } {
+/**
+ * The checks a sheet needs from the file system: each spectrum file must exist and, unless
+ * `allowOutside`, lie inside the sheet's folder or the working folder (a sheet from elsewhere
+ * must not make the report read, and quote, files such as /etc/passwd).
+ */
+function checkSpectra(
+  sheet: SampleSheet,
+  dir: string,
+  cwd: string,
+  allowOutside: boolean,
+): { sheet: SampleSheet; problems: SheetProblem[] } {
   const problems: SheetProblem[] = [];
   const samples = sheet.samples.filter((s) => {
     if (!s.spectrum) return true;
     const path = resolve(dir, s.spectrum.file);
-    if (existsSync(path)) return true;
-    problems.push({ sample: s.name, field: 'spectrum.file', message: `no such file: ${s.spectrum.file}` });
-    return false;
+    const fail = (message: string) => {
+      problems.push({ sample: s.name, field: 'spectrum.file', message });
+      return false;
+    };
+    if (!allowOutside && !isInside(path, dir) && !isInside(path, cwd)) {
+      return fail(
+        `${s.spectrum.file} lies outside the sheet's folder and the working folder (give --allow-outside-files to read it)`,
+      );
+    }
+    return existsSync(path) ? true : fail(`no such file: ${s.spectrum.file}`);
   });
   return { sheet: { ...sheet, samples }, problems };
+}
+
+/** Whether `path` lies inside `dir` (both absolute, compared after resolving `..`). */
+function isInside(path: string, dir: string): boolean {
+  const r = relative(dir, path);
+  return r !== '' && !r.startsWith('..') && !isAbsolute(r);
 }
 
 /** The report's outcome: the model, where it was written, and the exit code. */
@@ -88,8 +112,34 @@ export async function runReport(
   const text = readTextFile(full);
   const parsed = parseSampleSheet(text, sheetFormat(full, text));
   const sheetDir = dirname(full);
-  const { sheet, problems } = missingSpectra(parsed, sheetDir);
+  const { sheet, problems } = checkSpectra(parsed, sheetDir, io.cwd, job.allowOutside === true);
   const dir = resolve(io.cwd, job.output);
+  // Reserved before the work, so a folder that cannot take the report is refused at once.
+  const folder = reserveReportFolder(dir);
+  try {
+    const model = await reportOf(sheet, problems, sheetDir, sheetLabel, jobs, io);
+    if (model.samples.length === 0) {
+      throw new InputError(
+        `no sample of ${sheetPath} could be reported (${model.problems.length} problem${model.problems.length === 1 ? '' : 's'}, listed above)`,
+      );
+    }
+    const files = reportFiles(model);
+    commitReportFolder(folder, files);
+    return { model, dir, files: [...files.keys()] };
+  } finally {
+    abandonReportFolder(folder);
+  }
+}
+
+/** Analyses the samples and builds the report's model; the problems go to stderr as they are. */
+async function reportOf(
+  sheet: SampleSheet,
+  problems: readonly SheetProblem[],
+  sheetDir: string,
+  sheetLabel: string,
+  jobs: number | undefined,
+  io: Io,
+): Promise<ReportModel> {
   const names = sheet.samples.map((s) => s.name);
   const stems = slugs(names);
   const tasks: SampleTask[] = sheet.samples.map((sample, i) => ({
@@ -107,16 +157,9 @@ export async function runReport(
   );
   for (const p of model.problems)
     io.err(
-      `termsplit: sample "${p.sample}": ${p.field === 'analysis' ? '' : `field "${p.field}": `}${p.message}\n`,
+      `termsplit: ${messageLine(`sample "${p.sample}": ${p.field === 'analysis' ? '' : `field "${p.field}": `}${p.message}`)}\n`,
     );
-  if (model.samples.length === 0) {
-    throw new InputError(
-      `no sample of ${sheetPath} could be reported (${model.problems.length} problem${model.problems.length === 1 ? '' : 's'}, listed above)`,
-    );
-  }
-  const files = reportFiles(model);
-  writeReportFolder(dir, files);
-  return { model, dir, files: [...files.keys()] };
+  return model;
 }
 
 /** Every file of the report folder, by relative path. */

@@ -1,63 +1,225 @@
 /**
- * Writes a report folder all or nothing, replacing an earlier report but never other files, and
- * names the program that wrote it.
+ * Writes a report folder all or nothing and never removes a file the program did not write. The
+ * folder is reserved before the work (a fresh staging folder, removed on an interrupt); the
+ * finished report is written there with a manifest listing its files; then the files of the
+ * earlier report — only those its manifest lists — are moved aside, the new files renamed into
+ * place, and the old ones removed. Other files in the folder (notes, spectra, the sheet) stay.
  */
 
+import { randomBytes } from 'node:crypto';
 import {
   existsSync,
   mkdirSync,
   readdirSync,
   readFileSync,
   renameSync,
+  rmdirSync,
   rmSync,
   statSync,
   writeFileSync,
 } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
+import { basename, dirname, join, sep } from 'node:path';
 import { InputError } from '../../src/index.js';
+import { trackTemporary } from '../files.js';
 
-/** The marker report.json carries, so that a later run may replace the folder. */
+/** The marker report.json carries, so that a later run may replace the report. */
 export const REPORT_GENERATOR = 'termsplit report';
 
+/** The manifest: the report's own files, the only ones a later run replaces or removes. */
+export const MANIFEST = '.termsplit-manifest.json';
+
+/** The name part of staging and set-aside folders, so that stale ones can be recognised. */
+const STAGING_MARK = '.termsplit-partial-';
+const ASIDE_MARK = '.termsplit-old-';
+
+/** A report folder reserved before the work: where it goes and where it is being assembled. */
+export interface ReportFolder {
+  readonly dir: string;
+  readonly staging: string;
+  /** Forgets the staging folder for interrupt clean-up (after it is renamed or removed). */
+  readonly forget: () => void;
+}
+
 /**
- * Writes a report folder whole or not at all: every file goes into a fresh sibling folder, which
- * then takes the place of `dir`. An existing `dir` is replaced only when it is empty or an
- * earlier termsplit report; anything else is refused, so no other files are ever lost.
+ * Checks that `dir` may take a report — it does not exist, is empty, or holds an earlier
+ * termsplit report — and creates the staging folder, before any long work.
  * @throws InputError naming the folder and the reason.
  */
-export function writeReportFolder(dir: string, files: ReadonlyMap<string, string | Uint8Array>): void {
+export function reserveReportFolder(dir: string): ReportFolder {
   const parent = dirname(dir);
   if (!existsSync(parent) || !statSync(parent).isDirectory()) {
     throw new InputError(`cannot write the report to ${dir}: directory ${parent} does not exist`);
   }
-  if (existsSync(dir)) {
+  const exists = existsSync(dir);
+  if (exists) {
     if (!statSync(dir).isDirectory()) throw new InputError(`cannot write the report to ${dir}: it is a file`);
-    const entries = readdirSync(dir);
-    if (entries.length > 0 && !isReport(dir)) {
+    const entries = readdirSync(dir).filter((e) => !isStale(e));
+    if (entries.length > 0 && readManifest(dir) === undefined && !isMarkedReport(dir)) {
       throw new InputError(`${dir} exists and is not a termsplit report; choose another -o or empty it`);
     }
+    removeStale(dir);
   }
-  const staging = join(parent, `.${basename(dir)}.${process.pid}.${Date.now()}.partial`);
+  const tag = `${process.pid}-${randomBytes(4).toString('hex')}`;
+  // Inside an existing folder, so the final renames stay on one file system and need no write
+  // access to its parent (`-o .`); beside a new one, which it then becomes whole.
+  const staging = exists
+    ? join(dir, `${STAGING_MARK}${tag}`)
+    : join(parent, `.${basename(dir)}${STAGING_MARK}${tag}`);
+  try {
+    mkdirSync(staging);
+  } catch (e) {
+    throw new InputError(`cannot write the report to ${dir}: ${(e as Error).message}`);
+  }
+  const forget = trackTemporary(
+    staging,
+    `the report was not written to ${dir}; anything there before is unchanged`,
+  );
+  return { dir, staging, forget };
+}
+
+/** Removes the staging folder of a report that will not be written. */
+export function abandonReportFolder(folder: ReportFolder): void {
+  rmSync(folder.staging, { recursive: true, force: true });
+  folder.forget();
+}
+
+/**
+ * Writes the report's files into the reserved folder and puts them in place, replacing only the
+ * files the earlier report's manifest lists. On failure the earlier report is put back.
+ * @throws InputError naming the folder and the reason.
+ */
+export function commitReportFolder(
+  folder: ReportFolder,
+  files: ReadonlyMap<string, string | Uint8Array>,
+): void {
+  const { dir, staging } = folder;
+  const names = [...files.keys()].sort();
   try {
     for (const [name, data] of files) {
       const path = join(staging, name);
       mkdirSync(dirname(path), { recursive: true });
       writeFileSync(path, data);
     }
-    if (existsSync(dir)) rmSync(dir, { recursive: true, force: true });
-    renameSync(staging, dir);
+    writeFileSync(
+      join(staging, MANIFEST),
+      `${JSON.stringify({ generator: REPORT_GENERATOR, files: names }, null, 2)}\n`,
+    );
+    if (!existsSync(dir)) renameSync(staging, dir);
+    else replaceListedFiles(dir, staging, [...names, MANIFEST]);
   } catch (e) {
-    rmSync(staging, { recursive: true, force: true });
     if (e instanceof InputError) throw e;
     throw new InputError(`cannot write the report to ${dir}: ${(e as Error).message}`);
+  } finally {
+    rmSync(staging, { recursive: true, force: true });
+    folder.forget();
   }
 }
 
-function isReport(dir: string): boolean {
+/**
+ * Moves the earlier report's listed files aside, the new files in, then removes the old ones;
+ * a failure half-way moves everything back.
+ */
+function replaceListedFiles(dir: string, staging: string, names: readonly string[]): void {
+  const manifest = readManifest(dir);
+  // An earlier report without a manifest: only files of the new report's names are its own.
+  const old = (manifest ?? names).filter((n) => n !== MANIFEST && existsSync(join(dir, n)));
+  if (manifest) {
+    const foreign = names.filter((n) => n !== MANIFEST && !manifest.includes(n) && existsSync(join(dir, n)));
+    if (foreign.length > 0) {
+      throw new InputError(
+        `cannot write the report to ${dir}: ${foreign[0]} is there and was not written by termsplit; move it away or choose another -o`,
+      );
+    }
+  }
+  const aside = join(dir, `${ASIDE_MARK}${process.pid}-${randomBytes(4).toString('hex')}`);
+  const forget = trackTemporary(aside, `the earlier report in ${dir} was being replaced`);
+  const movedAside: string[] = [];
+  const movedIn: string[] = [];
+  try {
+    for (const n of [...old, ...(existsSync(join(dir, MANIFEST)) ? [MANIFEST] : [])]) {
+      moveFile(join(dir, n), join(aside, n));
+      movedAside.push(n);
+    }
+    for (const n of names) {
+      moveFile(join(staging, n), join(dir, n));
+      movedIn.push(n);
+    }
+  } catch (e) {
+    for (const n of movedIn) rmSync(join(dir, n), { force: true });
+    for (const n of movedAside) moveFile(join(aside, n), join(dir, n));
+    rmSync(aside, { recursive: true, force: true });
+    forget();
+    throw e;
+  }
+  rmSync(aside, { recursive: true, force: true });
+  forget();
+  removeEmptyFolders(
+    dir,
+    old.filter((n) => !names.includes(n)),
+  );
+}
+
+function moveFile(from: string, to: string): void {
+  mkdirSync(dirname(to), { recursive: true });
+  renameSync(from, to);
+}
+
+/** Removes the sub-folders of removed report files when nothing else is left in them. */
+function removeEmptyFolders(dir: string, removed: readonly string[]): void {
+  const folders = new Set(removed.map((n) => dirname(n)).filter((d) => d !== '.'));
+  for (const f of [...folders].sort((a, b) => b.split(sep).length - a.split(sep).length)) {
+    const path = join(dir, f);
+    if (existsSync(path) && readdirSync(path).length === 0) rmdirSync(path);
+  }
+}
+
+/** The file list of the folder's manifest, or undefined when there is none (or it is unreadable). */
+function readManifest(dir: string): string[] | undefined {
+  try {
+    const json = JSON.parse(readFileSync(join(dir, MANIFEST), 'utf8')) as {
+      generator?: unknown;
+      files?: unknown;
+    };
+    if (json.generator !== REPORT_GENERATOR || !Array.isArray(json.files)) return undefined;
+    // Only plain relative names inside the folder: a manifest never points elsewhere.
+    return json.files.filter(
+      (f): f is string =>
+        typeof f === 'string' && f !== '' && !f.startsWith('/') && !f.split(/[\\/]/).includes('..'),
+    );
+  } catch {
+    return undefined;
+  }
+}
+
+/** Whether the folder holds a report.json of an earlier version, written before manifests. */
+function isMarkedReport(dir: string): boolean {
   try {
     const json = JSON.parse(readFileSync(join(dir, 'report.json'), 'utf8')) as { generator?: string };
     return json.generator === REPORT_GENERATOR;
   } catch {
     return false;
+  }
+}
+
+/**
+ * A staging or set-aside folder of a run that was killed outright (no clean-up was possible):
+ * its process is gone. Set-aside folders hold an earlier report's files, so only staging
+ * folders are ever removed.
+ */
+function isStale(entry: string, marks = [STAGING_MARK, ASIDE_MARK]): boolean {
+  const mark = marks.find((m) => entry.startsWith(m));
+  const pid = mark === undefined ? undefined : /^(\d+)-[0-9a-f]+$/.exec(entry.slice(mark.length))?.[1];
+  if (pid === undefined) return false;
+  try {
+    process.kill(Number(pid), 0);
+    return false;
+  } catch (e) {
+    return (e as { code?: string }).code === 'ESRCH';
+  }
+}
+
+function removeStale(dir: string): void {
+  for (const e of readdirSync(dir)) {
+    if (isStale(e, [STAGING_MARK])) rmSync(join(dir, e), { recursive: true, force: true });
   }
 }

@@ -3,6 +3,7 @@
  */
 
 import { InputError } from './errors.js';
+import { ENERGY_LIMIT } from './limits.js';
 
 /** cm⁻¹ per eV: 1 eV / (h c) = 8065.543937… cm⁻¹ (CODATA 2018). */
 export const CM_PER_EV = 8065.543937;
@@ -88,11 +89,21 @@ export function parseEnergy(text: string, defaultUnit: EnergyUnit = 'cm-1'): Par
   }
   if (!(value.number > 0)) throw new InputError(`energy "${text}": expected a positive number`);
   const cm = toWavenumber(value.number, unit);
+  if (!(cm >= ENERGY_LIMIT.min && cm <= ENERGY_LIMIT.max)) {
+    throw new InputError(
+      `energy "${text}": expected ${ENERGY_LIMIT.min} to ${ENERGY_LIMIT.max} cm⁻¹ (${1e7 / ENERGY_LIMIT.max} to ${1e7 / ENERGY_LIMIT.min} nm)`,
+    );
+  }
   if (!sigmaPart) return { value: cm };
   if (!(sigmaPart.number > 0)) throw new InputError(`uncertainty in "${text}": expected a positive number`);
   // Through the conversion: σ(ν̃) = |dν̃/dx| σ(x).
   const sigma =
     unit === 'nm' ? (1e7 / value.number ** 2) * sigmaPart.number : toWavenumber(sigmaPart.number, unit);
+  if (!(sigma >= 1e-3 && sigma <= cm)) {
+    throw new InputError(
+      `uncertainty in "${text}": expected at least 0.001 cm⁻¹ and less than the energy itself`,
+    );
+  }
   return { value: cm, sigma };
 }
 

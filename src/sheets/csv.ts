@@ -31,9 +31,18 @@ export function splitCsvLine(line: string, delimiter = ','): string[] {
   return cells;
 }
 
-/** One field for CSV text: quoted when it holds a comma, a quote or a line break. */
+/** A plain number, which a spreadsheet reads as a number and never as a formula. */
+const PLAIN_NUMBER = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
+
+/**
+ * One field for CSV text: quoted when it holds a comma, a quote or a line break. A field that
+ * starts with `=`, `+`, `-`, `@`, a tab or a carriage return (and is not a plain number) gets a
+ * leading `'`, so a spreadsheet shows it as text instead of running it as a formula (OWASP,
+ * "CSV Injection", from memory).
+ */
 export function csvField(text: string): string {
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+  const safe = /^[=+\-@\t\r]/.test(text) && !PLAIN_NUMBER.test(text) ? `'${text}` : text;
+  return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
 }
 
 /** CSV text of rows of fields, one line each, ending in a newline. */

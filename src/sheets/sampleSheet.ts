@@ -8,6 +8,13 @@ import { z } from 'zod';
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { InputError } from '../core/errors.js';
 import { findIon } from '../core/ions.js';
+import {
+  C_OVER_B_LIMIT,
+  CONCENTRATION_LIMIT,
+  type Limit,
+  limitText,
+  PATH_LENGTH_LIMIT,
+} from '../core/limits.js';
 import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
 import type { Geometry } from '../field/labels.js';
 import { MAX_ZETA } from '../field/spinOrbit.js';
@@ -78,6 +85,9 @@ export interface SampleSheet {
   readonly problems: readonly SheetProblem[];
 }
 
+/** A number within one of the ranges of `core/limits.ts`. */
+const within = (limit: Limit) => z.number().min(limit.min).max(limit.max);
+
 const bandsField = z.union([z.string(), z.array(z.union([z.string(), z.number()])).min(1)]);
 const listField = z.union([z.string(), z.array(z.string())]);
 
@@ -91,15 +101,15 @@ const spectrumSchema = z.union([
       xColumn: z.union([z.string(), z.number().int().positive()]).optional(),
       yColumn: z.union([z.string(), z.number().int().positive()]).optional(),
       range: z.string().optional(),
-      conc: z.number().positive().optional(),
-      path: z.number().positive().optional(),
+      conc: within(CONCENTRATION_LIMIT).optional(),
+      path: within(PATH_LENGTH_LIMIT).optional(),
     })
     .strict(),
 ]);
 
 const optionsShape = {
   geometry: z.enum(['oct', 'tet']).optional(),
-  cb: z.number().positive().optional(),
+  cb: within(C_OVER_B_LIMIT).optional(),
   fitC: z.boolean().optional(),
   spinForbidden: z.boolean().optional(),
   keepBands: z.boolean().optional(),
@@ -191,9 +201,9 @@ const EXPECTED: Readonly<Record<string, string>> = {
   spectrum:
     'a file path, or an object with file and optionally xUnit, yUnit, xColumn, yColumn, range, conc, path',
   'spectrum.file': 'a file path',
-  'spectrum.conc': 'a positive number (mol/L)',
-  'spectrum.path': 'a positive number (cm)',
-  cb: 'a positive number (C/B)',
+  'spectrum.conc': limitText(CONCENTRATION_LIMIT),
+  'spectrum.path': limitText(PATH_LENGTH_LIMIT),
+  cb: `${limitText(C_OVER_B_LIMIT)} (C/B)`,
   fitC: 'true or false',
   spinForbidden: 'true or false',
   keepBands: 'true or false',

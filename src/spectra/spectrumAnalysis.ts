@@ -196,7 +196,7 @@ function spectrumCautions(
   spectrum: AbsorptionSpectrum,
   predicted?: CubicResult,
 ): string[] {
-  const out = [...windowCautions(analysis), ...bandCautions(analysis)];
+  const out = [...signCautions(spectrum), ...windowCautions(analysis), ...bandCautions(analysis)];
   if (spectrum.quantity !== 'epsilon') {
     out.push(
       spectrum.quantity === 'absorbance'
@@ -210,6 +210,19 @@ function spectrumCautions(
   );
   if (predicted) out.push(...cubicCautions(predicted).map((c) => c.message));
   return out;
+}
+
+/**
+ * A caution when no absorbance (or ε) is above zero: an absorption spectrum has positive bands,
+ * so the blank was subtracted the wrong way round or the column is not absorbance, and bands
+ * fitted to it mean nothing.
+ */
+function signCautions(spectrum: AbsorptionSpectrum): string[] {
+  if (spectrum.quantity === 'arbitrary' || spectrum.value.some((v) => v > 0)) return [];
+  const what = spectrum.quantity === 'epsilon' ? 'ε' : 'absorbance';
+  return [
+    `every ${what} value is zero or negative: the blank may have been subtracted the wrong way round, or the y column is not ${what}; the bands below are not to be trusted`,
+  ];
 }
 
 /** Cautions about the window: cut to the data, or a band's maximum beyond either end. */

@@ -70,6 +70,7 @@ export function parseJcampSpectrum(text: string): RawSpectrum {
       }
     }
   }
+  checkHeader(text, xs, ys);
   const xText = String(spectrum.xUnits ?? '').trim();
   const yText = String(spectrum.yUnits ?? '').trim();
   const xUnit = unitOf(X_UNITS, xText, 'XUNITS');
@@ -92,4 +93,73 @@ function unitOf<U>(
 ): UnitChoice<U> | undefined {
   const unit = table[text.toUpperCase().replace(/\s+/g, ' ')];
   return unit === undefined ? undefined : { unit, origin: `JCAMP-DX ##${label}=${text}` };
+}
+
+/** The labelled records before the first data table, by label without spaces, dashes or slashes. */
+function headerRecords(text: string): Map<string, string> {
+  const records = new Map<string, string>();
+  for (const line of text.split(/\r?\n/)) {
+    const m = /^\s*##([^=]+)=(.*)$/.exec(line);
+    if (!m) continue;
+    const label = (m[1] ?? '').toUpperCase().replace(/[\s\-/_]/g, '');
+    if (label === 'XYDATA' || label === 'PEAKTABLE' || label === 'XYPOINTS') {
+      records.set(label, text.slice(text.indexOf(line) + line.length).replace(/^\r?\n/, ''));
+      break;
+    }
+    if (!records.has(label)) records.set(label, (m[2] ?? '').trim());
+  }
+  return records;
+}
+
+/** Whether two numbers agree to about one part in 10⁴ of the larger. */
+function agree(a: number, b: number): boolean {
+  return Math.abs(a - b) <= 1e-4 * Math.max(Math.abs(a), Math.abs(b), 1e-12);
+}
+
+/**
+ * Holds the decoded data against the header's ##NPOINTS, ##FIRSTX, ##LASTX, ##XFACTOR,
+ * ##FIRSTY and ##YFACTOR, so a wrong header is refused instead of silently rescaling or
+ * re-spacing the spectrum.
+ * @throws InputError naming the record that disagrees with the data.
+ */
+function checkHeader(text: string, xs: readonly number[], ys: readonly number[]): void {
+  const h = headerRecords(text);
+  const num = (label: string): number | undefined => {
+    const v = h.get(label);
+    if (v === undefined) return undefined;
+    const n = Number(v);
+    if (v === '' || !Number.isFinite(n)) throw new InputError(`##${label}=${v}: expected a number`);
+    return n;
+  };
+  const npoints = num('NPOINTS');
+  if (npoints !== undefined && npoints !== xs.length) {
+    throw new InputError(
+      `##NPOINTS=${npoints}, but the data hold ${xs.length} points: the header or the data are wrong`,
+    );
+  }
+  const firstX = num('FIRSTX');
+  const lastX = num('LASTX');
+  if (firstX !== undefined && !agree(xs[0] as number, firstX)) {
+    throw new InputError(`##FIRSTX=${firstX}, but the first x of the data is ${xs[0]}`);
+  }
+  if (lastX !== undefined && !agree(xs[xs.length - 1] as number, lastX)) {
+    throw new InputError(`##LASTX=${lastX}, but the last x of the data is ${xs[xs.length - 1]}`);
+  }
+  const xFactor = num('XFACTOR');
+  const firstLine = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)/.exec(h.get('XYDATA') ?? '');
+  if (xFactor !== undefined && firstX !== undefined && firstLine) {
+    const x0 = Number(firstLine[1]) * xFactor;
+    if (!agree(x0, firstX)) {
+      throw new InputError(
+        `##XFACTOR=${xFactor}: the first x of the data, ${firstLine[1]} × ${xFactor} = ${x0}, is not ##FIRSTX=${firstX}`,
+      );
+    }
+  }
+  const firstY = num('FIRSTY');
+  if (firstY !== undefined && !agree(ys[0] as number, firstY)) {
+    const factor = h.get('YFACTOR');
+    throw new InputError(
+      `##FIRSTY=${firstY}, but the first y of the data is ${ys[0]}${factor === undefined ? ' (no ##YFACTOR)' : ` after ##YFACTOR=${factor}`}: the factor or the data are wrong`,
+    );
+  }
 }

@@ -135,9 +135,16 @@ describe('termsplit fit (in process)', () => {
     [['--ion', 'Ni2+', '--bands', '8500,13800', '--unit', 'Hz'], /unit "Hz"/],
     [
       ['--ion', 'Ni2+', '--bands', '8500,13800', '--assign', '3T2g,3T1g(F),3T1g(P)'],
-      /3 assignments for 2 bands/,
+      /--assign "3T2g,3T1g\(F\),3T1g\(P\)": 3 labels for 2 bands: expected one per band/,
     ],
-    [['--ion', 'Ni2+', '--bands', '8500,13800', '--assign', '4T2g'], /no such level of d8.*expected one of/],
+    [
+      ['--ion', 'Ni2+', '--bands', '8500,13800', '--assign', '3T2g'],
+      /1 label for 2 bands: expected one per band/,
+    ],
+    [
+      ['--ion', 'Ni2+', '--bands', '8500,13800', '--assign', '4T2g,?'],
+      /no such level of d8.*expected one of/,
+    ],
     [
       ['--ion', 'V3+', '--bands', '17800'],
       /1 band: .*cannot fix Dq and B: give a second band, or hold B .*\(--B\)/,

@@ -24,7 +24,7 @@ describe('termsplit magnetism (in process)', () => {
       '--d',
       '1',
       '--dq',
-      '1e5',
+      '1e4',
       '--zeta',
       '154',
       '--tmin',
