@@ -9,6 +9,7 @@ import type { Command } from 'commander';
 import { renderDiagram } from '../../charts/diagram.js';
 import { type FigureFormat, formatOfPath } from '../../charts/render.js';
 import { type SampleMark, samplePosition } from '../../charts/sampleOverlay.js';
+import { DEFAULT_SWEEP_STEPS } from '../../src/analysis/distortionSweep.js';
 import {
   type SpinOrbitDiagram,
   spinOrbitAsCorrelation,
@@ -34,6 +35,8 @@ import {
   sweepDiagram,
   unicodeLabel,
 } from '../../src/index.js';
+import { type DistortionDiagramOptions, distortionDiagramCommand } from '../distorted.js';
+import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFilesAtomic } from '../files.js';
 import { fixed, jsonText } from '../format.js';
 import { type Io, progress } from '../io.js';
@@ -68,9 +71,11 @@ export interface DiagramOptions {
 
 /** `termsplit diagram`: a correlation diagram as a figure and as data, with a sample on it. */
 export function registerDiagram(program: Command, io: Io): void {
-  program
+  const command = program
     .command('diagram')
-    .description('correlation (Tanabe–Sugano-style) diagram of dⁿ at a chosen C/B: figure and curve data')
+    .description(
+      'correlation (Tanabe–Sugano-style) diagram of dⁿ at a chosen C/B, or the levels of a distorted complex along a distortion (--distort with a geometry): figure and curve data',
+    )
     .argument('[config]', 'the d configuration, e.g. d6 (optional with --ion)')
     .option('--ion <name>', 'the metal ion, e.g. Fe2+ (gives n and the free-ion C/B)')
     .option(...GEOMETRY_OPTION)
@@ -90,9 +95,32 @@ export function registerDiagram(program: Command, io: Io): void {
     )
     .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('--json', 'print the curve data as one JSON object on stdout (the figure only with -o)')
-    .action((configText: string | undefined, opts: DiagramOptions) => {
+    .option(
+      '--distort <coordinate>',
+      "with a geometry: ratio:KIND (scale that kind's eσ, eπ), angle (the shape angle), or a parameter of --tetragonal/--trigonal (ds, dt, dSigma, dTau, dq); --emax is then in cm⁻¹",
+    )
+    .option('--from <x>', 'start of the distortion coordinate (ratio: default 1)')
+    .option('--to <x>', 'end of the distortion coordinate (ratio: default 0)')
+    .option('--steps <n>', 'number of intervals along the distortion', String(DEFAULT_SWEEP_STEPS));
+  addFieldOptions(command).action(
+    (configText: string | undefined, opts: DiagramOptions & DistortionDiagramOptions) => {
+      if (hasFieldOptions(opts) || opts.distort !== undefined) {
+        if (opts.distort === undefined)
+          throw new InputError('with a geometry, diagram needs --distort (e.g. ratio:ax or angle)');
+        if (!hasFieldOptions(opts))
+          throw new InputError('--distort needs a geometry: --shape, --xyz, --tetragonal or --trigonal');
+        if (opts.dq !== undefined || opts.bands !== undefined) {
+          throw new InputError(
+            '--dq and --bands mark a sample on the cubic diagram: leave them out with --distort',
+          );
+        }
+        const { n, ion } = configOrIon(configText, opts.ion);
+        io.out(distortionDiagramCommand(n, ion, opts, io));
+        return;
+      }
       io.out(diagramCommand(configText, opts, io));
-    });
+    },
+  );
 }
 
 /** A sample given on the command line, with where it sits on the diagram. */

@@ -12,7 +12,17 @@ import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
 import { unicodeConfiguration, unicodeTerm } from '../../src/field/labels.js';
 import { type SpinOrbitResult, solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
-import { type CubicLevel, cmToEv, cmToNm, cubicCautions, findIon, unicodeLabel } from '../../src/index.js';
+import {
+  type CubicLevel,
+  cmToEv,
+  cmToNm,
+  cubicCautions,
+  findIon,
+  InputError,
+  unicodeLabel,
+} from '../../src/index.js';
+import { distortedLevels } from '../distorted.js';
+import { addFieldOptions, type FieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFileAtomic } from '../files.js';
 import { fixed, jsonText, listSection, table } from '../format.js';
 import type { Io } from '../io.js';
@@ -38,10 +48,10 @@ export interface LevelsOptions extends LevelOptions {
 
 /** `termsplit levels`: every level of dⁿ in a cubic field, labelled, with the predicted bands. */
 export function registerLevels(program: Command, io: Io): void {
-  program
+  const command = program
     .command('levels')
     .description(
-      'levels of dⁿ in an octahedral or tetrahedral field, labelled, with predicted band positions',
+      'levels of dⁿ in an octahedral or tetrahedral field, or in a complex of lower symmetry (--shape, --xyz, --tetragonal, --trigonal), labelled, with predicted band positions',
     )
     .option('--ion <name>', 'the metal ion, e.g. Cr3+ (gives n and the free-ion C/B)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
@@ -53,18 +63,23 @@ export function registerLevels(program: Command, io: Io): void {
     .option('--zeta <cm-1|ion>', ZETA_HELP)
     .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('-o, --output <file>', 'also draw the energy-level diagram, free ion → field: .png, .svg or .pdf')
-    .option('--json', 'print one JSON object on stdout')
-    .action((opts: LevelsOptions) => {
-      const figure = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
-      const format = opts.output === undefined ? undefined : formatOfPath(opts.output);
-      const solved = levelsFromOptions(opts);
-      const spinOrbit = spinOrbitFromOptions(opts, solved);
-      if (figure !== undefined && format !== undefined) {
-        const options = solved.ion ? { ion: solved.ion } : {};
-        writeFileAtomic(figure, renderLevelDiagram(solved.result, { format }, options));
-      }
-      io.out(levelsText(opts, solved, figure, spinOrbit));
-    });
+    .option('--json', 'print one JSON object on stdout');
+  addFieldOptions(command).action((opts: LevelsOptions & FieldOptions) => {
+    if (hasFieldOptions(opts)) {
+      if (opts.zeta !== undefined) throw new InputError('--zeta is for cubic fields: leave it out with a geometry');
+      io.out(distortedLevels(opts, io));
+      return;
+    }
+    const figure = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
+    const format = opts.output === undefined ? undefined : formatOfPath(opts.output);
+    const solved = levelsFromOptions(opts);
+    const spinOrbit = spinOrbitFromOptions(opts, solved);
+    if (figure !== undefined && format !== undefined) {
+      const options = solved.ion ? { ion: solved.ion } : {};
+      writeFileAtomic(figure, renderLevelDiagram(solved.result, { format }, options));
+    }
+    io.out(levelsText(opts, solved, figure, spinOrbit));
+  });
 }
 
 /** The levels with spin–orbit coupling when `--zeta` is given, at the same Dq, B and C. */

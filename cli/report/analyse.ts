@@ -29,6 +29,7 @@ import { DEFAULT_BASELINE } from '../../src/spectra/bandFinding.js';
 import { parseRange } from '../../src/spectra/energyRange.js';
 import { analyseSpectrum, type SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
 import { parseXUnit, parseYUnit } from '../../src/spectra/spectrumUnits.js';
+import { type DistortedSampleReport, distortedSampleFit } from '../distorted.js';
 import { readTextFile } from '../files.js';
 import { crossingsJson, verdictJson } from '../present/crossoverPresent.js';
 import { fitJson, solutionJson } from '../present/fitPresent.js';
@@ -93,6 +94,8 @@ export interface SampleResult {
   /** μ_eff with spin–orbit coupling beside spin-only, when the sheet gives the sample a ζ. */
   readonly magnetism?: MagnetismReport;
   readonly cautions: readonly string[];
+  /** The fit with the sample's geometry, when the sheet gives one (`structure`). */
+  readonly structure?: DistortedSampleReport;
   /** Figures as SVG text (the HTML report embeds them; files are written beside it). */
   readonly svg: { readonly diagram?: string; readonly spectrum?: string };
 }
@@ -153,6 +156,7 @@ function analyse(task: SampleTask): SampleResult {
   const spin = spinReport(ion.n, sample.geometry, best);
   const magnetism =
     sample.zeta === undefined ? undefined : magnetismReport(ion.n, sample.geometry, best, sample.zeta);
+  const structure = structureFit(task, ion, ratio, result.bands, cautions);
   return {
     ok: true,
     name: sample.name,
@@ -170,8 +174,31 @@ function analyse(task: SampleTask): SampleResult {
     ...(spin ? { spin } : {}),
     ...(magnetism ? { magnetism } : {}),
     cautions: [...new Set(cautions)],
+    ...(structure ? { structure } : {}),
     svg: { ...(diagram ? { diagram } : {}), ...(spectrumSvg ? { spectrum: spectrumSvg } : {}) },
   };
+}
+
+/**
+ * The fit with the sample's geometry; a problem with the geometry becomes a caution, so the cubic
+ * analysis still stands.
+ */
+function structureFit(
+  task: SampleTask,
+  ion: FreeIon,
+  ratio: RatioChoice,
+  bands: readonly { energy: number; sigma?: number }[],
+  cautions: string[],
+): DistortedSampleReport | undefined {
+  const { structure } = task.sample;
+  if (!structure) return undefined;
+  try {
+    return distortedSampleFit(structure, task.sheetDir, { n: ion.n, ion, cOverB: ratio.cOverB, bands });
+  } catch (e) {
+    if (!(e instanceof InputError)) throw e;
+    cautions.push(`structure: ${e.message}; no fit with the geometry`);
+    return undefined;
+  }
 }
 
 /** The fit of the sample's given bands, or of the bands found in its spectrum. */
@@ -186,7 +213,8 @@ function sampleFit(task: SampleTask, ion: FreeIon, ratio: RatioChoice): SampleFi
       ),
       freeIon: ion,
       cOverB: ratio.cOverB,
-      fitC: sample.fitC,
+      ...(sample.fitC !== undefined ? { fitC: sample.fitC } : {}),
+      merge: !sample.keepBands,
       includeSpinForbidden: sample.spinForbidden,
       ...(sample.spinState ? { spinState: sample.spinState } : {}),
       ...(sample.assign ? { assignments: sample.assign } : {}),
@@ -244,7 +272,8 @@ function sampleSpectrum(
         geometry,
         ion,
         ratio,
-        fitC: sample.fitC,
+        // Spectra keep C held unless the sheet asks for it.
+        fitC: sample.fitC ?? false,
         includeSpinForbidden: sample.spinForbidden,
         ...(sample.spinState ? { spinState: sample.spinState } : {}),
       },
