@@ -66,7 +66,8 @@ export function registerLevels(program: Command, io: Io): void {
     .option('--json', 'print one JSON object on stdout');
   addFieldOptions(command).action((opts: LevelsOptions & FieldOptions) => {
     if (hasFieldOptions(opts)) {
-      if (opts.zeta !== undefined) throw new InputError('--zeta is for cubic fields: leave it out with a geometry');
+      if (opts.zeta !== undefined)
+        throw new InputError('--zeta is for cubic fields: leave it out with a geometry');
       io.out(distortedLevels(opts, io));
       return;
     }
