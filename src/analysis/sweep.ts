@@ -114,14 +114,14 @@ export interface CorrelationDiagram {
 }
 
 /**
- * Sweeps Δ/B from 0 to `maxDeltaOverB` at fixed C/B for dⁿ (n = 1…9) in an octahedral or
- * tetrahedral field: the energy of every level above the ground state, in units of B, followed
- * by label (levels of one ²ˢ⁺¹Γ never cross, so the solver's labels name the same state at every
- * point), with the exact crossings found by {@link groundStateCrossings}.
- * @throws InputError for n outside 1…9, a non-positive C/B or maximum, or a point count outside
- * 2…{@link MAX_SWEEP_POINTS}.
+ * The settings of a sweep with their defaults, checked: n 1…9, the geometry, C/B, the largest Δ/B
+ * and the point count (shared by the diagrams with and without spin–orbit coupling).
+ * @throws InputError naming the value at fault.
  */
-export function sweepDiagram(n: number, options: SweepOptions = {}): CorrelationDiagram {
+export function sweepSettings(
+  n: number,
+  options: Omit<SweepOptions, 'onProgress'>,
+): { geometry: Geometry; cOverB: number; maxDeltaOverB: number; points: number } {
   const geometry = options.geometry ?? DEFAULT_GEOMETRY;
   const cOverB = options.cOverB ?? DEFAULT_C_OVER_B;
   const maxDeltaOverB = options.maxDeltaOverB ?? DEFAULT_MAX_DELTA_OVER_B;
@@ -143,6 +143,19 @@ export function sweepDiagram(n: number, options: SweepOptions = {}): Correlation
     Number.isInteger(points) && points >= 2 && points <= MAX_SWEEP_POINTS,
     `points ${points}: expected a whole number from 2 to ${MAX_SWEEP_POINTS}`,
   );
+  return { geometry, cOverB, maxDeltaOverB, points };
+}
+
+/**
+ * Sweeps Δ/B from 0 to `maxDeltaOverB` at fixed C/B for dⁿ (n = 1…9) in an octahedral or
+ * tetrahedral field: the energy of every level above the ground state, in units of B, followed
+ * by label (levels of one ²ˢ⁺¹Γ never cross, so the solver's labels name the same state at every
+ * point), with the exact crossings found by {@link groundStateCrossings}.
+ * @throws InputError for n outside 1…9, a non-positive C/B or maximum, or a point count outside
+ * 2…{@link MAX_SWEEP_POINTS}.
+ */
+export function sweepDiagram(n: number, options: SweepOptions = {}): CorrelationDiagram {
+  const { geometry, cOverB, maxDeltaOverB, points } = sweepSettings(n, options);
   const B = SWEEP_B;
   const C = cOverB * B;
   const crossings: DiagramCrossing[] = groundStateCrossings({ n, geometry, B, C, maxDeltaOverB }).map(
