@@ -195,7 +195,7 @@ function sampleSpectrum(
   const xUnit = spec.xUnit === undefined ? undefined : parseXUnit(spec.xUnit);
   const yUnit = spec.yUnit === undefined ? undefined : parseYUnit(spec.yUnit);
   if ((spec.conc === undefined) !== (spec.path === undefined)) {
-    throw new InputError('give both --conc (mol/L) and --path (cm) to turn absorbance into ε');
+    throw new InputError('give both spectrum fields conc (mol/L) and path (cm) to turn absorbance into ε');
   }
   const range = spec.range === undefined ? undefined : parseRange(spec.range);
   const file = spectrumPath(task);
@@ -213,6 +213,7 @@ function sampleSpectrum(
       ...(range ? { range } : {}),
       baseline: DEFAULT_BASELINE,
       includeChargeTransfer: false,
+      names: { concentrationAndPath: 'the spectrum fields conc and path in the sample sheet' },
       fit: {
         n: ion.n,
         geometry,
