@@ -8,6 +8,7 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { quantityTitle } from '../../charts/spectrum.js';
+import { elementOfIon } from '../../src/core/ions.js';
 import { cmToNm, type FoundBand, type Geometry, InputError, unicodeLabel } from '../../src/index.js';
 import type { BaselineKind } from '../../src/spectra/bandDecomposition.js';
 import { DEFAULT_BASELINE, DEFAULT_MAX_BANDS, DEFAULT_MIN_FWHM } from '../../src/spectra/bandFinding.js';
@@ -183,10 +184,12 @@ function spectrumJob(opts: SpectrumOptions): {
   checkFitOnly(opts, predicted !== undefined, choice !== undefined);
   const fit: SpectrumFitRequest | undefined =
     predicted || !choice ? undefined : fitRequest(opts, choice, geometry);
+  const element = elementOfIon(choice?.ion?.ion ?? predicted?.ion);
   const options: SpectrumAnalysisOptions = {
     ...reading,
     ...search,
     names: OPTION_NAMES,
+    ...(element ? { element } : {}),
     ...(fit ? { fit } : {}),
     ...(predicted ? { predicted: predicted.result } : {}),
   };
@@ -316,6 +319,7 @@ function bandLines(r: SpectrumReport): string[] {
   lines.push('');
   const unit = spectrum.quantity === 'epsilon' ? 'ε' : spectrum.quantity === 'absorbance' ? 'A' : 'y';
   lines.push(`Bands (Gaussian components; ${quantityTitle(spectrum.quantity)}):`);
+  const fitNotes = narrowBandNotes(r);
   const rows = analysis.bands.map((band) => {
     const edge = band.flags.includes('blue-edge') || band.flags.includes('red-edge');
     return [
@@ -328,7 +332,12 @@ function bandLines(r: SpectrumReport): string[] {
       sig(band.area),
       band.oscillatorStrength === undefined ? '—' : band.oscillatorStrength.toExponential(1),
       band.intensityRange ?? '—',
-      [...band.flags.map((f) => FLAG_TEXT[f]), r.ligandField.includes(band) ? '' : 'not a ligand-field band']
+      [
+        ...band.flags.map((f) =>
+          f === 'narrow' ? (fitNotes.get(band.number) ?? FLAG_TEXT[f]) : FLAG_TEXT[f],
+        ),
+        r.ligandField.includes(band) ? '' : 'not a ligand-field band',
+      ]
         .filter((t) => t !== '')
         .join('; '),
     ];
@@ -351,6 +360,21 @@ function bandLines(r: SpectrumReport): string[] {
     ),
   );
   return lines;
+}
+
+/** What the fit made of each narrow band: merged with its neighbours, or matched to a level as a sharp band. */
+function narrowBandNotes(r: SpectrumReport): Map<number, string> {
+  const notes = new Map<number, string>();
+  if (!r.fit || !('result' in r.fit)) return notes;
+  const { members, result } = r.fit;
+  for (const group of members) {
+    if (group.length > 1)
+      for (const k of group) notes.set(k, `narrow: component of one band (${group.join('+')}), merged`);
+  }
+  for (const m of result.solutions[0]?.sharp ?? []) {
+    for (const k of members[m.band] ?? []) notes.set(k, `sharp: matched to ${unicodeLabel(m.label)}`);
+  }
+  return notes;
 }
 
 /** The ligand-field bands as observations for a fit. */

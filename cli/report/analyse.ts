@@ -7,6 +7,7 @@
 
 import { resolve } from 'node:path';
 import { crossoverCautions } from '../../src/analysis/crossover.js';
+import { elementOfIon } from '../../src/core/ions.js';
 import { chooseRatio, type RatioChoice } from '../../src/core/ratioChoice.js';
 import {
   type FitResult,
@@ -214,6 +215,7 @@ function sampleSpectrum(
       baseline: DEFAULT_BASELINE,
       includeChargeTransfer: false,
       names: { concentrationAndPath: 'the spectrum fields conc and path in the sample sheet' },
+      ...(elementOfIon(ion.ion) ? { element: elementOfIon(ion.ion) } : {}),
       fit: {
         n: ion.n,
         geometry,

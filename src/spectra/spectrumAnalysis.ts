@@ -14,6 +14,7 @@ import type { RatioChoice } from '../core/ratioChoice.js';
 import type { CubicResult } from '../field/cubic.js';
 import type { FitResult } from '../fit/fitTypes.js';
 import { type AbsorptionSpectrum, absorptionSpectrum } from './absorptionSpectrum.js';
+import { multipletComponents } from './bandClasses.js';
 import {
   type BandAnalysis,
   type BaselineKind,
@@ -96,6 +97,8 @@ export interface SpectrumAnalysisOptions {
   readonly fit?: SpectrumFitRequest;
   /** Levels predicted from given Dq, B and C, to mark instead of fitting. */
   readonly predicted?: CubicResult;
+  /** The element (such as `Fe`), for advice that holds for one element only. @default unknown */
+  readonly element?: string;
   /** Names of the settings in hints. @default {@link PLAIN_SETTING_NAMES} */
   readonly names?: SettingNames;
 }
@@ -185,7 +188,7 @@ export function analyseSpectrum(text: string, options: SpectrumAnalysisOptions):
   const ligandField = fitted?.ligandField ?? found;
   const best = fit && 'result' in fit ? fit.result.solutions[0] : undefined;
   const levels = options.predicted ?? best?.levels;
-  const cautions = spectrumCautions(analysis, spectrum, names, geometry, levels);
+  const cautions = spectrumCautions(analysis, spectrum, names, geometry, levels, options.element);
   if (fit && 'failure' in fit) cautions.push(`no ligand-field fit: ${fit.failure}`);
   if (fit && 'result' in fit) cautions.push(...adoptionCautions(analysis, fit));
   const transitions = levels ? markedTransitions(levels, ligandField, fit) : [];
@@ -359,6 +362,7 @@ function spectrumCautions(
   names: SettingNames,
   geometry: Geometry | undefined,
   predicted?: CubicResult,
+  element?: string,
 ): string[] {
   const out = [...windowCautions(analysis), ...bandCautions(analysis, geometry)];
   if (spectrum.quantity !== 'epsilon') {
@@ -372,7 +376,7 @@ function spectrumCautions(
     'band positions are centres of Gaussian components (vertical transitions); a ligand-field fit to band maxima ' +
       'ignores vibronic structure and the Stokes shift, so Dq and B carry that approximation',
   );
-  if (predicted) out.push(...cubicCautions(predicted).map((c) => c.message));
+  if (predicted) out.push(...cubicCautions(predicted, element).map((c) => c.message));
   return out;
 }
 
@@ -417,12 +421,22 @@ function bandCautions(analysis: BandAnalysis, geometry: Geometry | undefined): s
       `band ${b.number} has ε ≈ ${fixed(b.height)} L mol⁻¹ cm⁻¹, in the charge-transfer range${where} (≥ ${limit}; Lever 1984, from memory)`,
     );
   }
-  const narrow = analysis.bands.filter((b) => b.flags.includes('narrow') && !b.chargeTransfer);
+  const parts = multipletComponents(analysis.bands);
+  const narrow = analysis.bands.filter(
+    (b) => b.flags.includes('narrow') && !b.chargeTransfer && !parts.has(b),
+  );
   if (narrow.length > 0) {
     out.push(
       `band${narrow.length > 1 ? 's' : ''} ${narrow.map((b) => b.number).join(', ')} narrower than ${NARROW_BAND_FWHM} cm⁻¹: ` +
-        'sharp bands are most often spin-forbidden transitions within one configuration (matched to the predicted ' +
-        'levels after the fit, not fitted), or components of a split band (merged with their neighbours)',
+        'sharp bands are most often spin-forbidden transitions within one configuration: a fit matches them to the ' +
+        'predicted levels afterwards rather than fitting them (high-spin d⁵ excepted, whose bands are all spin-forbidden)',
+    );
+  }
+  if (parts.size > 0) {
+    const numbers = [...parts].map((b) => b.number).sort((a, b) => a - b);
+    out.push(
+      `bands ${numbers.join(', ')} are narrow components overlapping into a broad band (a spin–orbit multiplet, a ` +
+        'low-symmetry splitting or a shoulder): a fit takes them at their centroid unless asked to keep them apart',
     );
   }
   const ratio = analysis.residualRms / analysis.noise;
