@@ -33,7 +33,11 @@ function request(demo: DemoSpectrum, more: Partial<SpectrumFitRequest> = {}): Sp
 }
 
 /** The analysis with default options, ε from the cell the file names (when it has one). */
-function analyse(demo: DemoSpectrum, more: Partial<SpectrumFitRequest> = {}, withCell = true): SpectrumAnalysis {
+function analyse(
+  demo: DemoSpectrum,
+  more: Partial<SpectrumFitRequest> = {},
+  withCell = true,
+): SpectrumAnalysis {
   return analyseSpectrum(text(demo), {
     fileName: demo.file,
     baseline: 'linear',
@@ -73,7 +77,9 @@ describe('analyseSpectrum on the invented check spectra, default options', () =>
     const r = analysed(demo.file);
     const triplet = r.analysis.bands.filter((b) => b.center > 14000 && b.center < 16000);
     expect(triplet).toHaveLength(3);
-    expect(triplet.every((b) => !b.chargeTransfer && b.intensityRange === 'non-centrosymmetric d–d')).toBe(true);
+    expect(triplet.every((b) => !b.chargeTransfer && b.intensityRange === 'non-centrosymmetric d–d')).toBe(
+      true,
+    );
     expect(r.analysis.bands[0]?.intensityRange).toBe('non-centrosymmetric d–d');
     const fit = fitOf(r);
     expect(fit.leftOut).toEqual([]);
@@ -82,14 +88,6 @@ describe('analyseSpectrum on the invented check spectra, default options', () =>
     expectRecovered(r, demo);
     expect(fit.result.solutions[0]?.assignments.map((a) => a.label)).toEqual(['4T1(F)', '4T1(P)']);
     expect(bandsAt(r, '4T1(P)')).toEqual([2, 3, 4]);
-  });
-
-  it('tetrahedral [Co(qel)4]2− with merging off fits the components apart', () => {
-    const demo = spec('co-qel4-epsilon-wavenumber.csv');
-    const r = analyse(demo, { merge: false });
-    const fit = r.fit && 'result' in r.fit ? r.fit : undefined;
-    expect(fit?.result.merges ?? []).toEqual([]);
-    expect(fit?.members ?? [[1], [2], [3], [4]]).toEqual([[1], [2], [3], [4]]);
   });
 
   it('high-spin [Mn(pld)6]2+: every weak band, the sharp ⁴A₁g/⁴Eg(G) one included, is fitted as a ΔS = 1 band from ⁶A₁g', () => {
