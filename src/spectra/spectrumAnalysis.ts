@@ -245,8 +245,9 @@ const NEAR_DEGENERATE = 100;
 /**
  * The transitions to mark, each with the bands observed at it: the fit's assigned and matched
  * bands (traced to found bands), and any level within a band's position uncertainty of a level
- * that band explains (the other member of a near-degenerate pair); with predicted levels only,
- * every level within {@link LEVEL_MATCH_SIGMAS} position uncertainties of a band.
+ * that band explains with the same spin (the other member of a near-degenerate pair); with
+ * predicted levels only, every level within {@link LEVEL_MATCH_SIGMAS} position uncertainties of a
+ * band — spin-forbidden levels only of narrow bands, since a broad band is a spin-allowed one.
  */
 function markedTransitions(
   levels: CubicResult,
@@ -266,14 +267,18 @@ function markedTransitions(
     for (const [i, numbers] of [...seen]) {
       const e = excited[i]?.energy ?? 0;
       const width = Math.max(NEAR_DEGENERATE, ...numbers.map((k) => sigmaOf.get(k) ?? 0));
+      const allowed = excited[i]?.spinAllowed;
       excited.forEach((l, j) => {
-        if (!seen.has(j) && Math.abs(l.energy - e) <= width) seen.set(j, numbers);
+        if (!seen.has(j) && l.spinAllowed === allowed && Math.abs(l.energy - e) <= width)
+          seen.set(j, numbers);
       });
     }
   } else {
     excited.forEach((l, j) => {
       const near = ligandField.filter(
-        (b) => Math.abs(l.energy - b.center) <= LEVEL_MATCH_SIGMAS * positionSigma(b),
+        (b) =>
+          (l.spinAllowed || b.flags.includes('narrow')) &&
+          Math.abs(l.energy - b.center) <= LEVEL_MATCH_SIGMAS * positionSigma(b),
       );
       if (near.length > 0)
         seen.set(
