@@ -12,7 +12,8 @@ import type { FreeIon } from '../core/ions.js';
 import { fixed } from '../core/numberText.js';
 import type { RatioChoice } from '../core/ratioChoice.js';
 import type { CubicResult } from '../field/cubic.js';
-import type { FitResult } from '../fit/fitTypes.js';
+import { unicodeLabel } from '../field/labels.js';
+import { FIT_DEFAULTS, type FitResult } from '../fit/fitTypes.js';
 import { type AbsorptionSpectrum, absorptionSpectrum } from './absorptionSpectrum.js';
 import { multipletComponents } from './bandClasses.js';
 import {
@@ -69,11 +70,16 @@ export const PLAIN_SETTING_NAMES: SettingNames = {
 };
 
 /**
- * A band above the charge-transfer onset with no ε to judge it by is taken as a d–d band when it
- * lies within this many of its position uncertainties ({@link positionSigma}) of a spin-allowed
- * level predicted by the fit of the other bands (common practice, no source).
+ * A band lies at a predicted level when it is within this many standard uncertainties of it:
+ * the band's position uncertainty ({@link positionSigma}) and the model's own, the fit's default
+ * band precision ({@link FIT_DEFAULTS}), in quadrature (common practice, no source).
  */
 export const LEVEL_MATCH_SIGMAS = 3;
+
+/** Whether a band lies at a predicted level's energy (see {@link LEVEL_MATCH_SIGMAS}). */
+function liesAt(band: FoundBand, energy: number, model: number = FIT_DEFAULTS.bandPrecision): boolean {
+  return Math.abs(energy - band.center) <= LEVEL_MATCH_SIGMAS * Math.hypot(positionSigma(band), model);
+}
 
 /** Fully resolved options of {@link analyseSpectrum}. */
 export interface SpectrumAnalysisOptions {
@@ -190,7 +196,7 @@ export function analyseSpectrum(text: string, options: SpectrumAnalysisOptions):
   const levels = options.predicted ?? best?.levels;
   const cautions = spectrumCautions(analysis, spectrum, names, geometry, levels, options.element);
   if (fit && 'failure' in fit) cautions.push(`no ligand-field fit: ${fit.failure}`);
-  if (fit && 'result' in fit) cautions.push(...adoptionCautions(analysis, fit));
+  if (fit && 'result' in fit) cautions.push(...adoptionCautions(analysis, fit, names));
   const transitions = levels ? markedTransitions(levels, ligandField, fit) : [];
   return {
     raw,
@@ -226,7 +232,7 @@ function adoptMatchedBands(
       b.flags.includes('high-energy') &&
       !b.flags.includes('intense') &&
       !b.flags.includes('blue-edge') &&
-      allowed.some((l) => Math.abs(l.energy - b.center) <= LEVEL_MATCH_SIGMAS * positionSigma(b)),
+      allowed.some((l) => liesAt(b, l.energy)),
   );
   if (byPlace.length === 0) return { fit: first, ligandField: found };
   const ligandField = [...found, ...byPlace].sort((a, b) => a.number - b.number);
@@ -276,9 +282,7 @@ function markedTransitions(
   } else {
     excited.forEach((l, j) => {
       const near = ligandField.filter(
-        (b) =>
-          (l.spinAllowed || b.flags.includes('narrow')) &&
-          Math.abs(l.energy - b.center) <= LEVEL_MATCH_SIGMAS * positionSigma(b),
+        (b) => (l.spinAllowed || b.flags.includes('narrow')) && liesAt(b, l.energy, 0),
       );
       if (near.length > 0)
         seen.set(
@@ -299,8 +303,20 @@ function markedTransitions(
 function adoptionCautions(
   analysis: BandAnalysis,
   fit: Extract<SpectrumFit, { result: FitResult }>,
+  names: SettingNames,
 ): string[] {
   const out: string[] = [];
+  const best = fit.result.solutions[0];
+  const allowed = best ? best.levels.levels.filter((l) => l.spinAllowed && l !== best.levels.ground) : [];
+  for (const b of analysis.bands.filter((x) => x.flags.includes('intense') && !fit.used.includes(x.number))) {
+    const level = allowed.find((l) => liesAt(b, l.energy));
+    if (!level) continue;
+    out.push(
+      `band ${b.number} (${fixed(b.center)} cm⁻¹) has the ε of a charge-transfer band but lies at ${unicodeLabel(level.label)}, ` +
+        `predicted at ${fixed(level.energy)} cm⁻¹: if it is that d–d band (intensity borrowed from a nearby ` +
+        `charge-transfer band)${names.includeChargeTransfer ? `, ${names.includeChargeTransfer} fits it` : ', it can be fitted with the charge-transfer-like bands kept'}`,
+    );
+  }
   for (const k of fit.adopted) {
     const b = analysis.bands.find((x) => x.number === k);
     if (!b) continue;
