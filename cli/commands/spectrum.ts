@@ -371,6 +371,10 @@ function narrowBandNotes(r: SpectrumReport): Map<number, string> {
     if (group.length > 1)
       for (const k of group) notes.set(k, `narrow: component of one band (${group.join('+')}), merged`);
   }
+  for (const a of result.solutions[0]?.assignments ?? []) {
+    const group = members[a.band] ?? [];
+    if (group.length === 1) notes.set(group[0] as number, `narrow: fitted as ${unicodeLabel(a.label)}`);
+  }
   for (const m of result.solutions[0]?.sharp ?? []) {
     for (const k of members[m.band] ?? []) notes.set(k, `sharp: matched to ${unicodeLabel(m.label)}`);
   }
