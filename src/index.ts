@@ -166,6 +166,7 @@ export {
   analyseSpectrum,
   type MarkedTransition,
   readSpectrum,
+  type SettingNames,
   type SpectrumAnalysis,
   type SpectrumAnalysisOptions,
   type SpectrumFit,

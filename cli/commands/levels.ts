@@ -10,6 +10,7 @@ import { renderLevelDiagram } from '../../charts/levelDiagram.js';
 import { formatOfPath } from '../../charts/render.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
+import { elementOfIon } from '../../src/core/ions.js';
 import { unicodeConfiguration, unicodeTerm } from '../../src/field/labels.js';
 import { type SpinOrbitResult, solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
 import {
@@ -99,7 +100,7 @@ function levelsText(
   spinOrbit: SpinOrbitResult | undefined,
 ): string {
   const { result, cOrigin, ion } = solved;
-  const cautions = cubicCautions(result);
+  const cautions = cubicCautions(result, elementOfIon(ion));
   if (opts.json) {
     return jsonText({
       ...(ion ? { ion } : {}),

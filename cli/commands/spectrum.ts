@@ -8,13 +8,15 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { quantityTitle } from '../../charts/spectrum.js';
+import { elementOfIon } from '../../src/core/ions.js';
 import {
   BAND_COUNT_LIMIT,
   BAND_WIDTH_LIMIT,
+  COMPLEX_B_LIMIT,
   CONCENTRATION_LIMIT,
   PATH_LENGTH_LIMIT,
 } from '../../src/core/limits.js';
-import { cmToNm, type FoundBand, InputError, unicodeLabel } from '../../src/index.js';
+import { cmToNm, type FoundBand, type Geometry, InputError, unicodeLabel } from '../../src/index.js';
 import type { BaselineKind } from '../../src/spectra/bandDecomposition.js';
 import { DEFAULT_BASELINE, DEFAULT_MAX_BANDS, DEFAULT_MIN_FWHM } from '../../src/spectra/bandFinding.js';
 import { POSITION_WIDTH_FRACTION } from '../../src/spectra/bandObservations.js';
@@ -22,6 +24,7 @@ import { parseRange } from '../../src/spectra/energyRange.js';
 import type { SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
 import {
   analyseSpectrum,
+  type SettingNames,
   type SpectrumAnalysisOptions,
   type SpectrumFitRequest,
 } from '../../src/spectra/spectrumAnalysis.js';
@@ -64,6 +67,7 @@ export interface SpectrumOptions {
   spinForbidden?: boolean;
   spinState?: string;
   fitC?: boolean;
+  keepBands?: boolean;
   maxBands?: string;
   minWidth?: string;
   baseline?: string;
@@ -90,15 +94,16 @@ export function registerSpectrum(program: Command, io: Io): void {
     .option('--conc <mol/L>', 'concentration of the metal complex; with --path turns absorbance into ε')
     .option('--path <cm>', 'optical path length; with --conc turns absorbance into ε')
     .option('--dq <cm-1>', 'Dq for predicted transitions (10Dq = Δ)')
-    .option('--B <cm-1>', 'Racah B for predicted transitions')
-    .option('--C <cm-1>', 'Racah C (default: the ion’s free-ion C/B × B)')
+    .option('--B <cm-1>', 'Racah B: with --dq for predicted transitions, alone held in the fit (Dq fitted)')
+    .option('--C <cm-1>', 'Racah C, with --B (default: the ion’s free-ion C/B × B)')
     .option('--cb <ratio>', 'C/B instead of --C')
     .option('--include-ct', 'keep bands that look like charge transfer among the ligand-field bands')
+    .option('--spin-forbidden', 'let the fit assign any band (narrow ones too) to spin-forbidden transitions')
     .option(
-      '--spin-forbidden',
-      'fit narrow bands too, letting the fit assign them to spin-forbidden transitions',
+      '--fit-c',
+      'fit C as well as Dq and B (by default C is fitted when the bands fix it, held with --cb)',
     )
-    .option('--fit-c', 'fit C as well as Dq and B (needs at least 3 bands, one depending on C)')
+    .option('--keep-bands', 'fit components closer than a band width as separate transitions (no merging)')
     .option('--spin-state <high|low>', 'the ground-state spin when it is known: fit only that')
     .option('--max-bands <n>', 'most bands fitted inside the window', String(DEFAULT_MAX_BANDS))
     .option('--min-width <cm-1>', 'narrowest band (FWHM) looked for', String(DEFAULT_MIN_FWHM))
@@ -173,36 +178,76 @@ function spectrumJob(opts: SpectrumOptions): {
     baseline: baselineOption(opts.baseline),
     includeChargeTransfer: opts.includeCt === true,
   };
-  if (opts.dq === undefined && (opts.B !== undefined || opts.C !== undefined)) {
-    throw new InputError(
-      '--B and --C give predicted transitions only together with --dq (without them the bands are fitted)',
-    );
-  }
   const geometry = geometryOption(opts.geometry);
   const choice = opts.ion !== undefined || opts.d !== undefined ? ionOrCount(opts.ion, opts.d) : undefined;
   const predicted = opts.dq === undefined ? undefined : levelsFromOptions(opts);
+  checkFitOnly(opts, predicted !== undefined, choice !== undefined);
   // Checked whether or not a fit follows, so a bad value is refused rather than ignored.
-  const spinState = opts.spinState === undefined ? undefined : spinStateOption(opts.spinState);
-  const ratio = predicted ? undefined : ratioChoice(undefined, undefined, opts.cb, choice?.ion);
+  if (opts.spinState !== undefined) spinStateOption(opts.spinState);
+  if (predicted) ratioChoice(undefined, undefined, opts.cb, choice?.ion);
   const fit: SpectrumFitRequest | undefined =
-    predicted || !choice || !ratio
-      ? undefined
-      : {
-          n: choice.n,
-          geometry,
-          ...(choice.ion ? { ion: choice.ion } : {}),
-          ratio,
-          fitC: opts.fitC === true,
-          includeSpinForbidden: opts.spinForbidden === true,
-          ...(spinState !== undefined ? { spinState } : {}),
-        };
+    predicted || !choice ? undefined : fitRequest(opts, choice, geometry);
+  const element = elementOfIon(choice?.ion?.ion ?? predicted?.ion);
   const options: SpectrumAnalysisOptions = {
     ...reading,
     ...search,
+    names: OPTION_NAMES,
+    ...(element ? { element } : {}),
     ...(fit ? { fit } : {}),
     ...(predicted ? { predicted: predicted.result } : {}),
   };
   return predicted ? { options, predicted } : { options };
+}
+
+/** How hints name the settings: by this command's options. */
+const OPTION_NAMES: SettingNames = {
+  concentrationAndPath: '--conc and --path',
+  includeChargeTransfer: '--include-ct',
+};
+
+/** Refuses fit options that would be silently ignored: with --dq (predicted levels) or without an ion. */
+function checkFitOnly(opts: SpectrumOptions, predicted: boolean, ion: boolean): void {
+  const fitOnly = [
+    opts.spinState !== undefined ? '--spin-state' : undefined,
+    opts.fitC ? '--fit-c' : undefined,
+    opts.keepBands ? '--keep-bands' : undefined,
+    opts.spinForbidden ? '--spin-forbidden' : undefined,
+  ].filter((o): o is string => o !== undefined);
+  if (fitOnly.length > 0 && predicted) {
+    throw new InputError(
+      `${fitOnly.join(', ')}: ${fitOnly.length > 1 ? 'these apply' : 'this applies'} to the fit, and --dq with --B gives ` +
+        'predicted levels instead (leave out --dq to fit)',
+    );
+  }
+  if ((fitOnly.length > 0 || opts.B !== undefined) && !ion) {
+    const given = opts.B !== undefined ? [...fitOnly, '--B'] : fitOnly;
+    throw new InputError(`${given.join(', ')}: give --ion (or --d) so that the bands are fitted`);
+  }
+  if (!predicted && opts.C !== undefined && opts.B === undefined) {
+    throw new InputError('--C is held in the fit only together with --B (or give --cb to hold C/B)');
+  }
+}
+
+/** The fit asked for: C/B, held B (--B without --dq), spin state, merging. */
+function fitRequest(
+  opts: SpectrumOptions,
+  choice: ReturnType<typeof ionOrCount>,
+  geometry: Geometry,
+): SpectrumFitRequest {
+  const fixedB = numberOption('--B', opts.B, COMPLEX_B_LIMIT);
+  const ratio = ratioChoice(fixedB, opts.C, opts.cb, choice.ion);
+  const held = opts.cb !== undefined || opts.C !== undefined || fixedB !== undefined;
+  return {
+    n: choice.n,
+    geometry,
+    ...(choice.ion ? { ion: choice.ion } : {}),
+    ratio,
+    ...(opts.fitC ? { fitC: true } : held ? { fitC: false } : {}),
+    includeSpinForbidden: opts.spinForbidden === true,
+    merge: opts.keepBands !== true,
+    ...(fixedB !== undefined ? { fixedB } : {}),
+    ...(opts.spinState !== undefined ? { spinState: spinStateOption(opts.spinState) } : {}),
+  };
 }
 
 function baselineOption(text: string | undefined): BaselineKind {
@@ -277,6 +322,7 @@ function bandLines(r: SpectrumReport): string[] {
   lines.push('');
   const unit = spectrum.quantity === 'epsilon' ? 'ε' : spectrum.quantity === 'absorbance' ? 'A' : 'y';
   lines.push(`Bands (Gaussian components; ${quantityTitle(spectrum.quantity)}):`);
+  const fitNotes = narrowBandNotes(r);
   const rows = analysis.bands.map((band) => {
     const edge = band.flags.includes('blue-edge') || band.flags.includes('red-edge');
     return [
@@ -289,7 +335,12 @@ function bandLines(r: SpectrumReport): string[] {
       sig(band.area),
       band.oscillatorStrength === undefined ? '—' : band.oscillatorStrength.toExponential(1),
       band.intensityRange ?? '—',
-      [...band.flags.map((f) => FLAG_TEXT[f]), r.ligandField.includes(band) ? '' : 'not a ligand-field band']
+      [
+        ...band.flags.map((f) =>
+          f === 'narrow' ? (fitNotes.get(band.number) ?? FLAG_TEXT[f]) : FLAG_TEXT[f],
+        ),
+        r.ligandField.includes(band) ? '' : 'not a ligand-field band',
+      ]
         .filter((t) => t !== '')
         .join('; '),
     ];
@@ -312,6 +363,25 @@ function bandLines(r: SpectrumReport): string[] {
     ),
   );
   return lines;
+}
+
+/** What the fit made of each narrow band: merged with its neighbours, or matched to a level as a sharp band. */
+function narrowBandNotes(r: SpectrumReport): Map<number, string> {
+  const notes = new Map<number, string>();
+  if (!r.fit || !('result' in r.fit)) return notes;
+  const { members, result } = r.fit;
+  for (const group of members) {
+    if (group.length > 1)
+      for (const k of group) notes.set(k, `narrow: component of one band (${group.join('+')}), merged`);
+  }
+  for (const a of result.solutions[0]?.assignments ?? []) {
+    const group = members[a.band] ?? [];
+    if (group.length === 1) notes.set(group[0] as number, `narrow: fitted as ${unicodeLabel(a.label)}`);
+  }
+  for (const m of result.solutions[0]?.sharp ?? []) {
+    for (const k of members[m.band] ?? []) notes.set(k, `sharp: matched to ${unicodeLabel(m.label)}`);
+  }
+  return notes;
 }
 
 /** The ligand-field bands as observations for a fit. */
@@ -342,32 +412,56 @@ function predictedLines(r: SpectrumReport): string[] {
       inside.length === 0
         ? '  none'
         : table(
-            ['level', 'cm⁻¹', 'nm', 'spin'],
-            inside.map((l) => [
-              unicodeLabel(l.label),
-              fixed(l.energy),
-              fixed(cmToNm(l.energy), 1),
-              l.spinAllowed ? 'allowed' : 'forbidden',
-            ]),
+            ['level', 'cm⁻¹', 'nm', 'spin', 'observed'],
+            inside.map((l) => {
+              const seen = r.transitions.find((t) => t.label === l.label)?.bands ?? [];
+              return [
+                unicodeLabel(l.label),
+                fixed(l.energy),
+                fixed(cmToNm(l.energy), 1),
+                l.spinAllowed ? 'allowed' : 'forbidden',
+                seen.length === 0 ? '' : `band ${seen.join('+')}`,
+              ];
+            }),
           ),
     );
   }
   return lines;
 }
 
-/** The ligand-field fit of the bands. */
+/** The ligand-field fit of the bands: which bands went in, merged or matched, and the fit. */
 function fitLines(r: SpectrumReport): string[] {
   const lines: string[] = [];
   if (r.fit && 'result' in r.fit) {
-    const { result, ion, cOrigin, used, leftOut } = r.fit;
+    const { result, ion, cOrigin, used, leftOut, members } = r.fit;
+    const plural = (k: readonly number[]) => (k.length > 1 ? 's' : '');
     lines.push('');
     lines.push(
-      `Ligand-field fit of band${used.length > 1 ? 's' : ''} ${used.join(', ')}` +
+      `Ligand-field fit of band${plural(used)} ${used.join(', ')}` +
         (leftOut.length > 0
-          ? ` (narrow band${leftOut.length > 1 ? 's' : ''} ${leftOut.join(', ')} left out as possibly spin-forbidden; --spin-forbidden lets the fit assign them)`
+          ? ` (sharp band${plural(leftOut)} ${leftOut.join(', ')} not fitted but matched to predicted spin-forbidden levels; --spin-forbidden fits them)`
           : '') +
         ':',
     );
+    for (const m of result.merges) {
+      const numbers = members[m.band] ?? [];
+      lines.push(
+        `  bands ${numbers.join(', ')} merged into fit band ${m.band + 1} at their ε-weighted centroid ${fixed(m.centroid)} cm⁻¹ ` +
+          `(closer than a band width): ${m.reason}; --keep-bands fits them apart`,
+      );
+    }
+    const renumbered = members.some((m, i) => m.length !== 1 || m[0] !== used[i]);
+    if (renumbered) {
+      lines.push(
+        `  fit bands (numbered as in the fit below) → spectrum bands: ${members.map((m, i) => `${i + 1} = ${m.join('+')}`).join(', ')}`,
+      );
+    }
+    for (const m of result.solutions[0]?.sharp ?? []) {
+      lines.push(
+        `  sharp band ${(members[m.band] ?? []).join('+')} at ${fixed(m.observed)} cm⁻¹ matched to ${unicodeLabel(m.label)} ` +
+          `(calculated ${fixed(m.calculated)}, obs − calc ${fixed(m.difference)})`,
+      );
+    }
     lines.push(fitText(result, ion, cOrigin).trimEnd());
   }
   return lines;
@@ -440,10 +534,25 @@ function reportJson(r: SpectrumReport) {
               ...fitJson(r.fit.result, r.fit.ion, r.fit.cOrigin),
               usedBands: r.fit.used,
               leftOutBands: r.fit.leftOut,
+              fitBandMembers: r.fit.members,
+              mergedBands: r.fit.result.merges.map((m) => ({
+                bands: r.fit && 'result' in r.fit ? (r.fit.members[m.band] ?? []) : [],
+                centroid: m.centroid,
+                reason: m.reason,
+              })),
+              sharpBands: (r.fit.result.solutions[0]?.sharp ?? []).map((m) => ({
+                bands: r.fit && 'result' in r.fit ? (r.fit.members[m.band] ?? []) : [],
+                observed: m.observed,
+                label: m.label,
+                calculated: m.calculated,
+                difference: m.difference,
+              })),
+              adoptedBands: r.fit.adopted,
             },
           }
         : { fit: { failure: r.fit.failure } }
       : {}),
+    transitions: r.transitions,
     cautions: r.cautions,
     figure: r.figure ?? null,
   };

@@ -8,6 +8,7 @@
 
 import { resolve } from 'node:path';
 import { crossoverCautions } from '../../src/analysis/crossover.js';
+import { elementOfIon } from '../../src/core/ions.js';
 import { chooseRatio, type RatioChoice } from '../../src/core/ratioChoice.js';
 import {
   type FitResult,
@@ -254,7 +255,7 @@ function sampleSpectrum(
   const xUnit = spec.xUnit === undefined ? undefined : parseXUnit(spec.xUnit);
   const yUnit = spec.yUnit === undefined ? undefined : parseYUnit(spec.yUnit);
   if ((spec.conc === undefined) !== (spec.path === undefined)) {
-    throw new InputError('give both --conc (mol/L) and --path (cm) to turn absorbance into ε');
+    throw new InputError('give both spectrum fields conc (mol/L) and path (cm) to turn absorbance into ε');
   }
   const range = spec.range === undefined ? undefined : parseRange(spec.range);
   const file = spectrumPath(task);
@@ -272,6 +273,8 @@ function sampleSpectrum(
       ...(range ? { range } : {}),
       baseline: DEFAULT_BASELINE,
       includeChargeTransfer: false,
+      names: { concentrationAndPath: 'the spectrum fields conc and path in the sample sheet' },
+      ...(elementOfIon(ion.ion) ? { element: elementOfIon(ion.ion) } : {}),
       fit: {
         n: ion.n,
         geometry,

@@ -16,8 +16,12 @@ export interface Caution {
   readonly message: string;
 }
 
-/** Cautions about a set of cubic levels: Jahn–Teller activity, bands in the charge-transfer region, spin state. */
-export function cubicCautions(result: CubicResult): Caution[] {
+/**
+ * Cautions about a set of cubic levels: Jahn–Teller activity, bands in the charge-transfer region,
+ * spin state. `element` (such as `Fe`), when known, lets the spin-state caution name ⁵⁷Fe
+ * Mössbauer spectroscopy, a method for iron only.
+ */
+export function cubicCautions(result: CubicResult, element?: string): Caution[] {
   const out: Caution[] = [];
   const g = result.ground;
   if (g.cubicIrrep === 'E') {
@@ -60,7 +64,7 @@ export function cubicCautions(result: CubicResult): Caution[] {
       code: 'spin-state',
       message:
         `d${result.n}: the ground state here is ${unicodeLabel(g.symbol)} (S = ${halfIntegerText(g.S)}); which spin state a real compound adopts ` +
-        'depends also on temperature, lattice and entropy — magnetic or Mössbauer measurement decides',
+        `depends also on temperature, lattice and entropy — magnetic measurement${element === 'Fe' ? ' or ⁵⁷Fe Mössbauer spectroscopy' : ''} decides`,
     });
   }
   return out;

@@ -95,3 +95,8 @@ export const MAX_C_OVER_B = 100;
 export function freeIonRatio(ion: FreeIon): number | undefined {
   return ion.B !== undefined && ion.C !== undefined ? ion.C / ion.B : undefined;
 }
+
+/** The element symbol of an ion name such as `Fe2+` (`Fe`), or undefined when it has none. */
+export function elementOfIon(ion: string | undefined): string | undefined {
+  return ion?.match(/^[A-Z][a-z]?/)?.[0];
+}

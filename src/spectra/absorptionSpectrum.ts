@@ -86,7 +86,7 @@ export function absorptionSpectrum(raw: RawSpectrum, options: AbsorptionOptions 
   if (c !== undefined || l !== undefined) {
     ensure(
       c !== undefined && l !== undefined,
-      'give both the concentration (--conc) and the path length (--path)',
+      'give both the concentration and the path length to turn absorbance into ε',
     );
     ensure(c > 0 && Number.isFinite(c), `concentration ${c} mol/L: expected a positive number`);
     ensure(l > 0 && Number.isFinite(l), `path length ${l} cm: expected a positive number`);

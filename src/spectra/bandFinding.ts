@@ -16,6 +16,7 @@
 import { xNoiseStandardDeviation, xyEquallySpaced } from 'ml-spectra-processing';
 import { CHARGE_TRANSFER_ONSET } from '../analysis/cautions.js';
 import { ensure, InputError } from '../core/errors.js';
+import type { Geometry } from '../core/geometry.js';
 import type { AbsorptionQuantity } from './absorptionSpectrum.js';
 import {
   type BaselineKind,
@@ -29,7 +30,7 @@ import {
   stateCovariance,
 } from './bandDecomposition.js';
 import {
-  CHARGE_TRANSFER_EPSILON,
+  INTENSITY_LIMITS,
   type IntensityRange,
   intensityRange,
   oscillatorStrength,
@@ -52,6 +53,11 @@ export interface BandFindingOptions {
   readonly significance?: number;
   /** The baseline fitted with the bands. @default 'linear' */
   readonly baseline?: BaselineKind;
+  /**
+   * The complex's geometry, when known: the ε ranges of its bands (and the charge-transfer cut)
+   * are those of {@link INTENSITY_LIMITS} for it. @default unknown (the octahedral limits)
+   */
+  readonly geometry?: Geometry;
 }
 
 /** Default narrowest FWHM looked for, cm⁻¹. */
@@ -85,9 +91,12 @@ export const MIN_WINDOW_POINTS = 20;
 
 /** Why a band is set apart from the ligand-field bands, or needs care. */
 export type BandFlag =
-  /** ε at the maximum is in the charge-transfer range (≥ 10³ L mol⁻¹ cm⁻¹). */
+  /** ε at the maximum is in the charge-transfer range of the geometry ({@link INTENSITY_LIMITS}). */
   | 'intense'
-  /** The maximum lies above {@link CHARGE_TRANSFER_ONSET}. */
+  /**
+   * The maximum lies above {@link CHARGE_TRANSFER_ONSET}. It makes the band look like charge
+   * transfer only when its ε is not known; a known ε in the d–d range keeps it a d–d band.
+   */
   | 'high-energy'
   /** The maximum lies beyond the blue end of the window: the rising edge of a (charge-transfer) band. */
   | 'blue-edge'
@@ -112,7 +121,10 @@ export interface FoundBand extends GaussianBand {
   readonly areaSigma: number;
   /** Why the band needs care; see {@link BandFlag}. */
   readonly flags: readonly BandFlag[];
-  /** Looks like charge transfer (intense, high in energy, or a rising edge at the blue end). */
+  /**
+   * Looks like charge transfer: intense for the geometry, a rising edge at the blue end, or high
+   * in energy with no ε to tell.
+   */
   readonly chargeTransfer: boolean;
   /** The usual intensity range of its maximum ε (when y is ε). */
   readonly intensityRange?: IntensityRange;
@@ -181,7 +193,7 @@ export function findBands(
   const { significance, minRelative, maxBands } = settings;
   const state = decompose(context, detect, { sigma, significance, minRelative, maxBands });
   const bands = bandsOfFit(context, state, yScale).map(
-    (band, i): FoundBand => describeBand(band, i + 1, spectrum.quantity),
+    (band, i): FoundBand => describeBand(band, i + 1, spectrum.quantity, options.geometry),
   );
   const rms = Math.sqrt(state.chi2 / context.x.length) * yScale;
   return {
@@ -318,29 +330,38 @@ function windowPoints(
 /**
  * Flags and intensity figures of a band. For an edge band the maximum lies outside the window
  * and its height is an extrapolation, so it gets no intensity range; a blue edge counts as
- * charge transfer by its place alone.
+ * charge transfer by its place alone. A band above the charge-transfer onset counts as charge
+ * transfer only without ε: with ε, its intensity decides (a d–d band may lie there).
  */
 function describeBand(
   b: Omit<FoundBand, 'number' | 'flags' | 'chargeTransfer'> & { kind: ComponentKind },
   number: number,
   quantity: AbsorptionQuantity,
+  geometry: Geometry | undefined,
 ): FoundBand {
   const { kind, ...band } = b;
   const flags: BandFlag[] = [];
   const inside = kind === 'inside';
-  if (inside && quantity === 'epsilon' && band.height >= CHARGE_TRANSFER_EPSILON) flags.push('intense');
+  const measured = inside && quantity === 'epsilon';
+  const limits = INTENSITY_LIMITS[geometry ?? 'oct'];
+  if (measured && band.height >= limits.chargeTransfer) flags.push('intense');
   if (inside && band.center > CHARGE_TRANSFER_ONSET) flags.push('high-energy');
   if (kind === 'blue-edge') flags.push('blue-edge');
   if (kind === 'red-edge') flags.push('red-edge');
   if (band.fwhm < NARROW_BAND_FWHM) flags.push('narrow');
-  const chargeTransfer = flags.some((f) => f === 'intense' || f === 'high-energy' || f === 'blue-edge');
+  const chargeTransfer = flags.some(
+    (f) => f === 'intense' || f === 'blue-edge' || (f === 'high-energy' && !measured),
+  );
   return {
     ...band,
     number,
     flags,
     chargeTransfer,
-    ...(inside && quantity === 'epsilon'
-      ? { intensityRange: intensityRange(band.height), oscillatorStrength: oscillatorStrength(band.area) }
+    ...(measured
+      ? {
+          intensityRange: intensityRange(band.height, geometry),
+          oscillatorStrength: oscillatorStrength(band.area),
+        }
       : {}),
   };
 }

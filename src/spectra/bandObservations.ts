@@ -50,8 +50,10 @@ export function bandObservations(
   options: ObservationOptions = {},
 ): BandObservation[] {
   const f = options.widthFraction ?? POSITION_WIDTH_FRACTION;
-  return ligandFieldBands(bands, options).map((b) => ({
-    energy: b.center,
-    sigma: Math.hypot(Number.isFinite(b.centerSigma) ? b.centerSigma : 0, f * b.fwhm),
-  }));
+  return ligandFieldBands(bands, options).map((b) => ({ energy: b.center, sigma: positionSigma(b, f) }));
+}
+
+/** σ of a band's position as a transition energy: √(σ_fit² + (f · FWHM)²), an undetermined σ_fit counting as zero. */
+export function positionSigma(band: FoundBand, widthFraction = POSITION_WIDTH_FRACTION): number {
+  return Math.hypot(Number.isFinite(band.centerSigma) ? band.centerSigma : 0, widthFraction * band.fwhm);
 }

@@ -67,10 +67,11 @@ describe('spectrum → fit', () => {
     });
   }
 
-  it('spectrum leaves narrow bands out of the fit and says so', async () => {
+  it('spectrum matches the sharp bands to spin-forbidden levels instead of fitting them, and says so', async () => {
     const path = join(ROOT, 'fixtures/spectra/cr-mz6-absorbance-nm.csv');
     const r = await runInProcess(['spectrum', path, '--ion', 'Cr3+'], dir);
-    expect(r.stdout).toMatch(/narrow bands 1, 2 left out as possibly spin-forbidden/);
+    expect(r.stdout).toMatch(/sharp bands 1, 2 not fitted but matched to predicted spin-forbidden levels/);
+    expect(r.stdout).toMatch(/sharp band 1 at 140\d\d cm⁻¹ matched to ²Eg\(G\)/);
   });
 });
 

@@ -137,6 +137,55 @@ describe('termsplit spectrum in process', () => {
   });
 });
 
+describe('termsplit spectrum fits by default what the issue lists (invented check spectra)', () => {
+  it('--B without --dq holds B and fits Dq to [Cr(vor)6]3+', async () => {
+    const r = await cli(
+      'spectrum',
+      fixture('cr-vor6-absorbance-nm.csv'),
+      '--ion',
+      'Cr3+',
+      '--B',
+      '640',
+      '--json',
+    );
+    expect(r.code).toBe(0);
+    const best = JSON.parse(r.stdout).fit.solutions[0];
+    expect(best.bHeld).toBe(true);
+    expect(best.B).toBe(640);
+    expect(best.dq).toBeCloseTo(1600, -1);
+  });
+
+  it('merges the spin–orbit triplet of tetrahedral [Co(qel)4]2− by default, says so, and keeps it apart with --keep-bands', async () => {
+    const file = fixture('co-qel4-epsilon-wavenumber.csv');
+    const text = await cli('spectrum', file, '--ion', 'Co2+', '--geometry', 'tet');
+    expect(text.stdout).toMatch(
+      /bands 2, 3, 4 merged into fit band 2 at their ε-weighted centroid 150\d\d cm⁻¹/,
+    );
+    expect(text.stdout).toContain('--keep-bands fits them apart');
+    expect(text.stdout).not.toContain('charge transfer?');
+    const kept = JSON.parse(
+      (await cli('spectrum', file, '--ion', 'Co2+', '--geometry', 'tet', '--keep-bands', '--json')).stdout,
+    );
+    expect(kept.fit.mergedBands ?? []).toEqual([]);
+  });
+
+  it('--spin-state low is honoured for high-spin [Mn(pld)6]2+: no low-spin assignment fits, and it says so', async () => {
+    const r = await cli(
+      'spectrum',
+      fixture('mn-pld6-absorbance-nm.csv'),
+      '--ion',
+      'Mn2+',
+      '--spin-state',
+      'low',
+      '--json',
+    );
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.stdout);
+    expect(j.fit.failure ?? '').toMatch(/no assignment/);
+    expect(j.cautions.join(' ')).not.toMatch(/Mössbauer/);
+  });
+});
+
 describe('termsplit spectrum bad input', () => {
   const rows = (pairs: [number | string, number | string][]) =>
     `Wavelength (nm),Absorbance\n${pairs.map(([a, b]) => `${a},${b}`).join('\n')}\n`;
@@ -200,6 +249,31 @@ describe('termsplit spectrum bad input', () => {
       '--conc without --path',
       () => [fixture('cr-mz6-absorbance-nm.csv'), '--conc', '0.1'],
       /give both --conc/,
+    ],
+    [
+      '--spin-state with --dq and --B (predicted levels, no fit to apply it to)',
+      () => [
+        fixture('cr-mz6-absorbance-nm.csv'),
+        '--ion',
+        'Cr3+',
+        '--dq',
+        '1960',
+        '--B',
+        '700',
+        '--spin-state',
+        'high',
+      ],
+      /--spin-state: this applies to the fit/,
+    ],
+    [
+      '--B without an ion to fit',
+      () => [fixture('cr-mz6-absorbance-nm.csv'), '--B', '700'],
+      /--B: give --ion \(or --d\)/,
+    ],
+    [
+      '--C without --B or --dq',
+      () => [fixture('cr-mz6-absorbance-nm.csv'), '--ion', 'Cr3+', '--C', '3000'],
+      /--C is held in the fit only together with --B/,
     ],
     [
       'an unknown figure format',

@@ -6,6 +6,7 @@ import {
   type DemoSpectrum,
   demoBands,
   demoSpectrumText,
+  GENERATED_SPECTRA,
 } from '../../fixtures/spectra/generate.js';
 import {
   absorptionSpectrum,
@@ -63,7 +64,7 @@ function readDemo(file: string) {
 
 describe('the demo spectra (invented data)', () => {
   it('are what the generator makes from the invented parameters, and say they are invented', () => {
-    for (const demo of DEMO_SPECTRA) {
+    for (const demo of GENERATED_SPECTRA) {
       const text = readFileSync(resolve(__dirname, '../../fixtures/spectra', demo.file), 'utf8');
       expect(text).toBe(demoSpectrumText(demo));
       expect(text).toContain('INVENTED');

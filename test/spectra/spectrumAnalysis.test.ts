@@ -47,4 +47,39 @@ describe('analyseSpectrum', () => {
       /no d–d bands found/,
     );
   });
+
+  it('says when a band set apart by its charge-transfer ε lies at a predicted d–d level, naming the setting that keeps it', () => {
+    // The band maxima of [Cr(H2O)6]3+, ν₃ (⁴T₁g(P)) at about 37 800 cm⁻¹ (Lever 1984, from
+    // memory), with invented ε: ν₃ at 1200, as when it borrows intensity from a charge-transfer band.
+    const wide = Float64Array.from({ length: 1201 }, (_, i) => 10000 + 30 * i);
+    const yy = syntheticSpectrum(
+      [
+        { center: 17400, height: 60, fwhm: 2600 },
+        { center: 24600, height: 70, fwhm: 2800 },
+        { center: 37800, height: 1200, fwhm: 3500 },
+      ],
+      wide,
+      { noise: 0.05 },
+    );
+    const csv = `cm-1,epsilon\n${Array.from(wide, (v, i) => `${v},${yy[i]}`).join('\n')}\n`;
+    const r = analyseSpectrum(csv, {
+      baseline: 'linear',
+      includeChargeTransfer: false,
+      names: { concentrationAndPath: '-', includeChargeTransfer: '--include-ct' },
+      fit: {
+        n: 3,
+        geometry: 'oct',
+        ion: findIon('Cr3+'),
+        ratio: { cOverB: 4.5, origin: 'given' },
+        includeSpinForbidden: false,
+      },
+    });
+    const intense = r.analysis.bands.find((b) => b.flags.includes('intense'));
+    expect(r.ligandField).not.toContain(intense);
+    expect(
+      r.cautions.some((c) =>
+        /has the ε of a charge-transfer band but lies at ⁴T₁g\(P\).*--include-ct fits it/.test(c),
+      ),
+    ).toBe(true);
+  });
 });
