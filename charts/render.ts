@@ -1,14 +1,17 @@
 /**
  * Headless rendering of chart.js figures through @napi-rs/canvas (Skia, no system libraries):
- * PNG, SVG (text turned into paths, so it looks the same everywhere) and PDF (vector, fonts
- * embedded). The DejaVu fonts ship as an npm package, so figures do not depend on what fonts a
- * machine has.
+ * PNG, SVG (text kept as editable `<text>`, see svgText.ts) and PDF (vector, fonts embedded).
+ * The DejaVu fonts ship as an npm package, so figures do not depend on what fonts a machine has.
  */
 
 import { createRequire } from 'node:module';
 import { createCanvas, GlobalFonts, PDFDocument, type SKRSContext2D, SvgExportFlag } from '@napi-rs/canvas';
 import { Chart, type ChartConfiguration, type Plugin, registerables } from 'chart.js';
 import { InputError } from '../src/index.js';
+import { FONT_FAMILY } from './style.js';
+import { editableSvg } from './svgText.js';
+
+export { FONT_FAMILY } from './style.js';
 
 /** Output formats, chosen by file extension. */
 export type FigureFormat = 'png' | 'svg' | 'pdf';
@@ -25,9 +28,6 @@ export interface FigureOptions {
   /** PDF document title. */
   readonly title?: string;
 }
-
-/** The font family every figure uses. */
-export const FONT_FAMILY = 'DejaVu Sans';
 
 let ready = false;
 
@@ -83,8 +83,10 @@ export function renderChart(config: ChartConfiguration, options: FigureOptions):
     return drawOn(canvas, withDefaults(options.pngScale ?? 2), () => canvas.toBuffer('image/png'));
   }
   if (options.format === 'svg') {
-    const canvas = createCanvas(width, height, SvgExportFlag.ConvertTextToPaths);
-    return drawOn(canvas, withDefaults(1), () => canvas.getContent());
+    const canvas = createCanvas(width, height, SvgExportFlag.NoPrettyXML);
+    return drawOn(canvas, withDefaults(1), () =>
+      Buffer.from(editableSvg(canvas.getContent().toString('utf8')), 'utf8'),
+    );
   }
   const doc = new PDFDocument({ title: options.title ?? 'termsplit figure', creator: 'termsplit' });
   const ctx = doc.beginPage(width, height) as unknown as SKRSContext2D;

@@ -3,6 +3,9 @@
  * correlation diagram, the energy-level diagram and the sample overlay read as one family.
  */
 
+/** The font family every figure is drawn in (shipped with the package, so the same everywhere). */
+export const FONT_FAMILY = 'DejaVu Sans';
+
 export const STYLE = {
   /** Spin-allowed curves and levels (the ground state's spin), and the high-spin side of a crossover. */
   allowed: '#1d4e89',

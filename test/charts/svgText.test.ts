@@ -1,0 +1,43 @@
+import { describe, expect, it } from 'vitest';
+import { renderDiagram } from '../../charts/diagram.js';
+import { renderChart } from '../../charts/render.js';
+import { editableSvg, SVG_FONT_FAMILY } from '../../charts/svgText.js';
+import { sweepDiagram } from '../../src/index.js';
+import { svgTexts } from './svgParse.js';
+
+describe('editableSvg', () => {
+  it('joins the words Skia writes one by one into one <text>, spaces put back from the gaps', () => {
+    // Once to register the figures' font, which the gaps are measured in.
+    renderChart({ type: 'scatter', data: { datasets: [] } }, { format: 'svg', width: 50, height: 50 });
+    const skia = [
+      '<svg>',
+      '<text fill="#222" font-size="10" font-family="DejaVu Sans" x="10, 16.36, " y="20.123456, ">in</text>',
+      '<text fill="#222" font-size="10" font-family="DejaVu Sans" x="" y=""></text>',
+      // "in" ends at 16.36 + 6.34 (the advance of "n" at 10 px); one space of 3.18 px follows.
+      '<text fill="#222" font-size="10" font-family="DejaVu Sans" x="25.88, " y="20.123456, ">O</text>',
+      '</svg>',
+    ].join('');
+    const out = editableSvg(skia);
+    const texts = svgTexts(out);
+    expect(texts.map((t) => t.text)).toEqual(['in O']);
+    expect(out).toContain(`font-family="${SVG_FONT_FAMILY}"`);
+    expect(out).toContain('y="20.12"');
+  });
+
+  it('writes raised and lowered runs as tspans of one label, and spells ligatures as letters', () => {
+    const svg = renderDiagram(sweepDiagram(3, { cOverB: 4.5, points: 60 }), { format: 'svg' }).toString();
+    const texts = svgTexts(svg).map((t) => t.text);
+    expect(texts).toContain('d3 in an octahedral (Oh) field, C/B = 4.50');
+    expect(texts).toContain('4T2g');
+    expect(svg).toMatch(/<tspan font-size="[\d.]+" dy="[-\d.]+">T<\/tspan>/);
+    expect(svg).not.toContain('ﬁ');
+  });
+});
+
+describe('renderDiagram: SVG size', () => {
+  it('keeps a crowded diagram (d6) under 150 kB, text as <text> and not as outlines', () => {
+    const svg = renderDiagram(sweepDiagram(6, { cOverB: 4.8, points: 120 }), { format: 'svg' });
+    expect(svg.length).toBeLessThan(150_000);
+    expect(svgTexts(svg.toString()).length).toBeGreaterThan(40);
+  });
+});
