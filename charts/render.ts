@@ -1,6 +1,7 @@
 /**
  * Headless rendering of chart.js figures through @napi-rs/canvas (Skia, no system libraries):
- * PNG, SVG (text kept as editable `<text>`, see svgText.ts) and PDF (vector, fonts embedded).
+ * PNG, SVG (text kept as editable `<text>`, see svgText.ts; shapes compacted, svgShapes.ts) and
+ * PDF (vector, fonts embedded).
  * The DejaVu fonts ship as an npm package, so figures do not depend on what fonts a machine has.
  */
 
@@ -9,6 +10,7 @@ import { createCanvas, GlobalFonts, PDFDocument, type SKRSContext2D, SvgExportFl
 import { Chart, type ChartConfiguration, type Plugin, registerables } from 'chart.js';
 import { InputError } from '../src/index.js';
 import { FONT_FAMILY } from './style.js';
+import { compactShapes } from './svgShapes.js';
 import { editableSvg } from './svgText.js';
 
 export { FONT_FAMILY } from './style.js';
@@ -85,7 +87,7 @@ export function renderChart(config: ChartConfiguration, options: FigureOptions):
   if (options.format === 'svg') {
     const canvas = createCanvas(width, height, SvgExportFlag.NoPrettyXML);
     return drawOn(canvas, withDefaults(1), () =>
-      Buffer.from(editableSvg(canvas.getContent().toString('utf8')), 'utf8'),
+      Buffer.from(compactShapes(editableSvg(canvas.getContent().toString('utf8'))), 'utf8'),
     );
   }
   const doc = new PDFDocument({ title: options.title ?? 'termsplit figure', creator: 'termsplit' });

@@ -47,6 +47,15 @@ function advance(text: string, size: number, bold: boolean, italic: boolean): nu
 
 const ENTITIES: Readonly<Record<string, string>> = { amp: '&', lt: '<', gt: '>', quot: '"', apos: "'" };
 
+/** The Latin ligatures Skia may write, spelled out (NFKC would also flatten ² and ⁻¹). */
+const LIGATURES: Readonly<Record<string, string>> = {
+  '\uFB00': 'ff',
+  '\uFB01': 'fi',
+  '\uFB02': 'fl',
+  '\uFB03': 'ffi',
+  '\uFB04': 'ffl',
+};
+
 function decode(s: string): string {
   return s.replace(/&(#x[0-9a-f]+|#\d+|\w+);/gi, (m, e: string) => {
     if (e.startsWith('#x') || e.startsWith('#X'))
@@ -73,7 +82,7 @@ function readPiece(attributes: string, content: string): Piece | undefined {
     .map(Number);
   const y = Number(get('y').split(',')[0]);
   // Skia writes ligature glyphs (ﬁ) as their own characters; a reader searching for "field" wants letters.
-  const text = decode(content).normalize('NFKC');
+  const text = decode(content).replace(/[\uFB00-\uFB04]/g, (c) => LIGATURES[c] ?? c);
   if (xs.length === 0 || text === '' || !Number.isFinite(y)) return undefined;
   const style = attrs
     .filter(([k]) => k !== 'x' && k !== 'y' && k !== 'font-size')

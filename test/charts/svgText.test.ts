@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { renderDiagram } from '../../charts/diagram.js';
 import { renderChart } from '../../charts/render.js';
+import { compactShapes } from '../../charts/svgShapes.js';
 import { editableSvg, SVG_FONT_FAMILY } from '../../charts/svgText.js';
 import { sweepDiagram } from '../../src/index.js';
 import { svgTexts } from './svgParse.js';
@@ -31,6 +32,26 @@ describe('editableSvg', () => {
     expect(texts).toContain('4T2g');
     expect(svg).toMatch(/<tspan font-size="[\d.]+" dy="[-\d.]+">T<\/tspan>/);
     expect(svg).not.toContain('ﬁ');
+    expect(editableSvg('<text font-size="9" x="1, " y="2, ">ﬁeld / cm⁻¹</text>')).toContain('>field / cm⁻¹<');
+  });
+});
+
+describe('compactShapes', () => {
+  it('drops polyline points within a tenth of a pixel of the line and keeps the corners', () => {
+    const out = compactShapes('<path stroke="red" d="M0 0L1 1.00001L2 2L3 2.5L4 3"/>');
+    expect(out).toBe('<path stroke="red" d="M0 0L2 2L4 3"/>');
+  });
+
+  it('writes a closed path of quadratic pieces around a square box as a circle', () => {
+    const pts = Array.from({ length: 17 }, (_, k) => {
+      const a = (2 * Math.PI * k) / 16;
+      return `${(10 + 3 * Math.cos(a)).toFixed(3)} ${(20 + 3 * Math.sin(a)).toFixed(3)}`;
+    });
+    const d = `M${pts[0]}${pts
+      .slice(1)
+      .map((p, k) => `Q${pts[k]} ${p}`)
+      .join('')}Z`;
+    expect(compactShapes(`<path fill="#123" d="${d}"/>`)).toBe('<circle fill="#123" cx="10" cy="20" r="3"/>');
   });
 });
 
