@@ -15,9 +15,13 @@ export interface KeyItem {
  * The entries every figure here uses: strong lines spin-allowed, light lines spin-forbidden
  * (left out where nothing is spin-forbidden, as for d¹ and d⁹).
  */
-export function spinKey(allowedColors: readonly string[], anyForbidden = true): KeyItem[] {
+export function spinKey(
+  allowedColors: readonly string[],
+  anyForbidden = true,
+  forbiddenText = 'spin-forbidden',
+): KeyItem[] {
   const allowed = { colors: allowedColors, width: STYLE.allowedWidth, text: 'spin-allowed' };
-  const forbidden = { colors: [STYLE.forbidden], width: STYLE.forbiddenWidth + 0.3, text: 'spin-forbidden' };
+  const forbidden = { colors: [STYLE.forbidden], width: STYLE.forbiddenWidth + 0.3, text: forbiddenText };
   return anyForbidden ? [allowed, forbidden] : [allowed];
 }
 

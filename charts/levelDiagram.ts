@@ -63,7 +63,7 @@ export function levelDiagramChart(
           max: niceTop(highest * 1.04),
           title: { display: true, text: 'E / cm⁻¹', font: { size: STYLE.axisTitleSize }, color: STYLE.ink },
           ticks: tick,
-          grid: { color: STYLE.grid },
+          grid: { display: false },
           border: { color: STYLE.ink },
         },
       },

@@ -103,7 +103,7 @@ function trendYAxis(entries: readonly SeriesEntry[], quantity: TrendQuantity) {
     suggestedMax: hi + pad,
     title: { display: true, text: TITLES[quantity].axis, font: { size: STYLE.axisTitleSize } },
     ticks: { font: { size: STYLE.tickSize } },
-    grid: { color: STYLE.grid },
+    grid: { display: false },
   };
 }
 
@@ -133,7 +133,7 @@ export function trendChart(entries: readonly SeriesEntry[], quantity: TrendQuant
           type: 'category',
           offset: true,
           ticks: { font: { size: STYLE.tickSize }, maxRotation: 30, minRotation: 0, autoSkip: false },
-          grid: { color: STYLE.grid },
+          grid: { display: false },
         },
         y: trendYAxis(entries, quantity),
       },

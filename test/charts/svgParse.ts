@@ -27,6 +27,23 @@ function decode(s: string): string {
   return s.replace(/&amp;/g, '&').replace(/&lt;/g, '<').replace(/&gt;/g, '>');
 }
 
+/** The bounding box of `box` under an SVG `translate(e f)` or `matrix(a b c d e f)` transform. */
+function transformed(box: Box, transform: string): Box {
+  const values = (/\(([^)]*)\)/.exec(transform)?.[1] ?? '').split(/[\s,]+/).map(Number);
+  const [a, b, c, d, e, f] = transform.startsWith('translate')
+    ? [1, 0, 0, 1, values[0] ?? 0, values[1] ?? 0]
+    : [values[0] ?? 1, values[1] ?? 0, values[2] ?? 0, values[3] ?? 1, values[4] ?? 0, values[5] ?? 0];
+  const corners = [
+    [box.left, box.top],
+    [box.right, box.top],
+    [box.left, box.bottom],
+    [box.right, box.bottom],
+  ].map(([x = 0, y = 0]) => [a * x + c * y + e, b * x + d * y + f] as const);
+  const xs = corners.map((p) => p[0]);
+  const ys = corners.map((p) => p[1]);
+  return { left: Math.min(...xs), right: Math.max(...xs), top: Math.min(...ys), bottom: Math.max(...ys) };
+}
+
 /** Every <text> of an SVG document. */
 export function svgTexts(svg: string): SvgText[] {
   return [...svg.matchAll(/<text\b([^>]*)>(.*?)<\/text>/gs)].map((m) => {
@@ -55,12 +72,14 @@ export function svgTexts(svg: string): SvgText[] {
       top = Math.min(top, runY - runSize * 0.8);
       bottom = Math.max(bottom, runY + runSize * 0.25);
     }
+    const local = { left: x, right: x + width, top, bottom };
+    const transform = attribute(tag, 'transform');
     return {
       text: decode(body.replace(/<[^>]+>/g, '')),
       fill: attribute(tag, 'fill') ?? '',
       halo: attribute(tag, 'fill') === 'none',
-      transformed: attribute(tag, 'transform') !== undefined,
-      box: { left: x, right: x + width, top, bottom },
+      transformed: transform !== undefined,
+      box: transform === undefined ? local : transformed(local, transform),
     };
   });
 }
