@@ -72,6 +72,8 @@ export const DEFAULT_E_SPAN = 2;
 const LABEL_COLUMN = 108;
 /** Room above the plot for the title and the strip naming the spin regions, px. */
 const HEADER = 66;
+/** Room above the plot for the title alone (no change of ground state to name), px. */
+const HEADER_PLAIN = 44;
 /** Height of the leaders between the plot's top edge and the labels of curves leaving through it, px. */
 const EXIT_LEADER = 14;
 /** Labels of curves leaving through the top: a little smaller, set upright (rotated a quarter turn). */
@@ -252,7 +254,14 @@ export function diagramChart(
     options: {
       parsing: false,
       normalized: true,
-      layout: { padding: { top: HEADER + band, right: LABEL_COLUMN, left: 12, bottom: 6 } },
+      layout: {
+        padding: {
+          top: (shown.crossings.length > 0 ? HEADER : HEADER_PLAIN) + band,
+          right: LABEL_COLUMN,
+          left: 12,
+          bottom: 6,
+        },
+      },
       plugins: { legend: { display: false }, tooltip: { enabled: false }, title: { display: false } },
       scales: {
         x: {
@@ -691,22 +700,38 @@ function labelBeside(layout: Layout): void {
   });
 }
 
-/** Free-ion terms where the curves start, just inside the left edge; those of the ground spin first. */
+/**
+ * Free-ion terms where the curves start, just inside the left edge; those of the ground spin
+ * first. Terms at the same height (within half a line, as ²P and ²H of d³) share one label, "²P, ²H".
+ */
 function labelTerms(layout: Layout): void {
   const { diagram, inside, h } = layout;
   const terms = new Map<string, { S: number; value: number }>();
   for (const c of diagram.curves)
     if (!terms.has(c.parent)) terms.set(c.parent, { S: c.S, value: c.values[0] ?? 0 });
   const groundS = diagram.regions[0]?.S;
-  const list = [...terms.entries()]
-    .filter(([, t]) => t.value <= layout.eMax)
-    .sort((a, b) => Number(b[1].S === groundS) - Number(a[1].S === groundS) || a[1].value - b[1].value);
-  for (const [name, t] of list) {
-    const runs = termRuns(name);
-    const color = t.S === groundS ? regionColor(diagram, 0) : STYLE.forbiddenText;
+  const sorted = [...terms.entries()]
+    .filter(([, t]) => t.value <= layout.eMax && t.value >= layout.eMin)
+    .sort((a, b) => a[1].value - b[1].value);
+  const groups: { names: string[]; ground: boolean; value: number }[] = [];
+  for (const [name, t] of sorted) {
+    const last = groups.at(-1);
+    const py = layout.y.getPixelForValue(t.value);
+    if (last && Math.abs(layout.y.getPixelForValue(last.value) - py) < h / 2) {
+      last.names.push(name);
+      last.ground ||= t.S === groundS;
+    } else groups.push({ names: [name], ground: t.S === groundS, value: t.value });
+  }
+  groups.sort((a, b) => Number(b.ground) - Number(a.ground) || a.value - b.value);
+  for (const g of groups) {
+    const runs = g.names.flatMap((name, k) => [
+      ...(k > 0 ? [{ text: ', ', shift: 'base' as const }] : []),
+      ...termRuns(name),
+    ]);
+    const color = g.ground ? regionColor(diagram, 0) : STYLE.forbiddenText;
     const style: TextStyle = { ...LABEL, color, halo: true };
     const w = measureRuns(layout.ctx, runs, style);
-    const cy = Math.min(layout.y.getPixelForValue(t.value) - h / 2, inside.bottom - h / 2 - 2);
+    const cy = Math.min(layout.y.getPixelForValue(g.value) - h / 2, inside.bottom - h / 2 - 2);
     const spot = freeSpot(
       boxAt(layout, inside.left + 5, cy, w),
       layout.taken,
@@ -715,7 +740,7 @@ function labelTerms(layout: Layout): void {
     );
     if (!spot) continue;
     layout.taken.push(spot);
-    layout.out.push({ text: name, kind: 'term', runs, style, box: spot });
+    layout.out.push({ text: g.names.join(', '), kind: 'term', runs, style, box: spot });
   }
 }
 
