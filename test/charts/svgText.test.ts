@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { renderDiagram } from '../../charts/diagram.js';
+import { groupedNumber, tickText } from '../../charts/numbers.js';
 import { renderChart } from '../../charts/render.js';
 import { compactShapes } from '../../charts/svgShapes.js';
 import { editableSvg, SVG_FONT_FAMILY } from '../../charts/svgText.js';
@@ -60,5 +61,17 @@ describe('renderDiagram: SVG size', () => {
     const svg = renderDiagram(sweepDiagram(6, { cOverB: 4.8, points: 120 }), { format: 'svg' });
     expect(svg.length).toBeLessThan(150_000);
     expect(svgTexts(svg.toString()).length).toBeGreaterThan(40);
+  });
+});
+
+describe('tickText and groupedNumber', () => {
+  it('prints the minus sign, never a signed zero, and decimals from the tick spacing', () => {
+    const ticks = [{ value: -0.1 }, { value: 0 }, { value: 0.1 }];
+    expect(tickText(-0.1, ticks)).toBe('−0.1');
+    expect(tickText(-1e-17, ticks)).toBe('0.0');
+    expect(tickText(0.30000000000000004, ticks)).toBe('0.3');
+    expect(tickText(25000, [{ value: 0 }, { value: 5000 }])).toBe('25\u2009000');
+    expect(groupedNumber(-12345)).toBe('−12\u2009345');
+    expect(groupedNumber(5000)).toBe('5000');
   });
 });
