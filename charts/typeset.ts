@@ -148,3 +148,29 @@ export function drawRuns(
 export function ionMarkup(name: string): string {
   return name.replace(/^([A-Z][a-z]?)(\d[+-])$/, '$1^$2');
 }
+
+/**
+ * Runs of a chemical formula: counts lowered, the charge raised with a true minus sign —
+ * `[Ni(ors)6]4-` → [Ni(ors), 6 lowered, ], 4− raised; `Cr3+` → Cr, 3+ raised. Text that does not
+ * look like a formula (spaces, or neither brackets nor a final charge, as in `sample A1`) stays plain.
+ */
+export function formulaRuns(text: string): TextRun[] {
+  const charge = /^(.*[A-Za-z)\]])(\d*[+-])$/.exec(text);
+  const body = charge ? (charge[1] ?? '') : text;
+  if (/\s/.test(text) || (!charge && !/[[(]/.test(text))) return [{ text, shift: 'base' }];
+  const runs: TextRun[] = [];
+  for (const m of body.matchAll(/(?<=[A-Za-z)\]])\d+|[^\d]+|\d+/g)) {
+    const isCount = /^\d+$/.test(m[0]) && m.index > 0;
+    runs.push({ text: m[0], shift: isCount ? 'sub' : 'base' });
+  }
+  if (charge) runs.push({ text: (charge[2] ?? '').replace('-', '\u2212'), shift: 'sup' });
+  return runs;
+}
+
+/** A formula as HTML: counts in <sub>, the charge in <sup> (see {@link formulaRuns}); text escaped. */
+export function formulaHtml(text: string): string {
+  const escape = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+  return formulaRuns(text)
+    .map((r) => (r.shift === 'base' ? escape(r.text) : `<${r.shift}>${escape(r.text)}</${r.shift}>`))
+    .join('');
+}

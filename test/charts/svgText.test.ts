@@ -4,6 +4,7 @@ import { groupedNumber, tickText } from '../../charts/numbers.js';
 import { renderChart } from '../../charts/render.js';
 import { compactShapes } from '../../charts/svgShapes.js';
 import { editableSvg, SVG_FONT_FAMILY } from '../../charts/svgText.js';
+import { formulaHtml, formulaRuns } from '../../charts/typeset.js';
 import { sweepDiagram } from '../../src/index.js';
 import { svgTexts } from './svgParse.js';
 
@@ -73,5 +74,19 @@ describe('tickText and groupedNumber', () => {
     expect(tickText(25000, [{ value: 0 }, { value: 5000 }])).toBe('25\u2009000');
     expect(groupedNumber(-12345)).toBe('−12\u2009345');
     expect(groupedNumber(5000)).toBe('5000');
+  });
+});
+
+describe('formulaRuns and formulaHtml', () => {
+  it('lowers counts and raises the charge with a minus sign, and leaves plain names alone', () => {
+    expect(formulaRuns('[Ni(ors)6]4-')).toEqual([
+      { text: '[Ni(ors)', shift: 'base' },
+      { text: '6', shift: 'sub' },
+      { text: ']', shift: 'base' },
+      { text: '4−', shift: 'sup' },
+    ]);
+    expect(formulaHtml('[Fe(tvc)3]2+')).toBe('[Fe(tvc)<sub>3</sub>]<sup>2+</sup>');
+    expect(formulaHtml('sample A1')).toBe('sample A1');
+    expect(formulaHtml('A1')).toBe('A1');
   });
 });
