@@ -18,6 +18,7 @@ import { STYLE } from './style.js';
 import {
   chartContext,
   drawRuns,
+  fitted,
   ionMarkup,
   markupRuns,
   measureRuns,
@@ -68,6 +69,8 @@ export interface DiagramLabel {
 /** The automatic top of the E/B axis is at most this many times the largest Δ/B. */
 export const DEFAULT_E_SPAN = 2;
 
+/** Room under the x axis title for the line key, px. */
+const KEY_ROW = 22;
 /** Room right of the plot for the curve labels, px. */
 const LABEL_COLUMN = 108;
 /** Room above the plot for the title and the strip naming the spin regions, px. */
@@ -406,7 +409,7 @@ function diagramLabels(diagram: CorrelationDiagram, setting: LabelSetting): Plug
         anyForbidden,
         setting.allForbidden ? undefined : 'spin-forbidden, lowest only',
       );
-      drawKey(ctx, key, chart.chartArea.right, chart.height - 16);
+      drawKey(ctx, key, chart.chartArea.right, chart.height - 11);
       setting.onLabels?.(placed.map((p) => ({ text: p.text, kind: p.kind, box: p.box })));
     },
   };
@@ -448,14 +451,10 @@ function drawHeader(
   const area = chart.chartArea;
   const px = (x: number) => chart.scales.x?.getPixelForValue(x) ?? 0;
   const title: TextStyle = { size: STYLE.titleSize, color: STYLE.ink, bold: true };
-  drawRuns(
-    ctx,
-    markupRuns(diagramTitleMarkup(diagram, ion)),
-    (area.left + area.right) / 2,
-    18,
-    title,
-    'center',
-  );
+  const titleRuns = markupRuns(diagramTitleMarkup(diagram, ion));
+  const wide = chart.width > 2 * measureRuns(ctx, titleRuns, title);
+  const centre = wide ? (area.left + area.right) / 2 : chart.width / 2;
+  drawRuns(ctx, titleRuns, centre, 18, fitted(ctx, titleRuns, title, chart.width - 20), 'center');
   if (diagram.crossings.length === 0) return;
   const y = area.top - band - 14;
   const strip: TextStyle = { size: STYLE.smallSize, color: STYLE.crossover };

@@ -14,11 +14,13 @@ import { ensure } from '../src/core/errors.js';
 import { type CubicLevel, type CubicResult, type FreeIonTerm, freeIonTerms } from '../src/index.js';
 import { drawKey, spinKey } from './key.js';
 import { spreadLabels } from './labelLayout.js';
+import { groupedNumber } from './numbers.js';
 import { type FigureOptions, renderChart } from './render.js';
 import { STYLE } from './style.js';
 import {
   chartContext,
   drawRuns,
+  fitted,
   ionMarkup,
   markupRuns,
   runsHeight,
@@ -97,10 +99,12 @@ export function levelView(result: CubicResult, options: LevelDiagramOptions = {}
 }
 
 /** Extent of the two columns on the hidden 0…1 x axis. */
-const FREE_ION = { from: 0.16, to: 0.36 } as const;
-const FIELD = { from: 0.62, to: 0.82 } as const;
+const FREE_ION = { from: 0.2, to: 0.42 } as const;
+const FIELD = { from: 0.66, to: 1 } as const;
+/** Room right of the plot for the level labels, px. */
+const LABEL_ROOM = 112;
 /** Room above the plot for the title lines, px. */
-const HEADER = 64;
+const HEADER = 74;
 
 const LABEL: TextStyle = { size: STYLE.labelSize, color: STYLE.ink };
 
@@ -121,7 +125,7 @@ export function levelDiagramChart(
     type: 'scatter',
     data: { datasets: [] },
     options: {
-      layout: { padding: { top: HEADER, right: 16, left: 12, bottom: 52 } },
+      layout: { padding: { top: HEADER, right: LABEL_ROOM, left: 12, bottom: 52 } },
       plugins: { legend: { display: false }, tooltip: { enabled: false }, title: { display: false } },
       scales: {
         x: { type: 'linear', min: 0, max: 1, display: false },
@@ -135,7 +139,7 @@ export function levelDiagramChart(
             font: { size: STYLE.axisTitleSize },
             color: STYLE.ink,
           },
-          ticks: tick,
+          ticks: { ...tick, callback: (v: string | number) => groupedNumber(Number(v)) },
           grid: { display: false },
           border: { color: STYLE.ink },
         },
@@ -240,17 +244,21 @@ function strokeLine(
 
 /** Title and the Dq, B, C line above the plot. */
 function drawHeader({ ctx, chart }: LevelCanvas, result: CubicResult, options: LevelDiagramOptions): void {
-  const area = chart.chartArea;
   const title: TextStyle = { size: STYLE.titleSize, color: STYLE.ink, bold: true };
-  const mid = (area.left + area.right) / 2;
-  drawRuns(ctx, markupRuns(levelTitleMarkup(result, options)), mid, 18, title, 'center');
+  const titleRuns = markupRuns(levelTitleMarkup(result, options));
+  drawRuns(ctx, titleRuns, chart.width / 2, 18, fitted(ctx, titleRuns, title, chart.width - 8), 'center');
   const sub = `Dq = ${result.dq.toFixed(0)} cm⁻¹ (10Dq = ${(10 * result.dq).toFixed(0)}), B = ${result.B.toFixed(0)} cm⁻¹, C = ${result.C.toFixed(0)} cm⁻¹`;
   const zero: TextRun[] = [
-    { text: `${sub};  E = 0 at `, shift: 'base' },
+    { text: 'E = 0 at the ground level ', shift: 'base' },
     ...stateRuns(result.ground.label),
     { text: ' in both columns', shift: 'base' },
   ];
-  drawRuns(ctx, zero, mid, 42, { size: STYLE.smallSize + 1, color: STYLE.muted }, 'center');
+  const subStyle = { size: STYLE.smallSize + 1, color: STYLE.muted };
+  for (const [runs, y] of [
+    [[{ text: sub, shift: 'base' }], 40],
+    [zero, 58],
+  ] as const)
+    drawRuns(ctx, runs, chart.width / 2, y, fitted(ctx, runs, subStyle, chart.width - 8), 'center');
 }
 
 /** Term and level bars, and, first so they lie under the bars, the joins of each level to its parent term. */
@@ -395,7 +403,12 @@ function drawCaptions({ ctx, chart, px }: LevelCanvas, result: CubicResult, view
     view.omitted > 0
       ? `spin-forbidden (lowest ${shownForbidden} of ${shownForbidden + view.omitted})`
       : 'spin-forbidden';
-  drawKey(ctx, spinKey([STYLE.allowed], shownForbidden > 0, forbiddenText), area.right, chart.height - 14);
+  drawKey(
+    ctx,
+    spinKey([STYLE.allowed], shownForbidden > 0, forbiddenText),
+    chart.width - 8,
+    chart.height - 14,
+  );
 }
 
 /** `x` rounded up to a multiple of half its power of ten (78 000 → 80 000, 43 000 → 45 000), for a tidy axis end. */

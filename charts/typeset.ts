@@ -174,3 +174,18 @@ export function formulaHtml(text: string): string {
     .map((r) => (r.shift === 'base' ? escape(r.text) : `<${r.shift}>${escape(r.text)}</${r.shift}>`))
     .join('');
 }
+
+/**
+ * A style whose size is cut, down to 70 %, until `runs` fit in `width` px: titles of narrow
+ * (one-column) figures stay whole instead of running off the edge.
+ */
+export function fitted(
+  ctx: SKRSContext2D,
+  runs: readonly TextRun[],
+  style: TextStyle,
+  width: number,
+): TextStyle {
+  const natural = measureRuns(ctx, runs, style);
+  if (natural <= width) return style;
+  return { ...style, size: Math.max(0.7 * style.size, (style.size * width) / natural) };
+}

@@ -1,3 +1,4 @@
+import { loadImage } from '@napi-rs/canvas';
 import { describe, expect, it } from 'vitest';
 import { renderDiagram } from '../../charts/diagram.js';
 import { groupedNumber, tickText } from '../../charts/numbers.js';
@@ -88,5 +89,25 @@ describe('formulaRuns and formulaHtml', () => {
     expect(formulaHtml('[Fe(tvc)3]2+')).toBe('[Fe(tvc)<sub>3</sub>]<sup>2+</sup>');
     expect(formulaHtml('sample A1')).toBe('sample A1');
     expect(formulaHtml('A1')).toBe('A1');
+  });
+});
+
+describe('renderChart: journal column sizes and dpi', () => {
+  const d3 = sweepDiagram(3, { cOverB: 4.5, points: 40 });
+  it('prints a one-column figure 85 mm wide: SVG in mm over a pixel viewBox, PNG at the dpi, PDF in points', async () => {
+    const svg = renderDiagram(d3, { format: 'svg', size: 'one-column' }).toString();
+    expect(svg).toMatch(/<svg[^>]* width="85mm" height="[\d.]+mm" viewBox="0 0 440 \d+"/);
+    const png = await loadImage(renderDiagram(d3, { format: 'png', size: 'one-column', dpi: 300 }));
+    // 85 mm at 300 pixels per inch.
+    expect(Math.abs(png.width - (85 / 25.4) * 300)).toBeLessThan(2);
+    const pdf = renderDiagram(d3, { format: 'pdf', size: 'two-column' }).toString('latin1');
+    // 175 mm in points (1/72 in).
+    expect(Number(/MediaBox \[0 0 ([\d.]+)/.exec(pdf)?.[1])).toBeCloseTo((175 / 25.4) * 72, 0);
+  });
+
+  it('takes --dpi without a preset as pixels per 96 CSS px, and refuses a silly one', async () => {
+    const png = await loadImage(renderDiagram(d3, { format: 'png', dpi: 96 }));
+    expect(png.width).toBe(900);
+    expect(() => renderDiagram(d3, { format: 'png', dpi: 5 })).toThrow(/dpi/);
   });
 });
