@@ -272,7 +272,7 @@ export function diagramChart(
           min: view.xMin,
           max: view.xMax,
           title: axisTitle('Δ/B'),
-          ticks: { ...tick, ...tickStep(view.xMax - view.xMin) },
+          ticks: { ...tick, ...tickStep(view.xMax - view.xMin), maxRotation: 0, autoSkipPadding: 6 },
           grid: { display: false },
           border: { color: STYLE.ink },
         },
@@ -409,7 +409,7 @@ function diagramLabels(diagram: CorrelationDiagram, setting: LabelSetting): Plug
         anyForbidden,
         setting.allForbidden ? undefined : 'spin-forbidden, lowest only',
       );
-      drawKey(ctx, key, chart.chartArea.right, chart.height - 11);
+      drawKey(ctx, key, chart.width - 8, chart.height - 11);
       setting.onLabels?.(placed.map((p) => ({ text: p.text, kind: p.kind, box: p.box })));
     },
   };

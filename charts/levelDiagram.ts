@@ -10,6 +10,7 @@
 
 import type { SKRSContext2D } from '@napi-rs/canvas';
 import type { Chart, ChartConfiguration, Plugin } from 'chart.js';
+import { BAND_CEILING } from '../src/core/defaults.js';
 import { ensure } from '../src/core/errors.js';
 import { type CubicLevel, type CubicResult, type FreeIonTerm, freeIonTerms } from '../src/index.js';
 import { drawKey, spinKey } from './key.js';
@@ -40,8 +41,8 @@ export interface LevelDiagramOptions {
   readonly forbidden?: number;
 }
 
-/** The default ceiling, cm⁻¹: 200 nm, where UV-vis spectra end and charge transfer rules. */
-export const DEFAULT_LEVEL_CEILING = 50_000;
+/** The default ceiling, cm⁻¹: the band ceiling of the text output (200 nm, where UV-vis spectra end). */
+export const DEFAULT_LEVEL_CEILING = BAND_CEILING;
 /** The default number of spin-forbidden levels shown (the lowest). */
 export const DEFAULT_LEVEL_FORBIDDEN = 4;
 

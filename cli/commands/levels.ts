@@ -6,7 +6,11 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { renderLevelDiagram } from '../../charts/levelDiagram.js';
+import {
+  DEFAULT_LEVEL_CEILING,
+  DEFAULT_LEVEL_FORBIDDEN,
+  renderLevelDiagram,
+} from '../../charts/levelDiagram.js';
 import { formatOfPath } from '../../charts/render.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
@@ -17,16 +21,24 @@ import { fixed, jsonText, listSection, table } from '../format.js';
 import type { Io } from '../io.js';
 import {
   cbHelp,
+  DPI_OPTION,
+  figureSizeOptions,
   GEOMETRY_OPTION,
   type LevelOptions,
   levelsFromOptions,
+  numberOption,
   SINGLE_ELECTRON_ORIGIN,
+  SIZE_OPTION,
   type SolvedLevels,
 } from '../options.js';
 import { levelJson } from '../present/levelPresent.js';
 
 /** Options of `termsplit levels`. */
 export interface LevelsOptions extends LevelOptions {
+  emax?: string;
+  forbidden?: string;
+  size?: string;
+  dpi?: string;
   output?: string;
   json?: boolean;
 }
@@ -46,14 +58,35 @@ export function registerLevels(program: Command, io: Io): void {
     .option('--cb <ratio>', cbHelp('C/B instead of --C'))
     .option(...GEOMETRY_OPTION)
     .option('-o, --output <file>', 'also draw the energy-level diagram, free ion → field: .png, .svg or .pdf')
+    .option(
+      '--emax <cm-1>',
+      `top of the level diagram, cm⁻¹ above the ground level (default ${DEFAULT_LEVEL_CEILING})`,
+    )
+    .option(
+      '--forbidden <n>',
+      `spin-forbidden levels in the diagram, the lowest (default ${DEFAULT_LEVEL_FORBIDDEN})`,
+    )
+    .option(...SIZE_OPTION)
+    .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout')
     .action((opts: LevelsOptions) => {
       const figure = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
       const format = opts.output === undefined ? undefined : formatOfPath(opts.output);
       const solved = levelsFromOptions(opts);
+      const eMax = numberOption('--emax', opts.emax, { positive: true, what: 'a positive number of cm⁻¹' });
+      const forbidden = numberOption('--forbidden', opts.forbidden, {
+        integer: true,
+        min: 0,
+        what: 'a whole number',
+      });
+      const size = figureSizeOptions(opts);
       if (figure !== undefined && format !== undefined) {
-        const options = solved.ion ? { ion: solved.ion } : {};
-        writeFileAtomic(figure, renderLevelDiagram(solved.result, { format }, options));
+        const options = {
+          ...(solved.ion ? { ion: solved.ion } : {}),
+          ...(eMax !== undefined ? { eMax } : {}),
+          ...(forbidden !== undefined ? { forbidden } : {}),
+        };
+        writeFileAtomic(figure, renderLevelDiagram(solved.result, { format, ...size }, options));
       }
       io.out(levelsText(opts, solved, figure));
     });
