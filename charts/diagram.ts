@@ -262,7 +262,7 @@ export function diagramChart(
           top: (shown.crossings.length > 0 ? HEADER : HEADER_PLAIN) + band,
           right: LABEL_COLUMN,
           left: 12,
-          bottom: 6,
+          bottom: KEY_ROW,
         },
       },
       plugins: { legend: { display: false }, tooltip: { enabled: false }, title: { display: false } },

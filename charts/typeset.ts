@@ -169,9 +169,9 @@ export function formulaRuns(text: string): TextRun[] {
 
 /** A formula as HTML: counts in <sub>, the charge in <sup> (see {@link formulaRuns}); text escaped. */
 export function formulaHtml(text: string): string {
-  const escape = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+  const escaped = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
   return formulaRuns(text)
-    .map((r) => (r.shift === 'base' ? escape(r.text) : `<${r.shift}>${escape(r.text)}</${r.shift}>`))
+    .map((r) => (r.shift === 'base' ? escaped(r.text) : `<${r.shift}>${escaped(r.text)}</${r.shift}>`))
     .join('');
 }
 
