@@ -4,6 +4,7 @@
  * server), and each table as CSV.
  */
 
+import { formulaTextHtml } from '../../charts/typeset.js';
 import { csvText } from '../../src/sheets/csv.js';
 import type { Block, TableBlock } from './document.js';
 
@@ -79,7 +80,7 @@ export function toHtml(blocks: readonly Block[], title: string): string {
     switch (b.kind) {
       case 'heading':
         body.push(
-          `<h${b.level}${b.id ? ` id="${htmlEscape(b.id)}"` : ''}>${htmlEscape(b.text)}</h${b.level}>`,
+          `<h${b.level}${b.id ? ` id="${htmlEscape(b.id)}"` : ''}>${formulaTextHtml(b.text)}</h${b.level}>`,
         );
         break;
       case 'paragraph':
@@ -93,11 +94,11 @@ export function toHtml(blocks: readonly Block[], title: string): string {
         break;
       case 'table':
         body.push(
-          `<table><thead><tr>${b.headers.map((h) => `<th>${htmlEscape(h)}</th>`).join('')}</tr></thead><tbody>` +
+          `<table><thead><tr>${b.headers.map((h) => `<th>${formulaTextHtml(h)}</th>`).join('')}</tr></thead><tbody>` +
             b.rows
               .map(
                 (r) =>
-                  `<tr>${r.map((c) => `<td${NUMERIC.test(c) ? ' class="num"' : ''}>${htmlEscape(c)}</td>`).join('')}</tr>`,
+                  `<tr>${r.map((c) => `<td${NUMERIC.test(c) ? ' class="num"' : ''}>${formulaTextHtml(c)}</td>`).join('')}</tr>`,
               )
               .join('') +
             '</tbody></table>',
@@ -105,7 +106,7 @@ export function toHtml(blocks: readonly Block[], title: string): string {
         break;
       case 'figure':
         body.push(
-          `<figure>${inlineSvg(b.svg, b.caption)}<figcaption>${htmlEscape(b.caption)}</figcaption></figure>`,
+          `<figure>${inlineSvg(b.svg, b.caption)}<figcaption>${formulaTextHtml(b.caption)}</figcaption></figure>`,
         );
         break;
     }

@@ -5,7 +5,7 @@ import { groupedNumber, tickText } from '../../charts/numbers.js';
 import { renderChart } from '../../charts/render.js';
 import { compactShapes } from '../../charts/svgShapes.js';
 import { editableSvg, SVG_FONT_FAMILY } from '../../charts/svgText.js';
-import { formulaHtml, formulaRuns } from '../../charts/typeset.js';
+import { formulaHtml, formulaRuns, formulaTextHtml } from '../../charts/typeset.js';
 import { sweepDiagram } from '../../src/index.js';
 import { svgTexts } from './svgParse.js';
 
@@ -109,5 +109,13 @@ describe('renderChart: journal column sizes and dpi', () => {
     const png = await loadImage(renderDiagram(d3, { format: 'png', dpi: 96 }));
     expect(png.width).toBe(900);
     expect(() => renderDiagram(d3, { format: 'png', dpi: 5 })).toThrow(/dpi/);
+  });
+});
+
+describe('formulaTextHtml', () => {
+  it('typesets the formulae of a sentence word by word and leaves labels, configurations and numbers', () => {
+    expect(formulaTextHtml('[Cr(mz)6]3+: 4T2g at 17 400 cm⁻¹, d3, Co2+.')).toBe(
+      '[Cr(mz)<sub>6</sub>]<sup>3+</sup>: 4T2g at 17 400 cm⁻¹, d3, Co<sup>2+</sup>.',
+    );
   });
 });
