@@ -22,7 +22,7 @@ import {
 import { DEFAULT_X_COLUMN, DEFAULT_Y_COLUMN } from '../../src/spectra/spectrumText.js';
 import { parseXUnit, parseYUnit, X_UNIT_NAMES, Y_UNIT_NAMES } from '../../src/spectra/spectrumUnits.js';
 import { readTextFile, writeFileAtomic } from '../files.js';
-import { fixed, jsonText, table } from '../format.js';
+import { fixed, ionText, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 import {
   GEOMETRY_OPTION,
@@ -331,7 +331,7 @@ function predictedLines(r: SpectrumReport): string[] {
     const { result, cOrigin, ion } = r.predicted;
     lines.push('');
     lines.push(
-      `Predicted transitions, ${ion ?? `d${result.n}`} ${result.geometry === 'oct' ? 'octahedral' : 'tetrahedral'}, ` +
+      `Predicted transitions, ${ionText(ion, result.n)} ${result.geometry === 'oct' ? 'octahedral' : 'tetrahedral'}, ` +
         `Dq = ${fixed(result.dq)}, B = ${fixed(result.B)}, C = ${fixed(result.C)} cm⁻¹ (C: ${cOrigin}), ` +
         `from ${unicodeLabel(result.ground.label)}, inside the window:`,
     );

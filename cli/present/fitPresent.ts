@@ -6,8 +6,9 @@
  */
 
 import { BAND_CEILING } from '../../src/core/defaults.js';
+import { unicodeIon } from '../../src/field/labels.js';
 import { cmToNm, type FitResult, type FitSolution, unicodeLabel } from '../../src/index.js';
-import { fixed, listSection, table } from '../format.js';
+import { fixed, ionText, listSection, table } from '../format.js';
 
 /** Whether only Dq was fitted (d¹, d⁹). */
 function single(s: FitSolution): boolean {
@@ -138,7 +139,7 @@ function fitHeaderLines(
     .map((b) => `${fixed(b.energy)}${b.sigma === undefined ? '' : `±${fixed(b.sigma)}`}`)
     .join(', ');
   lines.push(
-    `Fit of ${ion ? `${ion} (d${result.n})` : `d${result.n}`}, ${geometryName}, to ${result.bands.length} band${result.bands.length === 1 ? '' : 's'}: ${bandList} cm⁻¹`,
+    `Fit of ${ionText(ion, result.n)}, ${geometryName}, to ${result.bands.length} band${result.bands.length === 1 ? '' : 's'}: ${bandList} cm⁻¹`,
   );
   const cLine = single(best)
     ? 'only Dq enters (one d electron or hole)'
@@ -178,7 +179,7 @@ function bestLines(result: FitResult, best: FitSolution, ion: string | undefined
     );
     if (best.beta !== null && result.freeIon) {
       lines.push(
-        `  β    = ${withError(best.beta, e.beta, 3)}   (B / free-ion B = ${fixed(result.freeIon.B)} cm⁻¹ of ${ion ?? 'the ion'})`,
+        `  β    = ${withError(best.beta, e.beta, 3)}   (B / free-ion B = ${fixed(result.freeIon.B)} cm⁻¹ of ${ion ? unicodeIon(ion) : 'the ion'})`,
       );
       if (result.freeIon.source) lines.push(`         free-ion B: ${result.freeIon.source}`);
     }
