@@ -49,8 +49,8 @@ const CT_SCALE_LIMIT = 1.5;
 const CURVE_POINTS = 600;
 
 const INK = STYLE.ink;
-/** Room under the plot for the two rows of the key, px. */
-const KEY_ROOM = 46;
+/** Room under the plot for the three rows of the key, px. */
+const KEY_ROOM = 62;
 
 /** Axis title of the y quantity. */
 export function quantityTitle(quantity: AbsorptionQuantity): string {
@@ -166,22 +166,22 @@ function spectrumDatasets(
   return datasets;
 }
 
-/** The key under the plot: what is drawn in the data row, the predicted marks in the second. */
+/** The key under the plot, in rows narrow enough for a one-column figure: data and fit, the fit's parts, the predictions. */
 function keyRows(input: SpectrumFigureInput, transitions: readonly PredictedTransition[]): KeyItem[][] {
   const data: KeyItem[] = [
-    { colors: [STYLE.measuredLine], width: 5, text: 'measured', fill: STYLE.measuredFill },
+    { colors: [STYLE.measuredLine], width: 1, text: 'measured', fill: STYLE.measuredFill },
     { colors: [STYLE.allowed], width: 1.6, text: 'fit: bands + baseline' },
-    { colors: [STYLE.component], width: 1.1, text: 'Gaussian bands' },
   ];
+  const parts: KeyItem[] = [{ colors: [STYLE.component], width: 1.1, text: 'Gaussian bands' }];
   if (input.bands.some((b) => b.chargeTransfer))
-    data.push({
+    parts.push({
       colors: [STYLE.chargeTransfer],
       width: 1.2,
       text: 'charge transfer',
       dash: STYLE.crossoverDash,
     });
   if (input.baseline.offset !== 0 || input.baseline.slope !== 0)
-    data.push({ colors: [STYLE.muted], width: 1, text: 'baseline', dash: STYLE.baselineDash });
+    parts.push({ colors: [STYLE.muted], width: 1, text: 'baseline', dash: STYLE.baselineDash });
   const predicted: KeyItem[] = [];
   if (transitions.some((t) => t.spinAllowed))
     predicted.push({ colors: [STYLE.allowed], width: 1.4, text: 'predicted, spin-allowed' });
@@ -192,7 +192,7 @@ function keyRows(input: SpectrumFigureInput, transitions: readonly PredictedTran
       text: 'predicted, spin-forbidden',
       dash: STYLE.forbiddenDash,
     });
-  return [data, predicted].filter((row) => row.length > 0);
+  return [data, parts, predicted].filter((row) => row.length > 0);
 }
 
 /**
@@ -414,7 +414,7 @@ function keyPlugin(rows: readonly (readonly KeyItem[])[]): Plugin {
     afterDraw(chart) {
       const ctx = chartContext(chart);
       rows.forEach((row, k) => {
-        drawKey(ctx, row, chart.chartArea.right, chart.height - KEY_ROOM + 12 + 18 * k);
+        drawKey(ctx, row, chart.chartArea.right, chart.height - KEY_ROOM + 10 + 18 * k);
       });
     },
   };

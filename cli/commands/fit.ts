@@ -15,11 +15,14 @@ import { jsonText } from '../format.js';
 import { type Io, progress } from '../io.js';
 import {
   cbHelp,
+  DPI_OPTION,
+  figureSizeOptions,
   GEOMETRY_OPTION,
   geometryOption,
   ionOrCount,
   numberOption,
   ratioChoice,
+  SIZE_OPTION,
   spinStateOption,
   splitLabels,
 } from '../options.js';
@@ -40,6 +43,8 @@ export interface FitOptions {
   spinState?: string;
   B?: string;
   diagram?: string;
+  size?: string;
+  dpi?: string;
   json?: boolean;
 }
 
@@ -75,6 +80,8 @@ export function registerFit(program: Command, io: Io): void {
       '--diagram <file>',
       'draw the correlation diagram at the fitted C/B with the sample on it (.png, .svg, .pdf)',
     )
+    .option(...SIZE_OPTION)
+    .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout')
     .action((opts: FitOptions) => {
       io.out(fitCommand(opts, io));
@@ -126,6 +133,7 @@ function fitCommand(opts: FitOptions, io: Io): string {
   const diagramPath = opts.diagram === undefined ? undefined : resolve(io.cwd, opts.diagram);
   const diagramFormat = opts.diagram === undefined ? undefined : formatOfPath(opts.diagram);
   if (diagramPath !== undefined) checkOutputDirectory(diagramPath);
+  const size = figureSizeOptions(opts);
   const bar = progress(io, 'fitting');
   let fitted: ReturnType<typeof fitFromOptions>;
   try {
@@ -136,7 +144,7 @@ function fitCommand(opts: FitOptions, io: Io): string {
   const { result, ion, cOrigin } = fitted;
   const best = result.solutions[0];
   if (diagramPath !== undefined && diagramFormat !== undefined && best) {
-    writeFileAtomic(diagramPath, fittedDiagram(result, best, diagramFormat, ion));
+    writeFileAtomic(diagramPath, fittedDiagram(result, best, diagramFormat, ion, size));
   }
   const figureNote =
     diagramPath !== undefined && best

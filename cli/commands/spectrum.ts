@@ -25,12 +25,15 @@ import { readTextFile, writeFileAtomic } from '../files.js';
 import { fixed, ionText, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 import {
+  DPI_OPTION,
+  figureSizeOptions,
   GEOMETRY_OPTION,
   geometryOption,
   ionOrCount,
   levelsFromOptions,
   numberOption,
   ratioChoice,
+  SIZE_OPTION,
   type SolvedLevels,
   spinStateOption,
 } from '../options.js';
@@ -62,6 +65,8 @@ export interface SpectrumOptions {
   minWidth?: string;
   baseline?: string;
   output?: string;
+  size?: string;
+  dpi?: string;
   json?: boolean;
 }
 
@@ -98,6 +103,8 @@ export function registerSpectrum(program: Command, io: Io): void {
     .option('--min-width <cm-1>', 'narrowest band (FWHM) looked for', String(DEFAULT_MIN_FWHM))
     .option('--baseline <kind>', 'baseline fitted with the bands: none, constant or linear', DEFAULT_BASELINE)
     .option('-o, --output <file>', 'write the overlay figure (.png, .svg or .pdf)')
+    .option(...SIZE_OPTION)
+    .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout')
     .action((file: string, opts: SpectrumOptions) => {
       io.out(spectrumCommand(file, opts, io));
@@ -116,6 +123,7 @@ export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): st
   const job = spectrumJob(opts);
   const outPath = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
   const format = outPath === undefined ? undefined : formatOfPath(outPath);
+  const size = figureSizeOptions(opts);
   const text = readTextFile(resolve(io.cwd, file));
   const report: SpectrumReport = {
     file,
@@ -124,7 +132,7 @@ export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): st
     ...(opts.output !== undefined ? { figure: opts.output } : {}),
   };
   if (outPath !== undefined && format !== undefined) {
-    writeFileAtomic(outPath, spectrumFigure(report, `termsplit spectrum ${file}`, format));
+    writeFileAtomic(outPath, spectrumFigure(report, `termsplit spectrum ${file}`, format, size));
   }
   return opts.json ? jsonText(reportJson(report)) : reportText(report, opts);
 }
