@@ -57,3 +57,8 @@ export function ionText(ion: string | undefined, n: number): string {
   const d = unicodeConfiguration(`d^${n}`);
   return ion === undefined ? d : `${unicodeIon(ion)} ${d}`;
 }
+
+/** Ion names inside a phrase written in Unicode (`free-ion ratio of Cr3+` → `… of Cr³⁺`). */
+export function unicodeIons(text: string): string {
+  return text.replace(/\b[A-Z][a-z]?\d+[+-](?=[\s;:,)]|$)/g, (ion) => unicodeIon(ion));
+}

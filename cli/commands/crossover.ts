@@ -47,7 +47,7 @@ import {
   unicodeLabel,
 } from '../../src/index.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
-import { fixed, ionText, jsonText, table } from '../format.js';
+import { fixed, ionText, jsonText, table, unicodeIons } from '../format.js';
 import { type Io, progress } from '../io.js';
 import { cbHelp, configOrIon, GEOMETRY_OPTION, geometryOption, ratioChoice } from '../options.js';
 import { crossingsJson, verdictJson } from '../present/crossoverPresent.js';
@@ -443,8 +443,8 @@ function headerLines(r: Report): string[] {
     `${ionText(ion?.ion, n)}, ${where}` +
       (n === 1 || n === 9
         ? ''
-        : `: B = ${fixed(B)}${sigmaB} cm⁻¹ (${input.bOrigin}), C = ${fixed(C)} cm⁻¹ ` +
-          `(C/B = ${fixed(C / B, 2)}, ${input.cOrigin})`),
+        : `: B = ${fixed(B)}${sigmaB} cm⁻¹ (${unicodeIons(input.bOrigin)}), C = ${fixed(C)} cm⁻¹ ` +
+          `(C/B = ${fixed(C / B, 2)}, ${unicodeIons(input.cOrigin)})`),
   ];
   if (input.bOrigin.startsWith('free-ion') && analysis.crossings.length > 0) {
     lines.push(

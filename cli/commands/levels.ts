@@ -17,7 +17,7 @@ import { BAND_CEILING } from '../../src/core/defaults.js';
 import { unicodeConfiguration, unicodeTerm } from '../../src/field/labels.js';
 import { type CubicLevel, cmToEv, cmToNm, cubicCautions, unicodeLabel } from '../../src/index.js';
 import { writeFileAtomic } from '../files.js';
-import { fixed, ionText, jsonText, listSection, table } from '../format.js';
+import { fixed, ionText, jsonText, listSection, table, unicodeIons } from '../format.js';
 import type { Io } from '../io.js';
 import {
   cbHelp,
@@ -118,7 +118,7 @@ function levelsText(opts: LevelsOptions, solved: SolvedLevels, figure: string | 
   const geometryName = result.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
   lines.push(
     `${ionText(ion, result.n)}, ${geometryName}: Dq = ${fixed(result.dq)} cm⁻¹ (10Dq = ${fixed(10 * result.dq)}), ` +
-      `B = ${fixed(result.B)} cm⁻¹, C = ${fixed(result.C)} cm⁻¹ (${cOrigin === SINGLE_ELECTRON_ORIGIN ? cOrigin : `C/B ${fixed(result.C / result.B, 2)}, ${cOrigin}`})`,
+      `B = ${fixed(result.B)} cm⁻¹, C = ${fixed(result.C)} cm⁻¹ (${cOrigin === SINGLE_ELECTRON_ORIGIN ? cOrigin : `C/B ${fixed(result.C / result.B, 2)}, ${unicodeIons(cOrigin)}`})`,
   );
   lines.push(
     `Ground state: ${unicodeLabel(g.label)} (S = ${halfIntegerText(g.S)}), from ${unicodeTerm(g.parent)}, ` +

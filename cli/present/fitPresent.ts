@@ -8,7 +8,7 @@
 import { BAND_CEILING } from '../../src/core/defaults.js';
 import { unicodeIon } from '../../src/field/labels.js';
 import { cmToNm, type FitResult, type FitSolution, unicodeLabel } from '../../src/index.js';
-import { fixed, ionText, listSection, table } from '../format.js';
+import { fixed, ionText, listSection, table, unicodeIons } from '../format.js';
 
 /** Whether only Dq was fitted (d¹, d⁹). */
 function single(s: FitSolution): boolean {
@@ -144,12 +144,12 @@ function fitHeaderLines(
   const cLine = single(best)
     ? 'only Dq enters (one d electron or hole)'
     : best.bHeld
-      ? `B held at ${fixed(best.B)} cm⁻¹ (given) and C/B at ${fixed(result.cOverB, 2)} (${cOrigin}); only Dq fitted`
+      ? `B held at ${fixed(best.B)} cm⁻¹ (given) and C/B at ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)}); only Dq fitted`
       : result.fitC && best.cFitted
-        ? `C fitted, starting from C/B ${fixed(result.cOverB, 2)} (${cOrigin})`
+        ? `C fitted, starting from C/B ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)})`
         : result.fitC
-          ? `C asked to be fitted, but no assigned band depends on it: held at C/B ${fixed(result.cOverB, 2)} (${cOrigin})`
-          : `C/B held at ${fixed(result.cOverB, 2)} (${cOrigin})`;
+          ? `C asked to be fitted, but no assigned band depends on it: held at C/B ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)})`
+          : `C/B held at ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)})`;
   lines.push(
     `${cLine}; bands weighted ${result.weighting === 'given' ? 'by their given uncertainties' : 'equally (no uncertainties given)'}`,
   );
