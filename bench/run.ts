@@ -3,15 +3,19 @@
 import { benchCrossover } from './crossover.js';
 import { benchDiagram } from './diagram.js';
 import { benchFit } from './fit.js';
+import { benchLowSymmetry } from './lowSymmetry.js';
 import { benchSolver } from './solver.js';
 import { benchSpectrum } from './spectrum.js';
+import { benchSpinOrbit } from './spinOrbit.js';
 
 const benches: [string, () => void | Promise<void>][] = [
   ['solver', benchSolver],
   ['diagram', benchDiagram],
   ['fit', benchFit],
+  ['low symmetry', benchLowSymmetry],
   ['crossover', benchCrossover],
   ['spectrum', benchSpectrum],
+  ['spin-orbit', benchSpinOrbit],
 ];
 
 console.log(`termsplit benchmark — Node ${process.version}, ${new Date().toISOString().slice(0, 10)}\n`);

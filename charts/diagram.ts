@@ -323,7 +323,8 @@ const GEOMETRY_NAME = { oct: 'an octahedral (O_h)', tet: 'a tetrahedral (T_d)' }
 function diagramTitleMarkup(diagram: CorrelationDiagram, ion: string | undefined): string {
   const who = `${ion === undefined ? '' : `${ionMarkup(ion)}, `}d^${diagram.n}`;
   const ratio = diagram.n === 1 || diagram.n === 9 ? '' : `, C/B = ${diagram.cOverB.toFixed(2)}`;
-  return `${who} in ${GEOMETRY_NAME[diagram.geometry]} field${ratio}`;
+  const zeta = diagram.zetaOverB === undefined ? '' : `, ζ/B = ${diagram.zetaOverB.toFixed(2)}`;
+  return `${who} in ${GEOMETRY_NAME[diagram.geometry]} field${ratio}${zeta}`;
 }
 
 /** The figure title as plain text (the PDF document title). */
@@ -409,7 +410,8 @@ function diagramLabels(diagram: CorrelationDiagram, setting: LabelSetting): Plug
         anyForbidden,
         setting.allForbidden ? undefined : 'spin-forbidden, lowest only',
       );
-      drawKey(ctx, key, chart.width - 8, chart.height - 11);
+      // With spin–orbit coupling spin is no good label: every curve is drawn alike, with no key.
+      if (diagram.zetaOverB === undefined) drawKey(ctx, key, chart.width - 8, chart.height - 11);
       setting.onLabels?.(placed.map((p) => ({ text: p.text, kind: p.kind, box: p.box })));
     },
   };

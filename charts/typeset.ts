@@ -51,14 +51,16 @@ export function stateRuns(label: string): TextRun[] {
   return runs;
 }
 
-/** Runs of a free-ion term name such as `4F` or `a2D` (prefix a, b for repeated terms). */
+/** Runs of a free-ion term name such as `4F` or `a2D` (prefix a, b for repeated terms), or a level such as `4F3/2`. */
 export function termRuns(name: string): TextRun[] {
-  const m = /^([a-z]?)(\d+)([A-Z])$/.exec(name);
+  // A free-ion level (spin–orbit diagrams) carries J after the letter: 4F3/2.
+  const m = /^([a-z]?)(\d+)([A-Z])(\d+(?:\/2)?)?$/.exec(name);
   if (!m) return [{ text: name, shift: 'base' }];
-  const [, prefix = '', multiplicity = '', letter = ''] = m;
+  const [, prefix = '', multiplicity = '', letter = '', J = ''] = m;
   const runs: TextRun[] = [];
   if (prefix !== '') runs.push({ text: prefix, shift: 'base' });
   runs.push({ text: multiplicity, shift: 'sup' }, { text: letter, shift: 'base' });
+  if (J !== '') runs.push({ text: J, shift: 'sub' });
   return runs;
 }
 

@@ -12,6 +12,7 @@ import { registerDiagram } from './commands/diagram.js';
 import { registerFit } from './commands/fit.js';
 import { registerIons } from './commands/ions.js';
 import { registerLevels } from './commands/levels.js';
+import { registerMagnetism } from './commands/magnetism.js';
 import { registerReport } from './commands/report.js';
 import { registerSpectrum } from './commands/spectrum.js';
 import { registerTerms } from './commands/terms.js';
@@ -39,6 +40,7 @@ export function buildProgram(io: Io): Command {
     registerFit,
     registerDiagram,
     registerCrossover,
+    registerMagnetism,
     registerSpectrum,
     registerReport,
     registerDemo,

@@ -21,6 +21,14 @@ export {
   sampleVerdict,
   type VerdictOptions,
 } from './analysis/crossover.js';
+export { type DistortedCaution, distortedCautions } from './analysis/distortedCautions.js';
+export {
+  type DistortionCurve,
+  type DistortionSweep,
+  type DistortionSweepInput,
+  distortionCsv,
+  distortionSweep,
+} from './analysis/distortionSweep.js';
 export { type FittedSample, type FittedSampleInput, fittedSample } from './analysis/fittedSample.js';
 export { type GroundMapOptions, type GroundStateMap, groundStateMap } from './analysis/groundMap.js';
 export { type CrossingInput, type GroundCrossing, groundStateCrossings } from './analysis/groundState.js';
@@ -34,6 +42,17 @@ export {
 export { type MomentEstimate, momentEstimate, spinOnlyMoment } from './analysis/magnetism.js';
 export { hasSpinChoice } from './analysis/spinChoice.js';
 export {
+  type SpinOrbitCurve,
+  type SpinOrbitDiagram,
+  type SpinOrbitSweepOptions,
+  sweepSpinOrbit,
+} from './analysis/spinOrbitSweep.js';
+export {
+  type MomentPoint,
+  type SusceptibilityInput,
+  susceptibility,
+} from './analysis/susceptibility.js';
+export {
   type CorrelationDiagram,
   type DiagramCrossing,
   type DiagramCurve,
@@ -45,6 +64,7 @@ export {
 } from './analysis/sweep.js';
 /** The free ion: microstates, terms, Hund's rules, J levels, term energies in Racah B and C. */
 export { type FreeIonTerm, freeIonTerms } from './atom/freeIon.js';
+export { type FreeIonLevel, freeIonLevels } from './atom/jLevels.js';
 export { type Microstate, microstates } from './atom/microstates.js';
 export {
   type Configuration,
@@ -70,6 +90,9 @@ export {
   parseEnergyList,
   toWavenumber,
 } from './core/units.js';
+/** Complexes of lower symmetry: angular overlap and tetragonal/trigonal fields, point groups, labelled levels. */
+export type { BondParameters, Ligand } from './field/angularOverlap.js';
+export { trigonalFromSplitting } from './field/axialFields.js';
 /** The ion in a cubic field: the exact solver with labelled levels. */
 export {
   type ConfigurationWeight,
@@ -78,27 +101,63 @@ export {
   type CubicResult,
   solveCubic,
 } from './field/cubic.js';
+export {
+  type DistortedInput,
+  type DistortedResult,
+  type FieldSpec,
+  type OrbitalLevel,
+  solveDistorted,
+} from './field/distortedComplex.js';
+/** The ion in a cubic field with spin–orbit coupling: double-group levels with parentage. */
+export type { DoubleIrrep } from './field/doubleGroup.js';
+export { GEOMETRY_PRESETS, type GeometryPreset, presetLigands } from './field/geometries.js';
 export { unicodeLabel } from './field/labels.js';
+export type { CubicParent, FieldLevel } from './field/lowSymmetrySolver.js';
+export { type PointGroup, pointGroup } from './field/pointGroups.js';
+export {
+  type ParentWeight,
+  type SpinOrbitInput,
+  type SpinOrbitLevel,
+  type SpinOrbitResult,
+  solveSpinOrbit,
+} from './field/spinOrbitSolver.js';
+export {
+  type DistortedBand,
+  type DistortedFitInput,
+  type DistortedFitResult,
+  type DistortedFitWarning,
+  fitDistorted,
+  fitParameterNames,
+} from './fit/distortedFit.js';
 
 /** Fitting Dq, B (and C) to observed band maxima. */
 export { fitBands } from './fit/fitBands.js';
-
 export {
+  type BandMerge,
   FIT_DEFAULTS,
   type FitAssignment,
   type FitBand,
   type FitInput,
   type FitResult,
+  type FitScore,
   type FitSolution,
   type PredictedBand,
+  type SharpMatch,
+  type SpinHypothesis,
 } from './fit/fitTypes.js';
-
 export { type FitSpinVerdict, fitSpinVerdict } from './fit/fitVerdict.js';
-
 export type { FitWarning } from './fit/fitWarnings.js';
+export {
+  type AssignedBand,
+  type RefinedBand,
+  refineWithSpinOrbit,
+  type SpinOrbitRefineInput,
+  type SpinOrbitRefinement,
+} from './fit/spinOrbitRefinement.js';
 /** Sample sheets and series of samples. */
 export { parseSampleSheet, type SampleSheet, type SampleSpec } from './sheets/sampleSheet.js';
 export { type SeriesEntry, seriesOrders, seriesTable } from './sheets/series.js';
+export { type CoordinationSphere, coordinationSphere, parseXyz, type XyzStructure } from './sheets/xyz.js';
 /** Measured spectra: reading, band finding, and the whole spectrum analysis. */
 export { type AbsorptionSpectrum, absorptionSpectrum } from './spectra/absorptionSpectrum.js';
 export { type BandAnalysis, type FoundBand, findBands } from './spectra/bandFinding.js';

@@ -20,9 +20,11 @@ import { fittedSample as placeByFit } from '../../src/analysis/fittedSample.js';
 import { GROUND_MAP_DEFAULTS } from '../../src/analysis/groundMap.js';
 import { pairingCoefficients } from '../../src/analysis/lfse.js';
 import { hasSpinChoice } from '../../src/analysis/spinChoice.js';
+import { susceptibility } from '../../src/analysis/susceptibility.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { DEFAULT_C_OVER_B, NOMINAL_B } from '../../src/core/defaults.js';
 import { unicodeConfiguration } from '../../src/field/labels.js';
+import { solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
 import {
   type Crossover,
   type CrossoverAnalysis,
@@ -52,6 +54,7 @@ import { type Io, progress } from '../io.js';
 import { cbHelp, configOrIon, GEOMETRY_OPTION, geometryOption, ratioChoice } from '../options.js';
 import { crossingsJson, verdictJson } from '../present/crossoverPresent.js';
 import { solutionJson } from '../present/fitPresent.js';
+import { ZETA_FACTOR_HELP, zetaOption } from '../zetaOption.js';
 
 /** Options of `termsplit crossover`. */
 export interface CrossoverCommandOptions {
@@ -63,6 +66,8 @@ export interface CrossoverCommandOptions {
   dq?: string;
   bands?: string;
   output?: string;
+  zeta?: string;
+  zetaFactor?: string;
   json?: boolean;
 }
 
@@ -85,6 +90,8 @@ export function registerCrossover(program: Command, io: Io): void {
       "the sample's band maxima instead of --dq and --B: Dq, B (and their errors) come from a band fit",
     )
     .option('-o, --output <file>', 'write the ground-state map to a .png, .svg or .pdf file')
+    .option('--zeta <cm-1|ion>', 'also μ_eff with spin–orbit coupling beside spin-only (cm⁻¹, or "ion")')
+    .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('--json', 'print one JSON object on stdout')
     .action((configText: string | undefined, opts: CrossoverCommandOptions) => {
       io.out(crossoverCommand(configText, opts, io));
@@ -274,6 +281,58 @@ function momentStates(analysis: CrossoverAnalysis, verdict: SampleVerdict | unde
   return out;
 }
 
+/** Temperatures of the spin–orbit moments beside spin-only, K. */
+export const MOMENT_TEMPERATURES = [300, 80, 2] as const;
+
+/** A Dq either side of a crossover at which its states' moments are shown, as a fraction of Dq_c. */
+export const CROSSOVER_SIDE = 0.1;
+
+/** μ_eff with spin–orbit coupling at chosen Dq values. */
+interface SpinOrbitMoments {
+  readonly zeta: number;
+  readonly temperatures: readonly number[];
+  readonly points: readonly {
+    readonly where: string;
+    readonly dq: number;
+    readonly ground: string;
+    readonly parent: string;
+    readonly muEff: readonly number[];
+  }[];
+}
+
+/** With --zeta: μ_eff at the sample's Dq, else a little either side of each crossover, else at one Dq. */
+function spinOrbitMomentsOf(
+  opts: CrossoverCommandOptions,
+  ion: FreeIon | undefined,
+  analysis: CrossoverAnalysis,
+  verdict: SampleVerdict | undefined,
+): { spinOrbitMoments?: SpinOrbitMoments } {
+  const zeta = zetaOption(opts.zeta, opts.zetaFactor, ion);
+  if (zeta === undefined) return {};
+  const { n, geometry, B, C } = analysis;
+  const places: { where: string; dq: number }[] = verdict
+    ? [{ where: 'sample', dq: verdict.dq }]
+    : analysis.crossings.length > 0
+      ? analysis.crossings.flatMap((c) => [
+          {
+            where: `below the crossover (${fixed(100 * CROSSOVER_SIDE)} %)`,
+            dq: c.dq * (1 - CROSSOVER_SIDE),
+          },
+          {
+            where: `above the crossover (${fixed(100 * CROSSOVER_SIDE)} %)`,
+            dq: c.dq * (1 + CROSSOVER_SIDE),
+          },
+        ])
+      : [{ where: 'Δ/B = 10', dq: B > 0 ? B : NOMINAL_B }];
+  const temperatures = [...MOMENT_TEMPERATURES];
+  const points = places.map(({ where, dq }) => {
+    const ground = solveSpinOrbit({ n, geometry, dq, B, C, zeta }).ground;
+    const moments = susceptibility({ n, geometry, dq, B, C, zeta, temperatures });
+    return { where, dq, ground: ground.label, parent: ground.parent, muEff: moments.map((m) => m.muEff) };
+  });
+  return { spinOrbitMoments: { zeta, temperatures, points } };
+}
+
 /** Everything the command reports, computed before anything is printed. */
 interface Report {
   readonly input: Resolved;
@@ -289,6 +348,8 @@ interface Report {
   readonly classroom?: number;
   readonly coefficients?: { readonly B: number; readonly C: number };
   readonly moments: readonly MomentEstimate[];
+  /** μ_eff with spin–orbit coupling, when --zeta is given. */
+  readonly spinOrbitMoments?: SpinOrbitMoments;
   readonly cautions: readonly CrossoverCaution[];
   /** The output path as given, when the map was written. */
   readonly map?: string;
@@ -346,6 +407,7 @@ export function crossoverCommand(
     ...(classroom !== undefined ? { classroom } : {}),
     ...(coefficients ? { coefficients } : {}),
     moments: momentStates(analysis, verdict),
+    ...spinOrbitMomentsOf(opts, input.ion, analysis, verdict),
     cautions: crossoverCautions(analysis),
     ...(opts.output !== undefined ? { map: opts.output } : {}),
   };
@@ -421,6 +483,7 @@ function reportJson(r: Report) {
       impliedPairing: r.implied ?? null,
     },
     magnetism: r.moments,
+    ...(r.spinOrbitMoments ? { magnetismSpinOrbit: r.spinOrbitMoments } : {}),
     map: r.map ?? null,
     cautions: r.cautions.map((c) => c.message),
   };
@@ -576,6 +639,18 @@ function reportText(r: Report): string {
         `  ${unicodeLabel(m.state)}  S = ${halfIntegerText(m.S)}  μ_so = ${fixed(m.spinOnly, 2)} μ_B — ${m.note}`,
     ),
   ]);
+  const so = r.spinOrbitMoments;
+  if (so) {
+    sections.push([
+      `With spin–orbit coupling, ζ = ${fixed(so.zeta)} cm⁻¹ (Van Vleck over all states, k = 1, g = 2):`,
+      ...so.points.map(
+        (p) =>
+          `  ${p.where}, Dq = ${fixed(p.dq)} cm⁻¹: ground ${p.ground.replace(/\(\d+\)$/, '')} (mainly ${unicodeLabel(p.parent)}), μ_eff = ` +
+          p.muEff.map((m, i) => `${fixed(m, 2)} (${so.temperatures[i]} K)`).join(', ') +
+          ' μ_B',
+      ),
+    ]);
+  }
   if (r.map !== undefined) sections.push([`Ground-state map written to ${r.map}.`]);
   // The tetrahedral note is printed with the crossover already.
   const cautions = r.cautions.filter((c) => c.code !== 'tetrahedral');

@@ -9,6 +9,12 @@ import type { Command } from 'commander';
 import { type DiagramChartOptions, renderDiagram } from '../../charts/diagram.js';
 import { type FigureFormat, type FigureOptions, formatOfPath } from '../../charts/render.js';
 import { type SampleMark, samplePosition } from '../../charts/sampleOverlay.js';
+import { DEFAULT_SWEEP_STEPS } from '../../src/analysis/distortionSweep.js';
+import {
+  type SpinOrbitDiagram,
+  spinOrbitAsCorrelation,
+  sweepSpinOrbit,
+} from '../../src/analysis/spinOrbitSweep.js';
 import {
   DEFAULT_MAX_DELTA_OVER_B,
   DEFAULT_SWEEP_POINTS,
@@ -16,6 +22,8 @@ import {
   MAX_SWEEP_POINTS,
 } from '../../src/analysis/sweep.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
+import { DOUBLE_GROUP_NOTATION } from '../../src/field/doubleGroup.js';
+import { unicodeTerm } from '../../src/field/labels.js';
 import {
   type CorrelationDiagram,
   diagramCsv,
@@ -27,6 +35,8 @@ import {
   sweepDiagram,
   unicodeLabel,
 } from '../../src/index.js';
+import { type DistortionDiagramOptions, distortionDiagramCommand } from '../distorted.js';
+import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFilesAtomic } from '../files.js';
 import { fixed, jsonText } from '../format.js';
 import { type Io, progress } from '../io.js';
@@ -42,6 +52,7 @@ import {
   ratioChoice,
   SIZE_OPTION,
 } from '../options.js';
+import { ZETA_FACTOR_HELP, zetaOption } from '../zetaOption.js';
 
 /** Options of `termsplit diagram`, as commander hands them over. */
 export interface DiagramOptions {
@@ -62,14 +73,18 @@ export interface DiagramOptions {
   dq?: string;
   B?: string;
   bands?: string;
+  zeta?: string;
+  zetaFactor?: string;
   json?: boolean;
 }
 
 /** `termsplit diagram`: a correlation diagram as a figure and as data, with a sample on it. */
 export function registerDiagram(program: Command, io: Io): void {
-  program
+  const command = program
     .command('diagram')
-    .description('correlation (Tanabe–Sugano-style) diagram of dⁿ at a chosen C/B: figure and curve data')
+    .description(
+      'correlation (Tanabe–Sugano-style) diagram of dⁿ at a chosen C/B, or the levels of a distorted complex along a distortion (--distort with a geometry): figure and curve data',
+    )
     .argument('[config]', 'the d configuration, e.g. d6 (optional with --ion)')
     .option('--ion <name>', 'the metal ion, e.g. Fe2+ (gives n and the free-ion C/B)')
     .option(...GEOMETRY_OPTION)
@@ -91,10 +106,38 @@ export function registerDiagram(program: Command, io: Io): void {
     .option('--dq <cm-1>', 'mark a sample: its Dq (10Dq = Δ), with --B')
     .option('--B <cm-1>', "the sample's Racah B, with --dq")
     .option('--bands <list>', 'observed band maxima of the sample, e.g. 16500,23000 or 606nm,435nm')
+    .option(
+      '--zeta <cm-1|ion>',
+      'spin–orbit ζ, cm⁻¹, or "ion": double-group curves at ζ/B = ζ/(--B, else the free-ion B)',
+    )
+    .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('--json', 'print the curve data as one JSON object on stdout (the figure only with -o)')
-    .action((configText: string | undefined, opts: DiagramOptions) => {
+    .option(
+      '--distort <coordinate>',
+      "with a geometry: ratio:KIND (scale that kind's eσ, eπ), angle (the shape angle), or a parameter of --tetragonal/--trigonal (ds, dt, dSigma, dTau, dq); --emax is then in cm⁻¹",
+    )
+    .option('--from <x>', 'start of the distortion coordinate (ratio: default 1)')
+    .option('--to <x>', 'end of the distortion coordinate (ratio: default 0)')
+    .option('--steps <n>', 'number of intervals along the distortion', String(DEFAULT_SWEEP_STEPS));
+  addFieldOptions(command).action(
+    (configText: string | undefined, opts: DiagramOptions & DistortionDiagramOptions) => {
+      if (hasFieldOptions(opts) || opts.distort !== undefined) {
+        if (opts.distort === undefined)
+          throw new InputError('with a geometry, diagram needs --distort (e.g. ratio:ax or angle)');
+        if (!hasFieldOptions(opts))
+          throw new InputError('--distort needs a geometry: --shape, --xyz, --tetragonal or --trigonal');
+        if (opts.dq !== undefined || opts.bands !== undefined) {
+          throw new InputError(
+            '--dq and --bands mark a sample on the cubic diagram: leave them out with --distort',
+          );
+        }
+        const { n, ion } = configOrIon(configText, opts.ion);
+        io.out(distortionDiagramCommand(n, ion, opts, io));
+        return;
+      }
       io.out(diagramCommand(configText, opts, io));
-    });
+    },
+  );
 }
 
 /** A sample given on the command line, with where it sits on the diagram. */
@@ -142,6 +185,8 @@ interface DiagramJob {
   readonly figureFormat?: FigureFormat;
   readonly dataPath?: string;
   readonly dataKind?: 'csv' | 'json';
+  /** ζ and ζ/B when the curves include spin–orbit coupling. */
+  readonly spinOrbit?: { readonly zeta: number; readonly zetaOverB: number };
 }
 
 /** Checks the configuration, C/B, range, sample and output paths. */
@@ -174,6 +219,7 @@ function diagramJob(configText: string | undefined, opts: DiagramOptions, io: Io
       `the sample's Δ/B = 10Dq/B = ${fixed(sample.deltaOverB, 2)} lies beyond --max ${maxDeltaOverB}: raise --max`,
     );
   }
+  const spinOrbit = spinOrbitOfJob(opts, ion, sample?.B);
   const figurePath =
     opts.output !== undefined
       ? resolve(io.cwd, opts.output)
@@ -196,6 +242,7 @@ function diagramJob(configText: string | undefined, opts: DiagramOptions, io: Io
     },
     figureSize: figureSizeOptions(opts),
     ...(sample ? { sample } : {}),
+    ...(spinOrbit ? { spinOrbit } : {}),
     ...(figurePath !== undefined
       ? { figurePath, figureFormat: formatOfPath(opts.output ?? figurePath) }
       : {}),
@@ -203,6 +250,43 @@ function diagramJob(configText: string | undefined, opts: DiagramOptions, io: Io
       ? { dataPath: resolve(io.cwd, opts.data), dataKind: dataFormat(opts.data) }
       : {}),
   };
+}
+
+/** ζ and ζ/B from `--zeta`, with B the sample's or else the ion's free-ion B. */
+function spinOrbitOfJob(
+  opts: DiagramOptions,
+  ion: FreeIon | undefined,
+  sampleB: number | undefined,
+): DiagramJob['spinOrbit'] {
+  const zeta = zetaOption(opts.zeta, opts.zetaFactor, ion);
+  if (zeta === undefined) return undefined;
+  const B = sampleB ?? ion?.B;
+  if (B === undefined || !(B > 0)) {
+    throw new InputError(
+      `--zeta ${opts.zeta}: needs the sample's --B (with --dq), or an --ion with a free-ion B, to set ζ/B`,
+    );
+  }
+  return { zeta, zetaOverB: zeta / B };
+}
+
+/** The diagram's sweep: the spin–orbit-free one, or the double-group one with `--zeta`. */
+function sweep(
+  job: DiagramJob,
+  onProgress: (done: number, total: number) => void,
+): {
+  diagram: CorrelationDiagram;
+  spinOrbit?: SpinOrbitDiagram;
+} {
+  const common = {
+    geometry: job.geometry,
+    cOverB: job.cOverB,
+    maxDeltaOverB: job.maxDeltaOverB,
+    points: job.points,
+    onProgress,
+  };
+  if (!job.spinOrbit) return { diagram: sweepDiagram(job.n, common) };
+  const spinOrbit = sweepSpinOrbit(job.n, { ...common, zetaOverB: job.spinOrbit.zetaOverB });
+  return { diagram: spinOrbitAsCorrelation(spinOrbit), spinOrbit };
 }
 
 /** The figure and data files of the diagram, as bytes to write. */
@@ -241,18 +325,13 @@ export function diagramCommand(configText: string | undefined, opts: DiagramOpti
   const job = diagramJob(configText, opts, io);
   const { n, ion, geometry, sample, figurePath, dataPath } = job;
   const bar = progress(io, `d${n} ${geometry}: sweeping Δ/B`);
-  let diagram: CorrelationDiagram;
+  let swept: ReturnType<typeof sweep>;
   try {
-    diagram = sweepDiagram(n, {
-      geometry,
-      cOverB: job.cOverB,
-      maxDeltaOverB: job.maxDeltaOverB,
-      points: job.points,
-      onProgress: (done, total) => bar.update(done, total),
-    });
+    swept = sweep(job, (done, total) => bar.update(done, total));
   } finally {
     bar.end();
   }
+  const { diagram, spinOrbit } = swept;
   writeFilesAtomic(diagramFiles(job, diagram));
 
   const cautions = diagramCautions(diagram).map((c) => c.message);
@@ -280,10 +359,46 @@ export function diagramCommand(configText: string | undefined, opts: DiagramOpti
           }
         : {}),
       ...diagramJson(diagram),
+      ...(spinOrbit && job.spinOrbit
+        ? {
+            zeta: job.spinOrbit.zeta,
+            zetaOverB: spinOrbit.zetaOverB,
+            notation: DOUBLE_GROUP_NOTATION,
+            units: 'x is Δ/B = 10Dq/B; values are E/B above the ground level, with spin–orbit coupling',
+            regions: [],
+            curves: spinOrbit.curves,
+          }
+        : {}),
       cautions,
     });
   }
+  if (spinOrbit && job.spinOrbit) return spinOrbitSummary(spinOrbit, job, figurePath, dataPath, cautions);
   return summaryText(diagram, { ion: ion?.ion, cOrigin, sample, figurePath, dataPath, cautions });
+}
+
+function spinOrbitSummary(
+  d: SpinOrbitDiagram,
+  job: DiagramJob,
+  figurePath: string | undefined,
+  dataPath: string | undefined,
+  cautions: readonly string[],
+): string {
+  const geometryName = d.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
+  const groundAt = (i: number) => d.curves.find((c) => c.values[i] === 0);
+  const first = groundAt(0);
+  const last = groundAt(d.deltaOverB.length - 1);
+  const lines = [
+    `${job.ion ? `${job.ion.ion}, ` : ''}d${d.n} ${geometryName}, C/B = ${fixed(d.cOverB, 2)} (${job.cOrigin}), ` +
+      `ζ = ${fixed(job.spinOrbit?.zeta ?? 0)} cm⁻¹, ζ/B = ${fixed(d.zetaOverB, 3)}: Δ/B from 0 to ${d.maxDeltaOverB} in ` +
+      `${d.deltaOverB.length} points, ${d.curves.length} double-group levels (E/B above the ground level).`,
+    `Labels in ${DOUBLE_GROUP_NOTATION}; levels of one irrep do not cross.`,
+    `Ground level: ${first?.irrep ?? '?'} from ${unicodeTerm(first?.freeIon ?? '')} at Δ/B = 0; ` +
+      `${last?.irrep ?? '?'} (mainly ${unicodeLabel(last?.strongField ?? '')}) at Δ/B = ${d.maxDeltaOverB}.`,
+  ];
+  if (figurePath) lines.push(`Figure written to ${figurePath}`);
+  if (dataPath) lines.push(`Curve data written to ${dataPath}`);
+  if (cautions.length > 0) lines.push('', 'Cautions:', ...cautions.map((c) => `  - ${c}`));
+  return `${lines.join('\n')}\n`;
 }
 
 function summaryText(

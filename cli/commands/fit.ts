@@ -1,6 +1,6 @@
 /**
  * `termsplit fit`: checks the options into a fit of band maxima (ion or dⁿ, bands in their unit,
- * geometry, C/B, assignments, spin state, held B), runs the library's band fit with progress on
+ * geometry, C/B, assignments, spin state, held B, merging), runs the library's band fit with progress on
  * stderr, prints the text or JSON form and draws the correlation diagram if asked.
  */
 
@@ -9,7 +9,10 @@ import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { DEFAULT_ENERGY_UNIT } from '../../src/core/defaults.js';
 import { parseUnit } from '../../src/core/units.js';
-import { type FitResult, fitBands, InputError, parseEnergyList } from '../../src/index.js';
+import { refineWithSpinOrbit, type SpinOrbitRefinement } from '../../src/fit/spinOrbitRefinement.js';
+import { type FitResult, findIon, fitBands, InputError, parseEnergyList } from '../../src/index.js';
+import { type DistortedFitOptions, distortedFitCommand } from '../distorted.js';
+import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { jsonText } from '../format.js';
 import { type Io, progress } from '../io.js';
@@ -28,6 +31,8 @@ import {
 } from '../options.js';
 import { fitJson, fitText } from '../present/fitPresent.js';
 import { fittedDiagram } from '../present/fittedDiagram.js';
+import { refinementJson, refinementText } from '../present/spinOrbitPresent.js';
+import { ZETA_FACTOR_HELP, zetaOption } from '../zetaOption.js';
 
 /** Options of `termsplit fit`. */
 export interface FitOptions {
@@ -38,6 +43,7 @@ export interface FitOptions {
   geometry?: string;
   cb?: string;
   fitC?: boolean;
+  keepBands?: boolean;
   assign?: string;
   spinForbidden?: boolean;
   spinState?: string;
@@ -45,14 +51,18 @@ export interface FitOptions {
   diagram?: string;
   size?: string;
   dpi?: string;
+  zeta?: string;
+  zetaFactor?: string;
   json?: boolean;
 }
 
 /** `termsplit fit`: Dq, B (and C) from observed band maxima, with the assignment search. */
 export function registerFit(program: Command, io: Io): void {
-  program
+  const command = program
     .command('fit')
-    .description('fit Dq and Racah B (and C) to observed d–d band maxima, assigning the bands')
+    .description(
+      'fit Dq and Racah B (and C) to observed d–d band maxima, assigning the bands; with a geometry (--shape, --xyz, --tetragonal, --trigonal) fit eσ/eπ or Ds/Dt and B of a distorted complex',
+    )
     .option('--ion <name>', 'the metal ion, e.g. Ni2+ (gives n, the free-ion B for β and the default C/B)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
     .option(
@@ -62,7 +72,14 @@ export function registerFit(program: Command, io: Io): void {
     .option('--unit <unit>', 'unit of band values given without one: cm-1, nm, eV or kK', DEFAULT_ENERGY_UNIT)
     .option(...GEOMETRY_OPTION)
     .option('--cb <ratio>', cbHelp('C/B held in the fit'))
-    .option('--fit-c', 'fit C too (needs at least 3 bands, one of which depends on C)')
+    .option(
+      '--fit-c',
+      'fit C too (needs at least 3 bands, one of which depends on C); without it, C is fitted where the bands fix it unless --cb is given',
+    )
+    .option(
+      '--keep-bands',
+      'fit bands closer than a band width as separate transitions (by default they are merged at their centroid)',
+    )
     .option(
       '--assign <labels>',
       'level for each band in order, e.g. 3T2g,3T1g(F),3T1g(P); ? leaves one to the search',
@@ -74,18 +91,42 @@ export function registerFit(program: Command, io: Io): void {
     )
     .option(
       '--B <cm-1>',
-      'hold Racah B at this value and fit Dq alone (for one band, e.g. high-spin d4 or d6)',
+      'hold Racah B at this value and fit Dq alone (one band at 10Dq, as of high-spin d4 or d6, fixes Dq without it)',
     )
     .option(
       '--diagram <file>',
       'draw the correlation diagram at the fitted C/B with the sample on it (.png, .svg, .pdf)',
     )
+    .option(
+      '--free <names>',
+      'with a geometry: the parameters to fit, e.g. "eSigma(eq),ePi(eq),B" (default: all and B)',
+    )
+    .option('--start-B <cm-1>', 'with a geometry: starting Racah B (default: 0.75 × the free-ion B)')
+    .option(
+      '--zeta <cm-1|ion>',
+      'then refine the best solution with spin–orbit coupling, ζ held (cm⁻¹, or "ion" for the free-ion value)',
+    )
+    .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option(...SIZE_OPTION)
     .option(...DPI_OPTION)
-    .option('--json', 'print one JSON object on stdout')
-    .action((opts: FitOptions) => {
-      io.out(fitCommand(opts, io));
-    });
+    .option('--json', 'print one JSON object on stdout');
+  addFieldOptions(command).action((opts: FitOptions & DistortedFitOptions) => {
+    if (hasFieldOptions(opts)) {
+      for (const [flag, given] of [
+        ['--fit-c', opts.fitC],
+        ['--spin-forbidden', opts.spinForbidden],
+        ['--spin-state', opts.spinState],
+        ['--diagram', opts.diagram],
+        ['--zeta', opts.zeta],
+      ] as const) {
+        if (given !== undefined)
+          throw new InputError(`${flag} is for cubic fits: leave it out with a geometry`);
+      }
+      io.out(distortedFitCommand(opts, io));
+      return;
+    }
+    io.out(fitCommand(opts, io));
+  });
 }
 
 /** The fit from the command's options, with the ion's name and the origin of C/B. */
@@ -109,13 +150,16 @@ export function fitFromOptions(
     opts.assign === undefined
       ? undefined
       : splitLabels(opts.assign).map((a) => (a === '?' || a === '' ? null : a));
+  // C is fitted when asked, held when C/B is given, and otherwise fitted where the bands fix it.
+  const fitC = opts.fitC ? true : opts.cb !== undefined ? false : undefined;
   const result = fitBands({
     n: choice.n,
     geometry,
     bands,
     ...(choice.ion ? { freeIon: choice.ion } : {}),
     cOverB: ratio.cOverB,
-    fitC: Boolean(opts.fitC),
+    ...(fitC !== undefined ? { fitC } : {}),
+    merge: !opts.keepBands,
     includeSpinForbidden: Boolean(opts.spinForbidden),
     ...(opts.spinState !== undefined ? { spinState: spinStateOption(opts.spinState) } : {}),
     ...(heldB !== undefined ? { fixedB: heldB } : {}),
@@ -143,6 +187,8 @@ function fitCommand(opts: FitOptions, io: Io): string {
   }
   const { result, ion, cOrigin } = fitted;
   const best = result.solutions[0];
+  const zeta = zetaOption(opts.zeta, opts.zetaFactor, opts.ion === undefined ? undefined : findIon(opts.ion));
+  const spinOrbit = zeta === undefined || !best ? undefined : refineBest(result, best, zeta);
   if (diagramPath !== undefined && diagramFormat !== undefined && best) {
     writeFileAtomic(diagramPath, fittedDiagram(result, best, diagramFormat, ion, size));
   }
@@ -150,9 +196,33 @@ function fitCommand(opts: FitOptions, io: Io): string {
     diagramPath !== undefined && best
       ? `Correlation diagram with the sample written to ${opts.diagram}\n`
       : '';
-  if (!opts.json) return fitText(result, ion, cOrigin) + figureNote;
+  if (!opts.json) {
+    return fitText(result, ion, cOrigin) + (spinOrbit ? `\n${refinementText(spinOrbit)}` : '') + figureNote;
+  }
   return jsonText({
     ...(diagramPath !== undefined ? { diagram: best ? opts.diagram : null } : {}),
     ...fitJson(result, ion, cOrigin),
+    ...(spinOrbit ? { spinOrbit: refinementJson(spinOrbit) } : {}),
+  });
+}
+
+/** The best solution refined with spin–orbit coupling, each band on the centroid of its assigned level's components. */
+function refineBest(
+  result: FitResult,
+  best: FitResult['solutions'][number],
+  zeta: number,
+): SpinOrbitRefinement {
+  return refineWithSpinOrbit({
+    n: result.n,
+    geometry: result.geometry,
+    start: { dq: best.dq, B: best.B, C: best.C },
+    zeta,
+    fitC: best.cFitted,
+    holdB: best.bHeld || result.n === 1 || result.n === 9,
+    bands: best.assignments.map((a) => ({
+      energy: a.observed,
+      level: a.label,
+      ...(a.sigma !== null ? { sigma: a.sigma } : {}),
+    })),
   });
 }

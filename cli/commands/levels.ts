@@ -9,13 +9,25 @@ import type { Command } from 'commander';
 import {
   DEFAULT_LEVEL_CEILING,
   DEFAULT_LEVEL_FORBIDDEN,
+  type LevelDiagramOptions,
   renderLevelDiagram,
 } from '../../charts/levelDiagram.js';
 import { formatOfPath } from '../../charts/render.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
 import { unicodeConfiguration, unicodeTerm } from '../../src/field/labels.js';
-import { type CubicLevel, cmToEv, cmToNm, cubicCautions, unicodeLabel } from '../../src/index.js';
+import { type SpinOrbitResult, solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
+import {
+  type CubicLevel,
+  cmToEv,
+  cmToNm,
+  cubicCautions,
+  findIon,
+  InputError,
+  unicodeLabel,
+} from '../../src/index.js';
+import { distortedLevels } from '../distorted.js';
+import { addFieldOptions, type FieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFileAtomic } from '../files.js';
 import { fixed, ionText, jsonText, listSection, table, unicodeIons } from '../format.js';
 import type { Io } from '../io.js';
@@ -32,6 +44,8 @@ import {
   type SolvedLevels,
 } from '../options.js';
 import { levelJson } from '../present/levelPresent.js';
+import { spinOrbitJson, spinOrbitText } from '../present/spinOrbitPresent.js';
+import { ZETA_FACTOR_HELP, ZETA_HELP, zetaOption } from '../zetaOption.js';
 
 /** Options of `termsplit levels`. */
 export interface LevelsOptions extends LevelOptions {
@@ -39,16 +53,18 @@ export interface LevelsOptions extends LevelOptions {
   forbidden?: string;
   size?: string;
   dpi?: string;
+  zeta?: string;
+  zetaFactor?: string;
   output?: string;
   json?: boolean;
 }
 
 /** `termsplit levels`: every level of dⁿ in a cubic field, labelled, with the predicted bands. */
 export function registerLevels(program: Command, io: Io): void {
-  program
+  const command = program
     .command('levels')
     .description(
-      'levels of dⁿ in an octahedral or tetrahedral field, labelled, with predicted band positions',
+      'levels of dⁿ in an octahedral or tetrahedral field, or in a complex of lower symmetry (--shape, --xyz, --tetragonal, --trigonal), labelled, with predicted band positions',
     )
     .option('--ion <name>', 'the metal ion, e.g. Cr3+ (gives n and the free-ion C/B)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
@@ -57,6 +73,8 @@ export function registerLevels(program: Command, io: Io): void {
     .option('--C <cm-1>', 'Racah C of the complex, cm⁻¹')
     .option('--cb <ratio>', cbHelp('C/B instead of --C'))
     .option(...GEOMETRY_OPTION)
+    .option('--zeta <cm-1|ion>', ZETA_HELP)
+    .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('-o, --output <file>', 'also draw the energy-level diagram, free ion → field: .png, .svg or .pdf')
     .option(
       '--emax <cm-1>',
@@ -68,31 +86,58 @@ export function registerLevels(program: Command, io: Io): void {
     )
     .option(...SIZE_OPTION)
     .option(...DPI_OPTION)
-    .option('--json', 'print one JSON object on stdout')
-    .action((opts: LevelsOptions) => {
-      const figure = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
-      const format = opts.output === undefined ? undefined : formatOfPath(opts.output);
-      const solved = levelsFromOptions(opts);
-      const eMax = numberOption('--emax', opts.emax, { positive: true, what: 'a positive number of cm⁻¹' });
-      const forbidden = numberOption('--forbidden', opts.forbidden, {
-        integer: true,
-        min: 0,
-        what: 'a whole number',
-      });
-      const size = figureSizeOptions(opts);
-      if (figure !== undefined && format !== undefined) {
-        const options = {
-          ...(solved.ion ? { ion: solved.ion } : {}),
-          ...(eMax !== undefined ? { eMax } : {}),
-          ...(forbidden !== undefined ? { forbidden } : {}),
-        };
-        writeFileAtomic(figure, renderLevelDiagram(solved.result, { format, ...size }, options));
-      }
-      io.out(levelsText(opts, solved, figure));
-    });
+    .option('--json', 'print one JSON object on stdout');
+  addFieldOptions(command).action((opts: LevelsOptions & FieldOptions) => {
+    if (hasFieldOptions(opts)) {
+      // The general-field solver has no spin–orbit term yet.
+      if (opts.zeta !== undefined)
+        throw new InputError('--zeta goes with a cubic field: leave it out with a geometry');
+      io.out(distortedLevels(opts, io));
+      return;
+    }
+    const figure = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
+    const format = opts.output === undefined ? undefined : formatOfPath(opts.output);
+    const solved = levelsFromOptions(opts);
+    const spinOrbit = spinOrbitFromOptions(opts, solved);
+    if (figure !== undefined && format !== undefined) {
+      writeFileAtomic(
+        figure,
+        renderLevelDiagram(solved.result, { format, ...figureSizeOptions(opts) }, levelFigure(opts, solved)),
+      );
+    }
+    io.out(levelsText(opts, solved, figure, spinOrbit));
+  });
 }
 
-function levelsText(opts: LevelsOptions, solved: SolvedLevels, figure: string | undefined): string {
+/** The level diagram's options from --emax and --forbidden. */
+function levelFigure(opts: LevelsOptions, solved: SolvedLevels): LevelDiagramOptions {
+  const eMax = numberOption('--emax', opts.emax, { positive: true, what: 'a positive number of cm⁻¹' });
+  const forbidden = numberOption('--forbidden', opts.forbidden, {
+    integer: true,
+    min: 0,
+    what: 'a whole number',
+  });
+  return {
+    ...(solved.ion ? { ion: solved.ion } : {}),
+    ...(eMax !== undefined ? { eMax } : {}),
+    ...(forbidden !== undefined ? { forbidden } : {}),
+  };
+}
+
+/** The levels with spin–orbit coupling when `--zeta` is given, at the same Dq, B and C. */
+function spinOrbitFromOptions(opts: LevelsOptions, solved: SolvedLevels): SpinOrbitResult | undefined {
+  const zeta = zetaOption(opts.zeta, opts.zetaFactor, opts.ion === undefined ? undefined : findIon(opts.ion));
+  if (zeta === undefined) return undefined;
+  const { n, geometry, dq, B, C } = solved.result;
+  return solveSpinOrbit({ n, geometry, dq, B, C, zeta });
+}
+
+function levelsText(
+  opts: LevelsOptions,
+  solved: SolvedLevels,
+  figure: string | undefined,
+  spinOrbit: SpinOrbitResult | undefined,
+): string {
   const { result, cOrigin, ion } = solved;
   const cautions = cubicCautions(result);
   if (opts.json) {
@@ -110,6 +155,7 @@ function levelsText(opts: LevelsOptions, solved: SolvedLevels, figure: string | 
       levels: result.levels.map(levelJson),
       bands: result.levels.filter((l) => l !== result.ground && l.spinAllowed).map((l) => l.label),
       cautions: cautions.map((c) => c.message),
+      ...(spinOrbit ? { spinOrbit: spinOrbitJson(spinOrbit) } : {}),
       ...(figure !== undefined ? { figure } : {}),
     });
   }
@@ -154,6 +200,7 @@ function levelsText(opts: LevelsOptions, solved: SolvedLevels, figure: string | 
       cautions.map((c) => c.message),
     ),
   );
+  if (spinOrbit) lines.push('', spinOrbitText(spinOrbit));
   lines.push('');
   lines.push('These are model predictions for an ideal cubic field, not measurements.');
   if (figure !== undefined) lines.push(`Level diagram written to ${figure}`);

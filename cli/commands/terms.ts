@@ -5,6 +5,7 @@
  */
 
 import type { Command } from 'commander';
+import { freeIonLevels } from '../../src/atom/jLevels.js';
 import { binomial } from '../../src/atom/microstates.js';
 import { halfIntegerText, microstateTable } from '../../src/atom/terms.js';
 import { unicodeTerm } from '../../src/field/labels.js';
@@ -21,10 +22,14 @@ import {
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 import { numberOption } from '../options.js';
+import { jLevelsText } from '../present/spinOrbitPresent.js';
+import { ZETA_FACTOR_HELP, zetaOption } from '../zetaOption.js';
 
 interface TermsOptions {
   B?: string;
   C?: string;
+  zeta?: string;
+  zetaFactor?: string;
   ion?: string;
   json?: boolean;
 }
@@ -38,6 +43,11 @@ export function registerTerms(program: Command, io: Io): void {
     .option('--B <cm-1>', 'Racah B, for free-ion term energies of a d configuration')
     .option('--C <cm-1>', 'Racah C, with --B')
     .option('--ion <name>', 'take n, B and C of a free ion from the built-in table, e.g. Cr3+')
+    .option(
+      '--zeta <cm-1|ion>',
+      'spin–orbit ζ, cm⁻¹, or "ion": adds the free-ion J levels with energies (needs B and C)',
+    )
+    .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('--json', 'print one JSON object on stdout')
     .action((configText: string | undefined, opts: TermsOptions) => {
       io.out(termsCommand(configText, opts));
@@ -57,6 +67,8 @@ interface TermsJob {
   readonly ion?: FreeIon;
   readonly B?: number;
   readonly C?: number;
+  /** ζ when J-level energies are asked for. */
+  readonly zeta?: number;
 }
 
 /** Checks the configuration or ion and the Racah parameters. */
@@ -78,7 +90,16 @@ function termsJob(configText: string | undefined, opts: TermsOptions): TermsJob 
   if (B !== undefined && config.l !== 2) {
     throw new InputError(`free-ion energies from Racah B and C are for d configurations, not ${config.text}`);
   }
+  const zeta = zetaOption(opts.zeta, opts.zetaFactor, ion);
+  if (zeta !== undefined && config.l !== 2) {
+    throw new InputError(`--zeta: J-level energies are for d configurations, not ${config.text}`);
+  }
+  const single = config.n === 1 || config.n === 9;
+  if (zeta !== undefined && B === undefined && !single) {
+    throw new InputError('--zeta needs --B and --C (or --ion) for the J-level energies');
+  }
   return {
+    ...(zeta !== undefined ? { zeta } : {}),
     config,
     ...(ion ? { ion } : {}),
     ...(B !== undefined ? { B } : {}),
@@ -88,8 +109,9 @@ function termsJob(configText: string | undefined, opts: TermsOptions): TermsJob 
 
 /** Microstates, terms, ground level and (with B and C) free-ion energies, as JSON-ready data. */
 function termsResult(job: TermsJob) {
-  const { config, ion, B, C } = job;
+  const { config, ion, B, C, zeta } = job;
   const { l, n } = config;
+  const levels = zeta === undefined ? undefined : freeIonLevels(n, B ?? 0, C ?? 0, zeta);
   const tableOf = microstateTable(l, n);
   const terms = termsOf(l, n);
   const ground = hundGround(l, n);
@@ -117,6 +139,7 @@ function termsResult(job: TermsJob) {
           })),
         }
       : {}),
+    ...(levels ? { zeta, levels } : {}),
   };
   return result;
 }
@@ -166,5 +189,6 @@ function termsText(job: TermsJob, result: ReturnType<typeof termsResult>): strin
       ),
     );
   }
+  if (result.levels && job.zeta !== undefined) lines.push('', jLevelsText(result.levels, job.zeta));
   return `${lines.join('\n')}\n`;
 }

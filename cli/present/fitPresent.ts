@@ -5,24 +5,37 @@
  * and the report.
  */
 
+import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
 import { unicodeIon } from '../../src/field/labels.js';
-import { cmToNm, type FitResult, type FitSolution, unicodeLabel } from '../../src/index.js';
+import type { FitWarningCode } from '../../src/fit/fitWarnings.js';
+import {
+  cmToNm,
+  type FitResult,
+  type FitScore,
+  type FitSolution,
+  type SpinHypothesis,
+  unicodeLabel,
+} from '../../src/index.js';
 import { fixed, ionText, listSection, table, unicodeIons } from '../format.js';
 
-/** Whether only Dq was fitted (d¹, d⁹). */
+/** Whether only Dq was fitted because there is no B (d¹, d⁹). */
 function single(s: FitSolution): boolean {
-  return s.parameters.length === 1 && !s.bHeld;
+  return s.parameters.length === 1 && !s.bHeld && s.bDetermined;
 }
 
-/** JSON form of one solution (the solver's full levels left out). */
+/** JSON form of one solution (the solver's full levels left out); B and C are null where the bands do not fix them. */
 export function solutionJson(s: FitSolution) {
+  const noB = single(s) || !s.bDetermined;
   return {
     rank: s.rank,
     dq: s.dq,
     tenDq: s.tenDq,
-    B: single(s) ? null : s.B,
-    C: single(s) ? null : s.C,
+    B: noB ? null : s.B,
+    C: noB ? null : s.C,
+    bDetermined: s.bDetermined,
+    spin: s.spin,
+    score: s.score,
     cOverB: s.cOverB,
     cFitted: s.cFitted,
     bHeld: s.bHeld,
@@ -57,7 +70,9 @@ export function solutionJson(s: FitSolution) {
       wavelength: p.energy > 0 ? cmToNm(p.energy) : null,
       spinAllowed: p.spinAllowed,
       band: p.band,
+      twoElectron: p.twoElectron,
     })),
+    sharp: s.sharp,
     warnings: s.warnings,
   };
 }
@@ -69,18 +84,47 @@ export function withError(value: number, error: number | null, digits = 0): stri
   return `${fixed(value, d)} ± ${fixed(error, d)}`;
 }
 
+/** Words for the warnings an alternative's one-line summary carries. */
+const SUMMARY_FLAGS: Partial<Record<FitWarningCode, string>> = {
+  'beta-above-one': 'β above 1: implausible',
+  'beta-very-low': 'β far below the free ion: implausible',
+  'range-edge': 'Δ/B at the edge of the scan',
+  'not-converged': 'not converged',
+  'b-not-determined': 'B not fixed by the bands',
+};
+
+/** The ranking score in one line: its total and the parts that are not zero. */
+export function scoreText(score: FitScore): string {
+  const parts = (
+    [
+      ['residuals', score.residual],
+      ['β', score.beta],
+      ['two-electron', score.twoElectron],
+      ['unobserved bands', score.unobserved],
+      ['intensities', score.intensity],
+    ] as const
+  ).filter(([, v]) => v > 0.005);
+  return `${fixed(score.total, 2)}${parts.length > 0 ? ` (${parts.map(([k, v]) => `${k} ${fixed(v, 2)}`).join(', ')})` : ''}`;
+}
+
 function solutionSummary(s: FitSolution): string {
   const beta = s.beta === null ? '' : `, β ${fixed(s.beta, 2)}`;
   const assigned = s.assignments
     .map((a) => `${fixed(a.observed)} → ${unicodeLabel(a.label)}${a.spinAllowed ? '' : ' (spin-forbidden)'}`)
     .join(', ');
-  const flags = s.warnings
-    .filter((w) => w.code === 'beta-above-one' || w.code === 'range-edge' || w.code === 'not-converged')
-    .map((w) => w.code);
+  const flags = s.warnings.flatMap((w) => SUMMARY_FLAGS[w.code] ?? []);
   return (
-    `#${s.rank}  Dq ${fixed(s.dq)}, 10Dq ${fixed(s.tenDq)}${single(s) ? '' : `, B ${fixed(s.B)}`}${beta}, ` +
-    `rms ${fixed(s.rms)} cm⁻¹: ${assigned}${flags.length > 0 ? `  [${flags.join(', ')}]` : ''}`
+    `#${s.rank}  ${unicodeLabel(s.ground)} (S = ${halfIntegerText(s.spin)}), Dq ${fixed(s.dq)}, 10Dq ${fixed(s.tenDq)}` +
+    `${single(s) || !s.bDetermined ? '' : `, B ${fixed(s.B)}`}${beta}, rms ${fixed(s.rms)} cm⁻¹, score ${scoreText(s.score)}: ` +
+    `${assigned}${flags.length > 0 ? `  [${flags.join('; ')}]` : ''}`
   );
+}
+
+/** One ground-spin hypothesis in words. */
+function hypothesisText(h: SpinHypothesis): string {
+  const what = `${h.kind === 'only' ? '' : `${h.kind}-spin `}S = ${halfIntegerText(h.spin)}`;
+  const bands = h.transitions === 'spin-forbidden' ? ', its ΔS = 1 bands (it has no spin-allowed ones)' : '';
+  return `${what}${bands}: ${h.bestRank === null ? 'no solution' : `best is #${h.bestRank}`}`;
 }
 
 /** The JSON form of a fit result (solutions best first). */
@@ -94,6 +138,9 @@ export function fitJson(result: FitResult, ion: string | undefined, cOrigin: str
     fitC: result.fitC,
     freeIon: result.freeIon,
     bands: result.bands.map((b) => ({ energy: b.energy, sigma: b.sigma ?? null })),
+    merges: result.merges,
+    cChoice: result.cChoice,
+    hypotheses: result.hypotheses,
     weighting: result.weighting,
     tried: result.tried,
     refined: result.refined,
@@ -103,7 +150,7 @@ export function fitJson(result: FitResult, ion: string | undefined, cOrigin: str
   };
 }
 
-/** The human form of a fit result: how it was fitted, the best solution, alternatives, predictions. */
+/** The human form of a fit result: how it was fitted and under which ground spins, the best solution with its score, alternatives, predictions. */
 export function fitText(result: FitResult, ion: string | undefined, cOrigin: string): string {
   const best = result.solutions[0];
   if (!best) throw new Error('fit returned no solution');
@@ -146,7 +193,7 @@ function fitHeaderLines(
     : best.bHeld
       ? `B held at ${fixed(best.B)} cm⁻¹ (given) and C/B at ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)}); only Dq fitted`
       : result.fitC && best.cFitted
-        ? `C fitted, starting from C/B ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)})`
+        ? `C fitted${result.cChoice === 'bands-determine-it' ? ' because the bands fix it' : ''}, starting from C/B ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)})`
         : result.fitC
           ? `C asked to be fitted, but no assigned band depends on it: held at C/B ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)})`
           : `C/B held at ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)})`;
@@ -158,6 +205,7 @@ function fitHeaderLines(
       `${result.solutions.length} solution${result.solutions.length === 1 ? '' : 's'} shown` +
       `${result.omitted > 0 ? ` (and ${result.omitted} more that fit nearly as well)` : ''}.`,
   );
+  lines.push(`Ground spin: ${result.hypotheses.map(hypothesisText).join('; ')}.`);
   return lines;
 }
 
@@ -170,7 +218,11 @@ function bestLines(result: FitResult, best: FitSolution, ion: string | undefined
   lines.push(
     `  Dq   = ${withError(best.dq, e.dq, 1)} cm⁻¹   (10Dq = Δ = ${withError(best.tenDq, e.tenDq)} cm⁻¹)`,
   );
-  if (!single(best)) {
+  if (!single(best) && !best.bDetermined) {
+    lines.push(
+      `  B    = not fixed by the band${result.bands.length === 1 ? '' : 's'} (held at ${fixed(best.B)} cm⁻¹ only to place the other levels; no β)`,
+    );
+  } else if (!single(best)) {
     lines.push(`  B    = ${withError(best.B, e.B)} cm⁻¹${best.bHeld ? '   (held)' : ''}`);
     lines.push(
       best.cFitted
@@ -189,6 +241,7 @@ function bestLines(result: FitResult, best: FitSolution, ion: string | undefined
     `  rms  = ${fixed(best.rms)} cm⁻¹ (${result.bands.length} band${result.bands.length === 1 ? '' : 's'}, ` +
       `${best.dof} degree${best.dof === 1 ? '' : 's'} of freedom)`,
   );
+  lines.push(`  score = ${scoreText(best.score)}; lower ranks first`);
   lines.push(`  errors: ${best.errorNote}`);
   lines.push(
     `  ${best.converged ? 'converged' : 'NOT converged'}: ${best.reasonText} (${best.iterations} iteration${best.iterations === 1 ? '' : 's'})`,
@@ -203,15 +256,26 @@ function assignmentLines(best: FitSolution): string[] {
   lines.push(
     table(
       ['band', 'observed cm⁻¹', 'nm', 'calculated cm⁻¹', 'obs − calc', 'assigned to', 'spin'],
-      best.assignments.map((a) => [
-        String(a.band + 1),
-        a.sigma === null ? fixed(a.observed) : `${fixed(a.observed)}±${fixed(a.sigma)}`,
-        fixed(cmToNm(a.observed), 1),
-        fixed(a.calculated),
-        fixed(Math.abs(a.difference) < 0.5 ? 0 : a.difference),
-        unicodeLabel(a.label),
-        a.spinAllowed ? 'allowed' : 'forbidden',
-      ]),
+      [
+        ...best.assignments.map((a) => [
+          String(a.band + 1),
+          a.sigma === null ? fixed(a.observed) : `${fixed(a.observed)}±${fixed(a.sigma)}`,
+          fixed(cmToNm(a.observed), 1),
+          fixed(a.calculated),
+          fixed(Math.abs(a.difference) < 0.5 ? 0 : a.difference),
+          unicodeLabel(a.label),
+          a.spinAllowed ? 'allowed' : 'forbidden',
+        ]),
+        ...best.sharp.map((m) => [
+          String(m.band + 1),
+          fixed(m.observed),
+          fixed(cmToNm(m.observed), 1),
+          fixed(m.calculated),
+          fixed(m.difference),
+          unicodeLabel(m.label),
+          'sharp: matched, not fitted',
+        ]),
+      ],
     ),
   );
   return lines;

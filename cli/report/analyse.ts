@@ -1,7 +1,8 @@
 /**
  * The work on one sample of a report: its bands (given, or found in its spectrum), the band fit,
  * the correlation diagram with the sample on it, the spectrum overlay, and the spin-state
- * verdict for dⁿ with a choice of spin. The sample's checked values go to the library functions
+ * verdict for dⁿ with a choice of spin, and μ_eff with spin–orbit coupling where the sheet gives
+ * a ζ. The sample's checked values go to the library functions
  * as numbers. Plain data in and out, so it can run in a worker thread.
  */
 
@@ -19,11 +20,16 @@ import {
   InputError,
   type SampleSpec,
   type SeriesEntry,
+  solveCubic,
+  solveSpinOrbit,
+  spinOnlyMoment,
+  susceptibility,
 } from '../../src/index.js';
 import { DEFAULT_BASELINE } from '../../src/spectra/bandFinding.js';
 import { parseRange } from '../../src/spectra/energyRange.js';
 import { analyseSpectrum, type SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
 import { parseXUnit, parseYUnit } from '../../src/spectra/spectrumUnits.js';
+import { type DistortedSampleReport, distortedSampleFit } from '../distorted.js';
 import { readTextFile } from '../files.js';
 import { crossingsJson, verdictJson } from '../present/crossoverPresent.js';
 import { fitJson, solutionJson } from '../present/fitPresent.js';
@@ -37,6 +43,22 @@ export interface SampleTask {
   readonly sheetDir: string;
   /** File-name stem for the sample's tables and figures. */
   readonly slug: string;
+}
+
+/** Temperatures at which the report gives μ_eff with spin–orbit coupling, K. */
+export const REPORT_TEMPERATURES = [300, 80, 2] as const;
+
+/** μ_eff with spin–orbit coupling at the fitted parameters, beside the spin-only moment of the ground spin. */
+export interface MagnetismReport {
+  readonly zeta: number;
+  /** The fitted ground state without spin–orbit coupling, its S and μ_so. */
+  readonly ground: string;
+  readonly S: number;
+  readonly spinOnly: number;
+  /** The ground level with spin–orbit coupling, e.g. `Γ6(1)`. */
+  readonly groundSpinOrbit: string;
+  readonly temperatures: readonly number[];
+  readonly muEff: readonly number[];
 }
 
 /** The spin-state verdict of a sample, as reported: the crossings, the sample's side and margin, cautions. */
@@ -69,7 +91,11 @@ export interface SampleResult {
   readonly best: ReturnType<typeof solutionJson>;
   readonly series: SeriesEntry;
   readonly spin?: SpinReport;
+  /** μ_eff with spin–orbit coupling beside spin-only, when the sheet gives the sample a ζ. */
+  readonly magnetism?: MagnetismReport;
   readonly cautions: readonly string[];
+  /** The fit with the sample's geometry, when the sheet gives one (`structure`). */
+  readonly structure?: DistortedSampleReport;
   /** Figures as SVG text (the HTML report embeds them; files are written beside it). */
   readonly svg: { readonly diagram?: string; readonly spectrum?: string };
 }
@@ -128,6 +154,9 @@ function analyse(task: SampleTask): SampleResult {
     ? spectrumFigure(fit.spectrum, `termsplit spectrum ${spectrumPath(task)}`, 'svg').toString('utf8')
     : undefined;
   const spin = spinReport(ion.n, sample.geometry, best);
+  const structure = structureFit(task, ion, ratio, result.bands, cautions);
+  const magnetism =
+    sample.zeta === undefined ? undefined : magnetismReport(ion.n, sample.geometry, best, sample.zeta);
   return {
     ok: true,
     name: sample.name,
@@ -143,9 +172,33 @@ function analyse(task: SampleTask): SampleResult {
     best: solutionJson(best),
     series: seriesEntry(sample, ion.ion, best, spin),
     ...(spin ? { spin } : {}),
+    ...(magnetism ? { magnetism } : {}),
     cautions: [...new Set(cautions)],
+    ...(structure ? { structure } : {}),
     svg: { ...(diagram ? { diagram } : {}), ...(spectrumSvg ? { spectrum: spectrumSvg } : {}) },
   };
+}
+
+/**
+ * The fit with the sample's geometry; a problem with the geometry becomes a caution, so the cubic
+ * analysis still stands.
+ */
+function structureFit(
+  task: SampleTask,
+  ion: FreeIon,
+  ratio: RatioChoice,
+  bands: readonly { energy: number; sigma?: number }[],
+  cautions: string[],
+): DistortedSampleReport | undefined {
+  const { structure } = task.sample;
+  if (!structure) return undefined;
+  try {
+    return distortedSampleFit(structure, task.sheetDir, { n: ion.n, ion, cOverB: ratio.cOverB, bands });
+  } catch (e) {
+    if (!(e instanceof InputError)) throw e;
+    cautions.push(`structure: ${e.message}; no fit with the geometry`);
+    return undefined;
+  }
 }
 
 /** The fit of the sample's given bands, or of the bands found in its spectrum. */
@@ -160,7 +213,8 @@ function sampleFit(task: SampleTask, ion: FreeIon, ratio: RatioChoice): SampleFi
       ),
       freeIon: ion,
       cOverB: ratio.cOverB,
-      fitC: sample.fitC,
+      ...(sample.fitC !== undefined ? { fitC: sample.fitC } : {}),
+      merge: !sample.keepBands,
       includeSpinForbidden: sample.spinForbidden,
       ...(sample.spinState ? { spinState: sample.spinState } : {}),
       ...(sample.assign ? { assignments: sample.assign } : {}),
@@ -218,7 +272,8 @@ function sampleSpectrum(
         geometry,
         ion,
         ratio,
-        fitC: sample.fitC,
+        // Spectra keep C held unless the sheet asks for it.
+        fitC: sample.fitC ?? false,
         includeSpinForbidden: sample.spinForbidden,
         ...(sample.spinState ? { spinState: sample.spinState } : {}),
       },
@@ -237,6 +292,21 @@ function spectrumBands(spectrum: SpectrumAnalysis): SampleResult['spectrumBands'
     fwhm: b.fwhm,
     flags: b.flags,
   }));
+}
+
+function magnetismReport(n: number, geometry: Geometry, best: FitSolution, zeta: number): MagnetismReport {
+  const { dq, B, C } = best;
+  const cubic = solveCubic({ n, geometry, dq, B, C }).ground;
+  const temperatures = [...REPORT_TEMPERATURES];
+  return {
+    zeta,
+    ground: cubic.label,
+    S: cubic.S,
+    spinOnly: spinOnlyMoment(cubic.S),
+    groundSpinOrbit: solveSpinOrbit({ n, geometry, dq, B, C, zeta, parentage: false }).ground.label,
+    temperatures,
+    muEff: susceptibility({ n, geometry, dq, B, C, zeta, temperatures }).map((p) => p.muEff),
+  };
 }
 
 function spinReport(n: number, geometry: Geometry, best: FitSolution): SpinReport | undefined {

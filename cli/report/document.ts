@@ -8,6 +8,7 @@ import { BAND_CEILING } from '../../src/core/defaults.js';
 import { unicodeIon } from '../../src/field/labels.js';
 import { cmToNm, unicodeLabel } from '../../src/index.js';
 import { fixed } from '../format.js';
+import { unicodeGroupLabel } from '../present/distortedPresent.js';
 import { withError } from '../present/fitPresent.js';
 import type { SampleResult } from './analyse.js';
 import type { ReportModel } from './model.js';
@@ -46,6 +47,8 @@ export function sampleFiles(slug: string) {
     assignments: `tables/${slug}-assignments.csv`,
     alternatives: `tables/${slug}-alternatives.csv`,
     predicted: `tables/${slug}-predicted.csv`,
+    structure: `tables/${slug}-structure.csv`,
+    structureBands: `tables/${slug}-structure-bands.csv`,
   };
 }
 
@@ -182,6 +185,7 @@ function sampleBlocks(s: SampleResult): Block[] {
   const b = s.best;
   const out: Block[] = [{ kind: 'heading', level: 3, text: s.name, id: `sample-${s.slug}` }, ...fitBlocks(s)];
   out.push(...spinBlocks(s));
+  out.push(...structureBlocks(s));
   const cautions = [...s.cautions, ...(s.spin?.cautions ?? [])];
   if (cautions.length > 0) out.push({ kind: 'list', items: [...new Set(cautions)] });
   if (s.svg.diagram) {
@@ -272,6 +276,43 @@ function fitBlocks(s: SampleResult): Block[] {
   return out;
 }
 
+/** The fit with the sample's geometry: the geometry used, the parameters, the bands, the warnings. */
+function structureBlocks(s: SampleResult): Block[] {
+  const g = s.structure;
+  if (!g) return [];
+  const files = sampleFiles(s.slug);
+  return [
+    {
+      kind: 'paragraph',
+      text: `With its geometry: ${g.geometryText}. Fitted ${g.free.join(', ')}; ground state ${unicodeGroupLabel(g.ground)}; rms ${fixed(g.rms)} cm⁻¹.`,
+    },
+    {
+      kind: 'table',
+      csv: files.structure,
+      headers: ['parameter', 'value / cm⁻¹', 'fitted'],
+      rows: Object.entries(g.parameters)
+        .filter(([k, v]) => g.free.includes(k) || !(k === 'eDs' && v === 0))
+        .map(([k, v]) => [
+          k,
+          g.free.includes(k) ? withError(v, g.errors[k] ?? null) : fixed(v),
+          g.free.includes(k) ? 'yes' : 'held',
+        ]),
+    },
+    {
+      kind: 'table',
+      csv: files.structureBands,
+      headers: ['level', 'observed / cm⁻¹', 'calculated / cm⁻¹', 'obs − calc / cm⁻¹'],
+      rows: g.bands.map((b) => [
+        unicodeGroupLabel(b.level),
+        fixed(b.observed),
+        fixed(b.calculated),
+        fixed(b.observed - b.calculated),
+      ]),
+    },
+    ...(g.warnings.length > 0 ? [{ kind: 'list' as const, items: g.warnings }] : []),
+  ];
+}
+
 /** The other assignments that fit nearly as well, as a table. */
 function alternativeBlocks(s: SampleResult): Block[] {
   const files = sampleFiles(s.slug);
@@ -319,6 +360,17 @@ function spinBlocks(s: SampleResult): Block[] {
         `${s.spin.near ? '; close to the crossover — a spin-crossover candidate at most' : ''}` +
         `${s.spin.settled === false ? '; the side is not settled within two standard errors' : ''}. ` +
         'The model places the crossover; magnetic or Mössbauer measurement decides.',
+    });
+  }
+  const mag = s.magnetism;
+  if (mag) {
+    out.push({
+      kind: 'paragraph',
+      text:
+        `Magnetic moment with spin–orbit coupling (ζ = ${fixed(mag.zeta)} cm⁻¹, Van Vleck over all states at the fitted ` +
+        `parameters): μ_eff = ${mag.muEff.map((m, i) => `${fixed(m, 2)} μ_B at ${mag.temperatures[i]} K`).join(', ')}, ` +
+        `beside the spin-only ${fixed(mag.spinOnly, 2)} μ_B of ${unicodeLabel(mag.ground)} (ground level ` +
+        `${mag.groundSpinOrbit.replace(/\(\d+\)$/, '')}). An ideal cubic ion: distortion and exchange change real moments; measurement decides.`,
     });
   }
   return out;

@@ -18,6 +18,15 @@ export const REFERENCES = [
   'D. W. Marquardt, An Algorithm for Least-Squares Estimation of Nonlinear Parameters, J. SIAM 11, 431 (1963).',
 ];
 
+/** The reference added when a sample is fitted with its geometry. */
+export const ANGULAR_OVERLAP_REFERENCE =
+  'C. E. Schäffer and C. K. Jørgensen, The angular overlap model, an attempt to revive the ligand field approaches, Mol. Phys. 9, 401 (1965).';
+
+/** The references of a report on these samples. */
+export function referencesFor(samples: readonly SampleResult[]): string[] {
+  return samples.some((s) => s.structure) ? [...REFERENCES, ANGULAR_OVERLAP_REFERENCE] : [...REFERENCES];
+}
+
 function list(items: readonly string[]): string {
   if (items.length <= 1) return items.join('');
   return `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}`;
@@ -84,6 +93,15 @@ export function methodsParagraph(samples: readonly SampleResult[], version: stri
   if (freeB.length > 0) {
     parts.push(
       `The nephelauxetic ratio β = B/B₀ uses the free-ion values B₀ = ${list(freeB)} (${sources.join('; ')}).`,
+    );
+  }
+  const structured = samples.filter((s) => s.structure).map((s) => s.name);
+  if (structured.length > 0) {
+    parts.push(
+      `For ${list(structured)} the bands were also fitted with the complex's own geometry: the one-electron ` +
+        'field from the angular overlap model (Schäffer & Jørgensen 1965) or from tetragonal or trigonal ' +
+        'crystal-field parameters, the full dⁿ Hamiltonian diagonalised over real-orbital determinants, and ' +
+        'the levels labelled in the point group found from the ligands.',
     );
   }
   if (spin.length > 0) {

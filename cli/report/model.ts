@@ -8,7 +8,7 @@ import { type SampleSheet, type SeriesEntry, seriesOrders, seriesTable } from '.
 import type { SheetProblem } from '../../src/sheets/sampleSheet.js';
 import type { IonOrder } from '../../src/sheets/series.js';
 import type { SampleOutcome, SampleResult } from './analyse.js';
-import { methodsParagraph, REFERENCES } from './methods.js';
+import { methodsParagraph, referencesFor } from './methods.js';
 
 /** Everything a report shows, in the order it shows it. */
 export interface ReportModel {
@@ -62,7 +62,7 @@ export function reportModel(
     series,
     orders: seriesOrders(series),
     methods: methodsParagraph(samples, version),
-    references: REFERENCES,
+    references: referencesFor(samples),
     cautions: REPORT_CAUTIONS,
   };
 }

@@ -109,6 +109,8 @@ export interface CorrelationDiagram {
   readonly crossings: readonly DiagramCrossing[];
   /** The stretches between the crossings (one region when there is none). */
   readonly regions: readonly SpinRegion[];
+  /** ζ/B where the curves include spin–orbit coupling (double-group levels, no spin regions); absent otherwise. */
+  readonly zetaOverB?: number;
 }
 
 /**

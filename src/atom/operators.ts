@@ -109,7 +109,18 @@ export function casimirMatrix(
   spin: boolean,
   zOf: (mask: number) => number,
 ): Float64Array {
-  const raise = raisingTerms(l, spin);
+  return casimirFromRaising(block, raisingTerms(l, spin), zOf);
+}
+
+/**
+ * X² = X₋X₊ + X_z² + X_z of an angular momentum given by its raising operator (L₊, S₊ or their
+ * sum J₊) in a block that keeps X_z, read off each determinant by `zOf`.
+ */
+export function casimirFromRaising(
+  block: BasisBlock,
+  raise: readonly OneBodyTerm[],
+  zOf: (mask: number) => number,
+): Float64Array {
   const lower = adjointTerms(raise);
   const n = block.masks.length;
   const out = new Float64Array(n * n);

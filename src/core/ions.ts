@@ -4,6 +4,7 @@
  */
 
 import { InputError } from './errors.js';
+import { HEAVY_FREE_IONS } from './heavyIons.js';
 
 /** Free-ion parameters of one transition-metal ion. Energies in cm⁻¹. */
 export interface FreeIon {
@@ -11,13 +12,13 @@ export interface FreeIon {
   readonly ion: string;
   readonly element: string;
   readonly charge: number;
-  /** Number of 3d electrons. */
+  /** Number of d electrons (3d, 4d or 5d by the element). */
   readonly n: number;
   /** Racah B of the free ion; absent for d¹ and d⁹, which have a single term. */
   readonly B?: number;
   /** Racah C of the free ion; absent for d¹ and d⁹. */
   readonly C?: number;
-  /** One-electron spin–orbit coupling constant ζ₃d. */
+  /** One-electron spin–orbit coupling constant ζ_nd. */
   readonly zeta?: number;
   /** Where the values come from. */
   readonly source: string;
@@ -28,9 +29,9 @@ const COMMON =
   'Figgis & Hitchman, Ligand Field Theory and its Applications, 2000); entered from memory — check before citing';
 
 /**
- * Free-ion Racah parameters and spin–orbit constants of the common 3d ions. B and C come from
- * fits to atomic spectra; tables differ by a few per cent, so β = B/B(free ion) carries that
- * uncertainty too.
+ * Free-ion Racah parameters and spin–orbit constants of the common 3d ions, then the 4d and 5d
+ * ions of heavyIons.ts. B and C come from fits to atomic spectra; tables differ by a few per
+ * cent (far more for 5d ions), so β = B/B(free ion) carries that uncertainty too.
  */
 export const FREE_IONS: readonly FreeIon[] = [
   { ion: 'Ti3+', element: 'Ti', charge: 3, n: 1, zeta: 154, source: COMMON },
@@ -60,6 +61,7 @@ export const FREE_IONS: readonly FreeIon[] = [
   { ion: 'Co2+', element: 'Co', charge: 2, n: 7, B: 1115, C: 4366, zeta: 533, source: COMMON },
   { ion: 'Ni2+', element: 'Ni', charge: 2, n: 8, B: 1084, C: 4831, zeta: 649, source: COMMON },
   { ion: 'Cu2+', element: 'Cu', charge: 2, n: 9, zeta: 829, source: COMMON },
+  ...HEAVY_FREE_IONS,
 ];
 
 const ROMAN = ['', 'I', 'II', 'III', 'IV', 'V', 'VI'];

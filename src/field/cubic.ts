@@ -91,6 +91,16 @@ export interface CubicResult {
  * @throws InputError for n outside 1…9 or a negative or non-finite Dq, B or C.
  */
 export function solveCubic(input: CubicInput): CubicResult {
+  checkCubicInput(input);
+  const { n, geometry = DEFAULT_GEOMETRY, dq, B, C } = input;
+  return cubicLevels(n, geometry === 'oct' ? dq : -dq, B, C, geometry);
+}
+
+/**
+ * Refuses n outside 1…9, an unknown geometry, or a negative, non-finite or too large Dq, B or C.
+ * @throws InputError naming the value.
+ */
+export function checkCubicInput(input: CubicInput): void {
   const { n, geometry = DEFAULT_GEOMETRY, dq, B, C } = input;
   ensure(
     Number.isInteger(n) && n >= 1 && n <= 9,
@@ -101,7 +111,6 @@ export function solveCubic(input: CubicInput): CubicResult {
   ensure(Number.isFinite(B) && B >= 0, `Racah B = ${B}: expected a non-negative number of cm⁻¹`);
   ensure(Number.isFinite(C) && C >= 0, `Racah C = ${C}: expected a non-negative number of cm⁻¹`);
   checkMagnitudes(dq, B, C);
-  return cubicLevels(n, geometry === 'oct' ? dq : -dq, B, C, geometry);
 }
 
 /**

@@ -5,9 +5,9 @@
  */
 
 import { type Complex, wignerD } from '../atom/angular.js';
+import { rotateDeterminants } from '../atom/determinantRotation.js';
 import { mlOf, twoMsOf } from '../atom/microstates.js';
 import type { BasisBlock } from '../atom/operators.js';
-import { parity } from '../atom/operators.js';
 
 /** Irreducible representations of O (and, with the same names, of Td and without g of Oh). */
 export type CubicIrrep = 'A1' | 'A2' | 'E' | 'T1' | 'T2';
@@ -176,38 +176,15 @@ export function eulerAngles(m: readonly number[]): [number, number, number] {
  * needed for characters of eigenspaces that lie in it.
  */
 export function rotationBlock(l: number, block: BasisBlock, U: Complex[][]): Float64Array {
-  const n = block.masks.length;
-  const out = new Float64Array(n * n);
-  const width = 2 * (2 * l + 1);
-  block.masks.forEach((mask, col) => {
-    let vec = new Map<number, Complex>([[0, { re: 1, im: 0 }]]);
-    for (let p = width - 1; p >= 0; p--) {
-      if (!(mask & (1 << p))) continue;
-      const m = mlOf(l, p);
-      const alpha = twoMsOf(l, p) > 0;
-      const next = new Map<number, Complex>();
-      for (const [partial, c] of vec) {
-        for (let mp = -l; mp <= l; mp++) {
-          const u = U[mp + l]?.[m + l];
-          if (!u || (u.re === 0 && u.im === 0)) continue;
-          const q = mp + l + (alpha ? 0 : 2 * l + 1);
-          if (partial & (1 << q)) continue;
-          const sign = parity(partial, q);
-          const target = partial | (1 << q);
-          const acc = next.get(target) ?? { re: 0, im: 0 };
-          acc.re += sign * (c.re * u.re - c.im * u.im);
-          acc.im += sign * (c.re * u.im + c.im * u.re);
-          next.set(target, acc);
-        }
-      }
-      vec = next;
-    }
-    for (const [target, c] of vec) {
-      const row = block.index.get(target);
-      if (row !== undefined) out[row * n + col] = c.re;
-    }
-  });
-  return out;
+  const orbitals = 2 * l + 1;
+  const zero = { re: 0, im: 0 };
+  // Spin untouched: the spatial matrix on each spin separately.
+  const spinOrbitalU = Array.from({ length: 2 * orbitals }, (_, q) =>
+    Array.from({ length: 2 * orbitals }, (_, p) =>
+      twoMsOf(l, q) === twoMsOf(l, p) ? (U[mlOf(l, q) + l]?.[mlOf(l, p) + l] ?? zero) : zero,
+    ),
+  );
+  return rotateDeterminants(block, spinOrbitalU, 2 * orbitals);
 }
 
 /** One-electron rotation matrix D^l of a rotation given as a 3×3 matrix. */

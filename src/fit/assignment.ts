@@ -53,6 +53,8 @@ export interface AssignmentSearchOptions {
   readonly fixedScale?: number;
   /** Local minima along the scan kept as starting values per assignment. @default 2 */
   readonly startsPerAssignment?: number;
+  /** Search only from ground states of this spin S. @default undefined (every ground state) */
+  readonly groundSpin?: number;
 }
 
 /** An assignment with a starting point for the fit. */
@@ -185,6 +187,7 @@ export function searchAssignments(
   scan.points.forEach((point, pointIndex) => {
     const ground = point.ground;
     if (fixedKeys.has(ground.key)) return;
+    if (options.groundSpin !== undefined && Math.abs(ground.S - options.groundSpin) > 1e-9) return;
     if (!groundsSeen.has(ground.label)) groundsSeen.set(ground.label, false);
     const byKey = new Map(point.excited.map((l) => [l.key, l]));
     const pool = point.excited.filter(

@@ -34,9 +34,16 @@ function mergeSearches(searches: readonly AssignmentSearch[]): AssignmentSearch 
   };
 }
 
+/** A checked fit input with the bands as fitted (after merging) and the choice of C settled. */
+export interface FitPlan extends Omit<FitSetup, 'fitC'> {
+  readonly fitC: boolean;
+  /** Whether C is fitted because the bands can fix it (not because the caller asked). */
+  readonly cAuto: boolean;
+}
+
 /** The C/B values scanned: with C free, the usual range too, so that an assignment needing another C/B gets a start near its optimum. */
-export function scannedRatios(setup: FitSetup): number[] {
-  return setup.fitC ? [...new Set([setup.cOverB, ...FIT_DEFAULTS.cOverBScan])] : [setup.cOverB];
+export function scannedRatios(plan: FitPlan): number[] {
+  return plan.fitC ? [...new Set([plan.cOverB, ...FIT_DEFAULTS.cOverBScan])] : [plan.cOverB];
 }
 
 /** The ground-state spin S of a candidate. */
@@ -44,57 +51,141 @@ function spinOf(c: AssignmentCandidate): number {
   return (Number(parseStateLabel(c.groundLabel)?.multiplicity ?? 1) - 1) / 2;
 }
 
+/** The ground-state spins the ion can have along the scan, and which of them are hypotheses of this fit. */
+function groundSpins(plan: FitPlan, input: FitInput): { all: number[]; tried: number[] } {
+  const all = [...new Set(plan.scan.points.map((pt) => pt.ground.S))].sort((a, b) => b - a);
+  const high = all[0] ?? 0;
+  const low = all.at(-1) ?? 0;
+  if (input.spinState === 'high') return { all, tried: [high] };
+  if (input.spinState === 'low') return { all, tried: [low] };
+  // Tetrahedral complexes of the 3d ions are high-spin: Δt ≈ 4/9 Δo stays far below the
+  // pairing energy (common practice, no source), so the low-spin states are no hypothesis.
+  return { all, tried: plan.geometry === 'tet' ? [high] : all };
+}
+
+/** The candidates of each ground-spin hypothesis, with all of them together. */
+export interface CandidateSet {
+  readonly search: AssignmentSearch;
+  readonly hypotheses: readonly HypothesisPlan[];
+}
+
+/** One ground-spin hypothesis before refinement. */
+export interface HypothesisPlan {
+  readonly spin: number;
+  readonly kind: 'high' | 'low' | 'only';
+  readonly transitions: 'spin-allowed' | 'spin-forbidden' | 'both';
+  readonly candidates: number;
+  /** The ground-state label met on the scan for this spin. */
+  readonly ground: string;
+}
+
 /** The refusal when no assignment of the bands exists: which limit the bands run into. */
-function noCandidateError(setup: FitSetup, input: FitInput): InputError {
-  const { n, geometry, scan } = setup;
-  const m = setup.bands.length;
-  const most = Math.max(...scan.points.map((pt) => pt.excited.length));
-  const mostAllowed = Math.max(...scan.points.map((pt) => pt.excited.filter((l) => l.spinAllowed).length));
+function noCandidateError(
+  plan: FitPlan,
+  input: FitInput,
+  spins: readonly number[],
+  all: readonly number[],
+): InputError {
+  const { n, geometry, scan } = plan;
+  const m = plan.bands.length;
   const where = `d${n} (${geometry === 'oct' ? 'octahedral' : 'tetrahedral'})`;
+  const points = scan.points.filter((pt) => spins.includes(pt.ground.S));
+  const most = Math.max(...scan.points.map((pt) => pt.excited.length));
+  const mostAllowed = Math.max(...points.map((pt) => pt.excited.filter((l) => l.spinAllowed).length));
+  const band = `${m} band${m === 1 ? '' : 's'}`;
+  if (m > most) {
+    return new InputError(
+      `${band}: ${where} has only ${most} excited level${most === 1 ? '' : 's'}` +
+        (input.merge === false
+          ? ': if some are components of one split band, let them be merged (without --keep-bands or keep_bands)'
+          : ''),
+    );
+  }
+  if (input.spinState !== undefined && all.length > 1) {
+    const g = points[0]?.ground.label ?? '';
+    return new InputError(
+      `${band}: cannot belong to ${input.spinState}-spin ${where} (ground state ${g}), which has ${mostAllowed} ` +
+        `spin-allowed transition${mostAllowed === 1 ? '' : 's'}; give fewer bands, or leave the spin state open`,
+    );
+  }
   return new InputError(
-    m > most
-      ? `${m} bands: ${where} has only ${most} excited level${most === 1 ? '' : 's'}`
-      : input.includeSpinForbidden || m <= mostAllowed
-        ? `${m} bands cannot be assigned to the transitions of ${where} with the assignments given`
-        : `${m} bands: ${where} has at most ${mostAllowed} spin-allowed transition${mostAllowed === 1 ? '' : 's'} ` +
+    input.includeSpinForbidden || m <= mostAllowed
+      ? `${band} cannot be assigned to the transitions of ${where} with the assignments given`
+      : `${band}: ${where} has at most ${mostAllowed} spin-allowed transition${mostAllowed === 1 ? '' : 's'} ` +
           'from any ground state; include spin-forbidden transitions to assign more bands',
   );
 }
 
 /**
- * Every assignment of the bands found on the scans, restricted to the ground spin asked for.
- * `progress` is called before each scan with its index.
- * @throws InputError when no assignment exists.
+ * The candidates of every ground-spin hypothesis: for each spin the ion can have (restricted by
+ * `spinState`), the assignments to spin-allowed transitions from that ground state, or, where
+ * there are none (high-spin d⁵), to its ΔS = 1 transitions. `progress` is called before each scan.
+ * @throws InputError when no hypothesis has an assignment of the bands.
  */
 export function findCandidates(
-  setup: FitSetup,
+  plan: FitPlan,
   input: FitInput,
   progress: (done: number) => void,
-): AssignmentSearch {
-  const { n, geometry, cOverB, scan, bands, sigmas, fixed, fixedB } = setup;
-  const ratios = scannedRatios(setup);
-  let search = mergeSearches(
-    ratios.map((ratio, i) => {
-      progress(i);
-      return searchAssignments(
-        ratio === cOverB ? scan : ratioScan(n, geometry, ratio, input.scan),
-        bands.map((b, i) => ({ energy: b.energy, weight: 1 / (sigmas[i] ?? 1) ** 2 })),
-        {
-          fixed,
-          includeSpinForbidden: input.includeSpinForbidden ?? FIT_DEFAULTS.includeSpinForbidden,
-          ...(fixedB !== undefined ? { fixedScale: fixedB } : {}),
-          ...(input.extraCandidates !== undefined ? { extraCandidates: input.extraCandidates } : {}),
-        },
-      );
-    }),
-  );
-  if (input.spinState !== undefined && search.candidates.length > 0) {
-    const spins = search.candidates.map(spinOf);
-    const wanted = input.spinState === 'high' ? Math.max(...spins) : Math.min(...spins);
-    search = { ...search, candidates: search.candidates.filter((c) => spinOf(c) === wanted) };
+): CandidateSet {
+  const { n, geometry, cOverB, scan, bands, sigmas, fixed, fixedB } = plan;
+  const ratios = scannedRatios(plan);
+  const includeSpinForbidden = input.includeSpinForbidden ?? FIT_DEFAULTS.includeSpinForbidden;
+  const searchBands = bands.map((b, i) => ({ energy: b.energy, weight: 1 / (sigmas[i] ?? 1) ** 2 }));
+  const searchAt = (withForbidden: boolean, groundSpin?: number) =>
+    mergeSearches(
+      ratios.map((ratio, i) => {
+        progress(i);
+        return searchAssignments(
+          ratio === cOverB ? scan : ratioScan(n, geometry, ratio, input.scan),
+          searchBands,
+          {
+            fixed,
+            includeSpinForbidden: withForbidden,
+            ...(fixedB !== undefined ? { fixedScale: fixedB } : {}),
+            ...(groundSpin !== undefined ? { groundSpin } : {}),
+            ...(input.extraCandidates !== undefined ? { extraCandidates: input.extraCandidates } : {}),
+          },
+        );
+      }),
+    );
+  const { all, tried } = groundSpins(plan, input);
+  const first = searchAt(includeSpinForbidden);
+  const candidates: AssignmentCandidate[] = first.candidates.filter((c) => tried.includes(spinOf(c)));
+  const hypotheses: HypothesisPlan[] = [];
+  let groundsWithout = first.groundsWithout;
+  for (const spin of tried) {
+    let own = candidates.filter((c) => spinOf(c) === spin).length;
+    let transitions: HypothesisPlan['transitions'] = includeSpinForbidden ? 'both' : 'spin-allowed';
+    const hasAllowed = scan.points.some(
+      (pt) => pt.ground.S === spin && pt.excited.some((l) => l.spinAllowed),
+    );
+    if (own === 0 && !includeSpinForbidden && !hasAllowed) {
+      // No spin-allowed transitions at all (high-spin d⁵): the ΔS = 1 bands are what can be seen.
+      const forbidden = searchAt(true, spin);
+      candidates.push(...forbidden.candidates);
+      own = forbidden.candidates.length;
+      transitions = 'spin-forbidden';
+      const label = scan.points.find((pt) => pt.ground.S === spin)?.ground.label;
+      if (own > 0) groundsWithout = groundsWithout.filter((g) => g !== label);
+    }
+    const ground = scan.points.find((pt) => pt.ground.S === spin)?.ground.label ?? '';
+    const kind = all.length === 1 ? 'only' : spin === all[0] ? 'high' : 'low';
+    hypotheses.push({ spin, kind, transitions, candidates: own, ground });
   }
-  if (search.candidates.length === 0) throw noCandidateError(setup, input);
-  return search;
+  candidates.sort((a, b) => a.chiSquare - b.chiSquare);
+  if (candidates.length === 0) throw noCandidateError(plan, input, tried, all);
+  // Grounds of spins not tried are not worth a warning.
+  const triedLabels = new Set(
+    scan.points.filter((pt) => tried.includes(pt.ground.S)).map((pt) => pt.ground.label),
+  );
+  return {
+    search: {
+      candidates,
+      tried: first.tried,
+      groundsWithout: groundsWithout.filter((g) => triedLabels.has(g)),
+    },
+    hypotheses,
+  };
 }
 
 /**

@@ -17,9 +17,12 @@ export interface FitSetup {
   readonly bands: readonly FitBand[];
   /** Uncertainty of each band: given, or the default precision. */
   readonly sigmas: readonly number[];
+  /** Uncertainty assumed for bands given without one, cm⁻¹. */
+  readonly bandPrecision: number;
   /** Whether the uncertainties were given with the bands. */
   readonly given: boolean;
-  readonly fitC: boolean;
+  /** C fitted (true), held (false), or decided by the bands (undefined). */
+  readonly fitC: boolean | undefined;
   readonly cOverB: number;
   readonly cOverBSource: 'given' | 'free-ion' | 'default';
   readonly freeB: number | null;
@@ -52,6 +55,14 @@ function checkBands(input: FitInput, geometry: Geometry): void {
     ensure(
       b.sigma === undefined || (Number.isFinite(b.sigma) && b.sigma > 0),
       `uncertainty of band ${i + 1} = ${b.sigma}: expected a positive number of cm⁻¹`,
+    );
+    ensure(
+      b.epsilon === undefined || (Number.isFinite(b.epsilon) && b.epsilon > 0),
+      `ε of band ${i + 1} = ${b.epsilon}: expected a positive number of L mol⁻¹ cm⁻¹`,
+    );
+    ensure(
+      b.width === undefined || (Number.isFinite(b.width) && b.width > 0),
+      `width of band ${i + 1} = ${b.width}: expected a positive number of cm⁻¹`,
     );
   }
   const withSigma = bands.filter((b) => b.sigma !== undefined).length;
@@ -98,7 +109,11 @@ function checkLimits(input: FitInput): Pick<FitSetup, 'ambiguityFactor' | 'maxSo
   return { bandPrecision, ambiguityFactor, maxSolutions, maxRefined };
 }
 
-/** Checks the free parameters against the number of bands; returns their display names. */
+/**
+ * Checks the free parameters against the number of bands; returns their display names. Fewer
+ * bands than Dq and B are left to the fit: one band can fix Dq when it lies at a multiple of Dq
+ * whatever B is (the ⁵Eg band of high-spin d⁶), and B is then reported as not determined.
+ */
 function checkParameters(input: FitInput, fitC: boolean): string[] {
   const { n, bands, fixedB } = input;
   const single = singleTerm(n);
@@ -110,12 +125,9 @@ function checkParameters(input: FitInput, fitC: boolean): string[] {
   ensure(!(fixedB !== undefined && fitC), 'holding B and fitting C: fit C only with B free');
   const names = single || fixedB !== undefined ? ['Dq'] : fitC ? ['Dq', 'B', 'C'] : ['Dq', 'B'];
   ensure(
-    bands.length >= names.length,
+    !fitC || bands.length >= names.length,
     `${bands.length} band${bands.length === 1 ? '' : 's'} for ${names.length} free parameters (${names.join(', ')}): ` +
-      `give at least ${names.length} bands${fitC ? ', or hold C/B fixed' : ''}` +
-      (names.length === 2 && bands.length === 1
-        ? ` — with one band (high-spin d4 or d6 has just one spin-allowed band, at 10Dq), hold B at a value (fixedB, --B)`
-        : ''),
+      `give at least ${names.length} bands, or hold C/B fixed`,
   );
   return names;
 }
@@ -157,11 +169,11 @@ export function checkFitInput(input: FitInput): FitSetup {
   const { n, bands } = input;
   const geometry = input.geometry ?? FIT_DEFAULTS.geometry;
   checkBands(input, geometry);
-  const fitC = input.fitC ?? FIT_DEFAULTS.fitC;
+  const fitC = input.fitC;
   ensure(!(fitC && singleTerm(n)), `fitting C: d${n} has a single free-ion term, so only Dq can be fitted`);
   const { cOverB, cOverBSource } = resolveCOverB(input);
   const { bandPrecision, ...limits } = checkLimits(input);
-  const names = checkParameters(input, fitC);
+  const names = checkParameters(input, fitC === true);
   const scan = ratioScan(n, geometry, cOverB, input.scan);
   const fixed = checkAssignments(input, scan);
   const given = bands.some((b) => b.sigma !== undefined);
@@ -170,6 +182,7 @@ export function checkFitInput(input: FitInput): FitSetup {
     geometry,
     bands,
     sigmas: bands.map((b) => b.sigma ?? bandPrecision),
+    bandPrecision,
     given,
     fitC,
     cOverB,

@@ -33,11 +33,17 @@ export interface Ranking {
 }
 
 /**
- * Ranks refined solutions: those within `ambiguityFactor` of the best weighted rms (floored at
- * 1, so fits within the band uncertainties tie) are kept and ordered by plausible β first, then
- * that floored weighted rms, fewer spin-forbidden assignments (within one ground spin), fewer
- * skipped transitions, and the weighted rms itself. The first `maxSolutions` are listed, plus
- * the best of any ground spin not yet among them.
+ * Ranks refined solutions. Kept are those within `ambiguityFactor` of the best weighted rms
+ * (floored at 1, so fits within the band uncertainties tie) and, always, the best of every
+ * ground spin (whether a d⁴–d⁷ sample is high- or low-spin is for the chemist to settle, not for
+ * a cut-off). They are ordered by:
+ * 1. plausible β first: a β outside (0.4, 1] is physically implausible for a complex, and such
+ *    solutions follow every plausible one whatever their residuals;
+ * 2. the ranking score ({@link scoreSolution}: residuals, β window, two-electron transitions,
+ *    unobserved strong bands, intensity classes), lower first;
+ * 3. fewer spin-forbidden assignments (within one ground spin: from a sextet ground every band
+ *    is spin-forbidden), then the weighted rms.
+ * The first `maxSolutions` are listed, plus the best of any ground spin not among them.
  */
 export function rankSolutions(
   refined: readonly Refined[],
@@ -46,30 +52,25 @@ export function rankSolutions(
 ): Ranking {
   const floor = (r: Refined) => Math.max(r.solution.weightedRms, 1);
   const best = Math.min(...refined.map(floor));
-  // Fewer spin-forbidden assignments rank first only between solutions from the same ground spin:
-  // from a sextet ground state (high-spin d⁵) every band is spin-forbidden.
-  const sameSpin = (a: Refined, b: Refined) => a.solution.levels.ground.S === b.solution.levels.ground.S;
-  // A β outside (lowBeta, 1] is physically implausible for a complex: such solutions are listed
-  // after every plausible one, whatever their residuals.
+  const sameSpin = (a: Refined, b: Refined) => a.solution.spin === b.solution.spin;
   const implausible = (r: Refined) => {
     const beta = r.solution.beta;
     return Number(beta !== null && (beta > 1 || beta < FIT_WARNING_LIMITS.lowBeta));
   };
   const order = (a: Refined, b: Refined) =>
     implausible(a) - implausible(b) ||
-    floor(a) - floor(b) ||
+    a.solution.score.total - b.solution.score.total ||
     (sameSpin(a, b) ? a.spinForbidden - b.spinForbidden : 0) ||
-    a.skipped - b.skipped ||
     a.solution.weightedRms - b.solution.weightedRms;
-  const accepted = refined.filter((r) => r.solution.weightedRms <= ambiguityFactor * best).sort(order);
-  // The best solution of every ground spin stays in the list even beyond maxSolutions: whether a
-  // d⁴–d⁷ sample is high- or low-spin is for the chemist to settle, not for a cut-off.
+  const sorted = [...refined].sort(order);
+  const accepted = sorted.filter((r) => r.solution.weightedRms <= ambiguityFactor * best);
   const shown = accepted.slice(0, maxSolutions);
-  for (const r of accepted) {
-    if (!shown.some((x) => x.solution.levels.ground.S === r.solution.levels.ground.S)) shown.push(r);
+  for (const r of sorted) {
+    if (!shown.some((x) => x.solution.spin === r.solution.spin)) shown.push(r);
   }
+  shown.sort(order);
   return {
     solutions: shown.map((r, i) => ({ rank: i + 1, ...r.solution })),
-    omitted: accepted.length - shown.length,
+    omitted: accepted.filter((r) => !shown.includes(r)).length,
   };
 }

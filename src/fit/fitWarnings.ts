@@ -3,6 +3,7 @@ import { type GroundCrossing, groundStateCrossings } from '../analysis/groundSta
 import { halfIntegerText } from '../atom/terms.js';
 import type { CubicResult } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
+import type { BandMerge, SpinHypothesis } from './fitTypes.js';
 
 /**
  * Where a band fit can mislead, in words a report can carry. Thresholds marked so are rules of
@@ -26,7 +27,11 @@ export type FitWarningCode =
   | 'spin-forbidden-band'
   | 'ambiguous'
   | 'jahn-teller-pair'
-  | 'ground-without-assignment';
+  | 'ground-without-assignment'
+  | 'b-not-determined'
+  | 'merged-bands'
+  | 'c-fitted'
+  | 'spin-without-solution';
 
 /** One warning: a short code for programs and a sentence for people. */
 export interface FitWarning {
@@ -60,6 +65,10 @@ export interface WarningContext {
   readonly scanRange: readonly [number, number];
   readonly cFitted: boolean;
   readonly cHeld: boolean;
+  /** Whether the bands fix B (false: B held at a nominal value). */
+  readonly bDetermined: boolean;
+  /** The element, for advice that holds for one element only; null when unknown. */
+  readonly element: string | null;
   readonly rms: number;
   readonly reducedChiSquare: number | null;
   readonly converged: boolean;
@@ -89,14 +98,19 @@ function crossingsAt(n: number, geometry: Geometry, cOverB: number, maxDeltaOver
   return hit;
 }
 
-const MEASUREMENT_DECIDES =
-  'which spin state a real compound adopts depends also on temperature, lattice and entropy — ' +
-  'magnetic or Mössbauer measurement decides';
+/** Which measurement settles the spin state: magnetism, and ⁵⁷Fe Mössbauer spectroscopy for iron only. */
+function measurementDecides(element: string | null): string {
+  return (
+    'which spin state a real compound adopts depends also on temperature, lattice and entropy — ' +
+    `magnetic measurement${element === 'Fe' ? ' or ⁵⁷Fe Mössbauer spectroscopy' : ''} decides`
+  );
+}
 
 function spinStateWarning(ctx: WarningContext): FitWarning | undefined {
   const { result, deltaOverB } = ctx;
   const { n, geometry } = result;
-  if (n < 4 || n > 7 || deltaOverB === null || !(result.B > 0)) return undefined;
+  // Tetrahedral d⁴–d⁷ have no spin choice at real fields (Δt ≈ 4/9 Δo; common practice, no source).
+  if (n < 4 || n > 7 || geometry === 'tet' || deltaOverB === null || !(result.B > 0)) return undefined;
   const g = result.ground;
   const cOverB = result.C / result.B;
   const range = Math.max(ctx.scanRange[1], deltaOverB);
@@ -110,7 +124,7 @@ function spinStateWarning(ctx: WarningContext): FitWarning | undefined {
     : `the ground-state spin does not change up to Δ/B = ${range.toFixed(0)} ${at}: ${ground} throughout`;
   return {
     code: 'spin-state',
-    message: `d${n} (${geometry === 'oct' ? 'octahedral' : 'tetrahedral'}): ${where}; ${MEASUREMENT_DECIDES}`,
+    message: `d${n} (octahedral): ${where}; ${measurementDecides(ctx.element)}`,
   };
 }
 
@@ -196,6 +210,15 @@ export function solutionWarnings(ctx: WarningContext): FitWarning[] {
       });
     }
   }
+  if (!ctx.bDetermined) {
+    out.push({
+      code: 'b-not-determined',
+      message:
+        `no assigned band depends on Racah B (the band lies at a multiple of Dq whatever B is): Dq is fixed by the ` +
+        `bands, B is not — it is held at ${ctx.result.B.toFixed(0)} cm⁻¹ only to place the other levels, and no β is ` +
+        'given; a spin-forbidden band or B held at a known value (--B) would fix it',
+    });
+  }
   if (ctx.cHeld) {
     out.push({
       code: 'c-held',
@@ -228,6 +251,7 @@ export function solutionWarnings(ctx: WarningContext): FitWarning[] {
 /** What {@link resultWarnings} looks at. */
 export interface ResultWarningContext {
   readonly n: number;
+  readonly geometry: Geometry;
   /** Number of bands fitted. */
   readonly bands: number;
   readonly solutions: number;
@@ -235,37 +259,77 @@ export interface ResultWarningContext {
   readonly includeSpinForbidden: boolean;
   /** Ground states for which no assignment of all bands existed. */
   readonly groundsWithout: readonly string[];
+  /** Input bands merged, with why. */
+  readonly merges: readonly BandMerge[];
+  /** Whether merging was asked for. */
+  readonly merge: boolean;
+  /** Ground spin of the best solution, and the largest the ion can have. */
+  readonly bestSpin: number;
+  readonly highestSpin: number;
+  /** Whether C was fitted because the bands determine it, and of how many bands. */
+  readonly cAuto: boolean;
+  /** Hypotheses with no solution, with why. */
+  readonly hypotheses: readonly SpinHypothesis[];
+}
+
+/** Whether the single spin-allowed band of this ground can be a Jahn–Teller pair (d¹, d⁹, high-spin d⁴ and d⁶). */
+function jahnTellerBand(ctx: ResultWarningContext): boolean {
+  const { n } = ctx;
+  return n === 1 || n === 9 || ((n === 4 || n === 6) && ctx.bestSpin === ctx.highestSpin);
 }
 
 /** Warnings about the fit as a whole (not one solution). */
 export function resultWarnings(ctx: ResultWarningContext): FitWarning[] {
   const { n, bands: m } = ctx;
   const warnings: FitWarning[] = [];
+  for (const merge of ctx.merges) {
+    warnings.push({
+      code: 'merged-bands',
+      message:
+        `bands ${merge.energies.map((e) => e.toFixed(0)).join(', ')} cm⁻¹ merged into one at ${merge.centroid.toFixed(0)} cm⁻¹ ` +
+        `(closer than a band width): ${merge.reason}; to fit them apart, give --keep-bands (fit command) or keep_bands in the sample sheet`,
+    });
+  }
+  if (ctx.cAuto) {
+    warnings.push({
+      code: 'c-fitted',
+      message: `C fitted as well: the ${m} bands depend on C and fix it (to hold C/B instead, give --cb, or cb in the sample sheet)`,
+    });
+  }
   if (ctx.solutions > 1) {
     warnings.push({
       code: 'ambiguous',
       message:
-        `${ctx.solutions} assignments fit nearly as well (weighted rms within a factor of ${ctx.ambiguityFactor} of ` +
-        'the best, or within the band uncertainties): the band positions alone do not decide; weigh intensities, ' +
-        'band widths and β < 1',
+        `${ctx.solutions} assignments are listed (the best of each ground spin, and those with weighted rms within a ` +
+        `factor of ${ctx.ambiguityFactor} of the best): the band positions alone do not decide; the ranking weighs β, ` +
+        'two-electron transitions, unobserved bands and band intensities — check the score of each',
     });
   }
-  if ([1, 4, 6, 9].includes(n) && m >= 2) {
+  if (jahnTellerBand(ctx) && m >= 2 && !ctx.merge) {
     warnings.push({
       code: 'jahn-teller-pair',
       message:
-        `high-spin d${n} has a single spin-allowed band (${n === 1 || n === 6 ? 'to an E state' : 'from an E ground state'}), ` +
+        `${n === 4 || n === 6 ? 'high-spin ' : ''}d${n} has a single spin-allowed band (${n === 1 || n === 6 ? 'to an E state' : 'from an E ground state'}), ` +
         'which a Jahn–Teller distortion often splits into two components: if two of these bands are such a pair, ' +
-        '10Dq is about their mean — fit that one value with B held (--B)',
+        '10Dq is about their centroid — let them be merged (without --keep-bands or keep_bands)',
     });
   }
-  for (const label of ctx.groundsWithout) {
+  for (const h of ctx.hypotheses) {
+    if (h.bestRank === null && h.note !== null) {
+      warnings.push({ code: 'spin-without-solution', message: h.note });
+    }
+  }
+  // A ground state whose hypothesis has already said why it has no solution is not named twice.
+  const explained = new Set(ctx.hypotheses.filter((h) => h.note !== null).map((h) => h.ground));
+  for (const label of ctx.groundsWithout.filter((g) => !explained.has(g))) {
     warnings.push({
       code: 'ground-without-assignment',
       message:
         `no assignment of ${m} band${m === 1 ? '' : 's'} to ${ctx.includeSpinForbidden ? '' : 'spin-allowed '}` +
         `transitions from the ground state ${label} exists, so no solution assumes it` +
-        (ctx.includeSpinForbidden ? '' : '; include spin-forbidden transitions to consider it'),
+        (ctx.includeSpinForbidden
+          ? ''
+          : '; include spin-forbidden transitions to consider it (--spin-forbidden, or spin_forbidden in the sample sheet)'),
     });
   }
   return warnings;

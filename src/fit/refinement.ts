@@ -1,5 +1,5 @@
 import { type FieldParameters, levelKeys, transitions } from '../analysis/bandModel.js';
-import { type CubicResult, MAX_PARAMETER } from '../field/cubic.js';
+import type { CubicResult } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
 import {
   type LeastSquaresOptions,
@@ -8,9 +8,11 @@ import {
   STOP_REASON_TEXT,
 } from '../numeric/leastSquares.js';
 import type { AssignmentCandidate } from './assignment.js';
+import { bandPicture } from './bandPicture.js';
 import { type ParameterName, standardErrors } from './fitErrors.js';
 import { cachedSolver, energyJacobian, fieldOf, parameterSet, vectorOf } from './fitModel.js';
-import type { FitAssignment, FitBand, FitInput, FitSolution, PredictedBand } from './fitTypes.js';
+import { scoreSolution } from './fitScore.js';
+import type { FitBand, FitInput, FitSolution } from './fitTypes.js';
 import { solutionWarnings } from './fitWarnings.js';
 import type { RatioScan } from './ratioScan.js';
 
@@ -22,6 +24,24 @@ import type { RatioScan } from './ratioScan.js';
 
 /** Lower bound of every parameter, cm⁻¹ (positivity). */
 const LOWER_BOUND = 1e-3;
+
+/**
+ * Upper bounds of the parameters inside the optimiser, cm⁻¹: far beyond any 3d complex (10Dq
+ * stays below about 45 000 cm⁻¹ and free-ion B below about 1300 cm⁻¹; common practice, no
+ * source), so a genuine optimum never meets them; a trial step beyond is projected back, and an
+ * assignment whose fit runs to a bound has no genuine minimum.
+ */
+export const PARAMETER_BOUNDS = { dq: 8000, B: 3000, C: 15000 } as const;
+
+/**
+ * β assumed to place the levels when the bands do not fix B (one band at a multiple of Dq): a
+ * mid-range value for 3d complexes (common practice, no source); nothing reported depends on it
+ * but the predicted levels that do depend on B.
+ */
+export const NOMINAL_BETA = 0.8;
+
+/** B assumed for the same purpose without a free-ion B, cm⁻¹ (common practice, no source). */
+export const NOMINAL_B = 800;
 
 /** What every refinement of one fit shares. */
 export interface RefineContext {
@@ -37,6 +57,12 @@ export interface RefineContext {
   readonly freeB: number | null;
   /** B held fixed (only Dq is fitted), when given. */
   readonly fixedB?: number;
+  /** Whether C is fitted because the bands can fix it: then a C none depends on is held silently. */
+  readonly cAuto?: boolean;
+  /** Sharp bands, matched to predicted levels after the fit. */
+  readonly sharp: readonly FitBand[];
+  /** The element (e.g. `Fe`), for advice that holds for one element only; null when unknown. */
+  readonly element: string | null;
   readonly start?: FitInput['start'];
   readonly leastSquares?: LeastSquaresOptions;
 }
@@ -44,11 +70,11 @@ export interface RefineContext {
 /** A refined assignment: its solution (unranked) and what the ranking needs besides. */
 export interface Refined {
   readonly solution: Omit<FitSolution, 'rank'>;
+  /** The candidate refined. */
+  readonly candidate: AssignmentCandidate;
   readonly keys: readonly string[];
   /** Bands assigned to spin-forbidden transitions. */
   readonly spinForbidden: number;
-  /** Spin-allowed transitions left without a band below the highest assigned one. */
-  readonly skipped: number;
 }
 
 type Model = (p: readonly number[]) => ReturnType<typeof transitions>;
@@ -61,20 +87,29 @@ type Model = (p: readonly number[]) => ReturnType<typeof transitions>;
 function freeParameters(
   ctx: RefineContext,
   startField: FieldParameters,
-  modelFor: (names: readonly ParameterName[]) => Model,
-): { names: ParameterName[]; cHeld: boolean; scale: number } | undefined {
+  modelFor: (names: readonly ParameterName[], heldB: number | undefined) => Model,
+): { names: ParameterName[]; cHeld: boolean; heldB: number | undefined; scale: number } | undefined {
   let names = parameterSet(ctx.n, ctx.fixedB, ctx.fitC);
   const p0 = vectorOf(names, startField);
-  const t0 = modelFor(names)(p0);
-  const J0 = energyJacobian(names, p0, t0, modelFor(names));
+  const t0 = modelFor(names, ctx.fixedB)(p0);
+  const J0 = energyJacobian(names, p0, t0, modelFor(names, ctx.fixedB));
   const scale = Math.max(...t0.energies.map(Math.abs));
   const determined = names.map((_, j) =>
     J0.some((row) => Math.abs((row[j] ?? 0) * (p0[j] ?? 0)) > 1e-9 * scale),
   );
+  if (!determined[0]) return undefined;
   const cHeld = ctx.fitC && names.length === 3 && determined[2] === false;
   if (cHeld) names = parameterSet(ctx.n, ctx.fixedB, false);
-  if (!determined[0] || (names.length >= 2 && !determined[1])) return undefined;
-  return { names, cHeld, scale };
+  let heldB = ctx.fixedB;
+  if (names.length >= 2 && !determined[1]) {
+    // No assigned band depends on B (one band at a multiple of Dq): Dq alone is fitted, and B
+    // is held at a nominal value only to place the other levels.
+    heldB = ctx.freeB === null ? NOMINAL_B : NOMINAL_BETA * ctx.freeB;
+    names = ['dq'];
+  }
+  // Fewer bands than parameters: the assignment cannot fix them.
+  if (t0.energies.length < names.length) return undefined;
+  return { names, cHeld, heldB, scale };
 }
 
 /** Levenberg–Marquardt on the weighted residuals, within the parameter bounds. */
@@ -83,22 +118,25 @@ function leastSquaresFit(
   names: readonly ParameterName[],
   start: readonly number[],
   model: Model,
-): LeastSquaresResult {
+): LeastSquaresResult & { bound: number[] } {
   const { sigmas } = ctx;
   const observed = ctx.bands.map((b) => b.energy);
+  const bound: number[] = names.map((name) => PARAMETER_BOUNDS[name]);
+  // With C held at C/B × B, B must stay where C does.
+  if (names.length === 2) bound[1] = Math.min(PARAMETER_BOUNDS.B, PARAMETER_BOUNDS.C / ctx.cOverB);
   const weigh = (rows: number[][]) => rows.map((row, i) => row.map((x) => x / (sigmas[i] ?? 1)));
   const scaleSq = observed.reduce((s, x, i) => s + (x / (sigmas[i] ?? 1)) ** 2, 0);
-  return levenbergMarquardt(
+  const fit = levenbergMarquardt(
     {
       start: [...start],
       lower: names.map(() => LOWER_BOUND),
-      // The solver accepts parameters up to MAX_PARAMETER; a trial step may not go beyond.
-      upper: names.map(() => MAX_PARAMETER),
+      upper: bound,
       residuals: (p) => model(p).energies.map((x, i) => (x - (observed[i] ?? 0)) / (sigmas[i] ?? 1)),
       jacobian: (p) => weigh(energyJacobian(names, p, model(p), model)),
     },
     { exactSumOfSquares: 1e-22 * scaleSq, ...ctx.leastSquares },
   );
+  return { ...fit, bound };
 }
 
 /**
@@ -115,92 +153,62 @@ export function refine(ctx: RefineContext, candidate: AssignmentCandidate): Refi
       }
     : candidate.start;
   const solve = cachedSolver(ctx.n, ctx.geometry);
-  const modelFor = (names: readonly ParameterName[]) => (p: readonly number[]) =>
-    transitions(solve(fieldOf(names, p, ctx.cOverB, ctx.fixedB)), candidate.groundKey, candidate.keys);
+  const modelFor = (names: readonly ParameterName[], heldB: number | undefined) => (p: readonly number[]) =>
+    transitions(solve(fieldOf(names, p, ctx.cOverB, heldB)), candidate.groundKey, candidate.keys);
 
   const free = freeParameters(ctx, startField, modelFor);
   if (!free) return undefined;
-  const { names, cHeld, scale } = free;
-  const model = modelFor(names);
+  const { names, cHeld, heldB, scale } = free;
+  const model = modelFor(names, heldB);
   const fit = leastSquaresFit(ctx, names, vectorOf(names, startField), model);
   const p = fit.parameters;
-  // A parameter driven to its bound (B → 0, say) marks no genuine minimum of this assignment.
-  if (p.some((x) => x <= LOWER_BOUND * (1 + 1e-9))) return undefined;
-  const levels = solve(fieldOf(names, p, ctx.cOverB, ctx.fixedB));
+  // A parameter driven to a bound (B → 0, say) marks no genuine minimum of this assignment.
+  if (
+    p.some(
+      (x, j) => x <= LOWER_BOUND * (1 + 1e-9) || x >= (fit.bound[j] ?? Number.POSITIVE_INFINITY) * (1 - 1e-9),
+    )
+  )
+    return undefined;
+  const levels = solve(fieldOf(names, p, ctx.cOverB, heldB));
   const keys = levelKeys(levels);
   // The assignment was made from one ground state; an optimum where another level lies lower
   // belongs to a different assignment (searched separately).
   const groundEnergy = levels.levels[keys.indexOf(candidate.groundKey)]?.energy ?? Number.POSITIVE_INFINITY;
   if (groundEnergy > 1e-9 * Math.max(1, scale)) return undefined;
-  return solutionOf(ctx, candidate, { names, cHeld, fit, levels, calculated: model(p).energies });
+  return solutionOf(ctx, candidate, { names, cHeld, heldB, fit, levels, calculated: model(p).energies });
 }
 
 /** What a finished least-squares run leaves for {@link solutionOf}. */
 interface Optimum {
   readonly names: readonly ParameterName[];
   readonly cHeld: boolean;
+  /** B held (given, or nominal where the bands do not fix it), else undefined. */
+  readonly heldB: number | undefined;
   readonly fit: LeastSquaresResult;
   readonly levels: CubicResult;
   readonly calculated: readonly number[];
 }
 
-/** The band-by-band picture of a solution: assignments, predicted levels, skipped transitions. */
-function bandPicture(
-  ctx: RefineContext,
-  candidate: AssignmentCandidate,
-  levels: CubicResult,
-  calculated: readonly number[],
-) {
-  const keys = levelKeys(levels);
-  const groundS = levels.ground.S;
-  const byKey = new Map(levels.levels.map((l, i) => [keys[i] ?? '', l]));
-  const assignments: FitAssignment[] = ctx.bands.map((b, i) => {
-    const level = byKey.get(candidate.keys[i] ?? '');
-    return {
-      band: i,
-      observed: b.energy,
-      sigma: b.sigma ?? null,
-      calculated: calculated[i] ?? 0,
-      difference: b.energy - (calculated[i] ?? 0),
-      label: level?.label ?? '?',
-      spinAllowed: level?.S === groundS,
-    };
-  });
-  const bandOf = new Map(candidate.keys.map((k, i) => [k, i]));
-  const predicted: PredictedBand[] = levels.levels.slice(1).map((l, i) => ({
-    label: l.label,
-    symbol: l.symbol,
-    energy: l.energy,
-    spinAllowed: l.spinAllowed,
-    band: bandOf.get(keys[i + 1] ?? '') ?? null,
-  }));
-  // Spin-allowed transitions left without a band below the highest assigned one: a measure of
-  // how many bands the assignment supposes unseen.
-  const highest = Math.max(...candidate.keys.map((k) => keys.indexOf(k)));
-  const skipped = levels.levels.filter(
-    (l, i) => i > 0 && i < highest && l.spinAllowed && !bandOf.has(keys[i] ?? ''),
-  ).length;
-  return { assignments, predicted, skipped };
-}
-
 /** The solution at an optimum: parameters, residuals, errors, levels and warnings. */
 function solutionOf(ctx: RefineContext, candidate: AssignmentCandidate, optimum: Optimum): Refined {
-  const { names, cHeld, fit, levels, calculated } = optimum;
+  const { names, cHeld, heldB, fit, levels, calculated } = optimum;
   const { bands, sigmas } = ctx;
   const observed = bands.map((b) => b.energy);
-  const field = fieldOf(names, fit.parameters, ctx.cOverB, ctx.fixedB);
+  const field = fieldOf(names, fit.parameters, ctx.cOverB, heldB);
   const differences = observed.map((o, i) => o - (calculated[i] ?? 0));
   const m = bands.length;
   const dof = m - names.length;
   const chiSquare = differences.reduce((s, d, i) => s + (d / (sigmas[i] ?? 1)) ** 2, 0);
   const rms = Math.sqrt(differences.reduce((s, d) => s + d * d, 0) / m);
 
-  // d¹ and d⁹ have no B at all; with B held, Δ/B and β follow from the value given.
-  const single = names.length === 1 && ctx.fixedB === undefined;
+  // d¹ and d⁹ have no B at all; with B held, Δ/B and β follow from the value given; with B
+  // not fixed by the bands there are none.
+  const single = names.length === 1 && heldB === undefined;
+  const bDetermined = single || heldB === undefined || ctx.fixedB !== undefined;
   const { dq, B, C } = field;
   const cFitted = names.length === 3;
-  const deltaOverB = single ? null : (10 * dq) / B;
-  const beta = single || ctx.freeB === null ? null : B / ctx.freeB;
+  const deltaOverB = single || !bDetermined ? null : (10 * dq) / B;
+  const beta = single || !bDetermined || ctx.freeB === null ? null : B / ctx.freeB;
   // The LM's Jacobian at the optimum is exact in Dq and B (see energyJacobian).
   const estimate = standardErrors({
     jacobian: fit.jacobian,
@@ -210,7 +218,19 @@ function solutionOf(ctx: RefineContext, candidate: AssignmentCandidate, optimum:
     uncertaintiesGiven: ctx.given,
     freeIonB: ctx.freeB,
   });
-  const { assignments, predicted, skipped } = bandPicture(ctx, candidate, levels, calculated);
+  const { assignments, predicted, sharp } = bandPicture(levels, bands, candidate.keys, calculated, ctx.sharp);
+  const weightedRms = Math.sqrt(chiSquare / m);
+  const score = scoreSolution({
+    geometry: ctx.geometry,
+    levels,
+    bands,
+    assignments,
+    predicted,
+    sharp,
+    sharpCount: ctx.sharp.length,
+    weightedRms,
+    beta,
+  });
   const reasonText = STOP_REASON_TEXT[fit.reason];
   const warnings = solutionWarnings({
     result: levels,
@@ -220,16 +240,18 @@ function solutionOf(ctx: RefineContext, candidate: AssignmentCandidate, optimum:
     deltaOverB,
     scanRange: [ctx.scan.minDeltaOverB, ctx.scan.maxDeltaOverB],
     cFitted,
-    cHeld,
+    cHeld: cHeld && !ctx.cAuto,
+    bDetermined,
+    element: ctx.element,
     rms,
     reducedChiSquare: ctx.given && dof > 0 ? chiSquare / dof : null,
     converged: fit.converged,
     reasonText,
   });
   return {
+    candidate,
     keys: candidate.keys,
     spinForbidden: assignments.filter((a) => !a.spinAllowed).length,
-    skipped,
     solution: {
       dq,
       tenDq: 10 * dq,
@@ -240,13 +262,17 @@ function solutionOf(ctx: RefineContext, candidate: AssignmentCandidate, optimum:
       beta,
       cFitted,
       bHeld: ctx.fixedB !== undefined,
+      bDetermined,
+      spin: levels.ground.S,
+      score,
+      sharp,
       parameters: names,
       errors: estimate.errors,
       errorBasis: estimate.basis,
       errorNote: estimate.note,
       covariance: estimate.covariance,
       rms,
-      weightedRms: Math.sqrt(chiSquare / m),
+      weightedRms,
       chiSquare,
       dof,
       assignments,

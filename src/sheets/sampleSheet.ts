@@ -10,7 +10,9 @@ import { InputError } from '../core/errors.js';
 import { findIon } from '../core/ions.js';
 import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
 import type { Geometry } from '../field/labels.js';
+import { MAX_ZETA } from '../field/spinOrbit.js';
 import { splitCsvLine } from './csv.js';
+import { geometrySchema, type SheetGeometry } from './geometrySheet.js';
 
 /** Where a sample's spectrum is and how to read it (see the spectrum reader for each field). */
 export interface SpectrumSpec {
@@ -38,14 +40,23 @@ export interface SampleSpec {
   readonly spectrum?: SpectrumSpec;
   /** Fixed C/B; absent means the ion's free-ion ratio. */
   readonly cOverB?: number;
-  /** Fit C as a third parameter. @default false */
-  readonly fitC: boolean;
+  /**
+   * Fit C as a third parameter (true) or hold it at C/B (false). @default undefined: fitted where
+   * the bands fix it, unless `cb` is given
+   */
+  readonly fitC?: boolean;
   /** Assignments of the bands, lowest first, e.g. `['3T2g', '3T1g(F)']`. */
   readonly assign?: readonly string[];
   /** Let the assignment search use spin-forbidden transitions too. @default false */
   readonly spinForbidden: boolean;
+  /** Fit bands closer than a band width as separate transitions instead of merging them. @default false */
+  readonly keepBands: boolean;
   /** The ground-state spin when it is known (from magnetism, say); the fit then keeps only that. */
   readonly spinState?: 'high' | 'low';
+  /** The complex's geometry, for a fit of a distorted complex besides the cubic one (JSON sheets). */
+  readonly structure?: SheetGeometry;
+  /** Spin–orbit ζ, cm⁻¹ (the sheet's number, or the ion's free-ion value for "ion"): the report then adds μ_eff with it. */
+  readonly zeta?: number;
   readonly notes?: string;
 }
 
@@ -91,6 +102,8 @@ const optionsShape = {
   cb: z.number().positive().optional(),
   fitC: z.boolean().optional(),
   spinForbidden: z.boolean().optional(),
+  keepBands: z.boolean().optional(),
+  zeta: z.union([z.number().min(0).max(MAX_ZETA), z.literal('ion')]).optional(),
 };
 
 const sampleSchema = z
@@ -101,6 +114,7 @@ const sampleSchema = z
     spectrum: spectrumSchema.optional(),
     assign: listField.optional(),
     spinState: z.enum(['high', 'low']).optional(),
+    structure: geometrySchema.optional(),
     notes: z.string().optional(),
     ...optionsShape,
   })
@@ -182,8 +196,12 @@ const EXPECTED: Readonly<Record<string, string>> = {
   cb: 'a positive number (C/B)',
   fitC: 'true or false',
   spinForbidden: 'true or false',
+  keepBands: 'true or false',
   spinState: '"high" or "low"',
+  zeta: `a spin–orbit ζ in cm⁻¹ from 0 to ${MAX_ZETA}, or "ion" for the free-ion value`,
   assign: 'level labels as text ("3T2g,3T1g(F)") or a list of them',
+  structure:
+    'an object with one of shape, xyz, tetragonal, trigonal, and optionally angle, metal, cutoff, bonds, eds, tolerance, free, assign',
   notes: 'text',
 };
 
@@ -220,8 +238,13 @@ function checkSample(
   const s = parsed.data;
   const fail = (field: string, message: string) => ({ problem: { sample: s.name, field, message } });
   let ion: string;
+  let zeta: number | undefined;
   try {
-    ion = findIon(s.ion).ion;
+    const found = findIon(s.ion);
+    ion = found.ion;
+    const z = s.zeta ?? defaults.zeta;
+    zeta = z === 'ion' ? found.zeta : z;
+    if (z === 'ion' && zeta === undefined) return fail('zeta', `no free-ion ζ is tabulated for ${ion}`);
   } catch (e) {
     return fail('ion', (e as Error).message);
   }
@@ -257,6 +280,8 @@ function checkSample(
           .map((a) => a.trim())
           .filter((a) => a !== '');
   const cOverB = s.cb ?? defaults.cb;
+  // C is held where C/B is given, and left to the bands otherwise.
+  const fitC = s.fitC ?? defaults.fitC ?? (cOverB !== undefined ? false : undefined);
   return {
     sample: {
       name: s.name,
@@ -265,10 +290,13 @@ function checkSample(
       ...(bands ? { bands } : {}),
       ...(spectrum ? { spectrum } : {}),
       ...(cOverB !== undefined ? { cOverB } : {}),
-      fitC: s.fitC ?? defaults.fitC ?? false,
+      ...(fitC !== undefined ? { fitC } : {}),
       ...(assign ? { assign } : {}),
       spinForbidden: s.spinForbidden ?? defaults.spinForbidden ?? false,
+      keepBands: s.keepBands ?? defaults.keepBands ?? false,
       ...(s.spinState ? { spinState: s.spinState } : {}),
+      ...(s.structure ? { structure: s.structure } : {}),
+      ...(zeta !== undefined ? { zeta } : {}),
       ...(s.notes ? { notes: s.notes } : {}),
     },
   };
@@ -293,13 +321,16 @@ const CSV_COLUMNS: Readonly<Record<string, string>> = {
   fit_c: 'fitC',
   assign: 'assign',
   spin_forbidden: 'spinForbidden',
+  keep_bands: 'keepBands',
   spin_state: 'spinState',
+  zeta: 'zeta',
   notes: 'notes',
 };
 
 /**
  * The simple form: a header row (name, ion, geometry, bands, spectrum, cb, fit_c, assign,
- * spin_forbidden, notes; any order, only name and ion required), then one sample a row. Bands in
+ * spin_forbidden, keep_bands, spin_state, zeta, notes; any order, only name and ion required), then one sample a
+ * row. Bands in
  * one cell are separated by `;` (or commas inside double quotes). Lines starting with `#` are
  * comments.
  */
@@ -342,11 +373,12 @@ function csvSheet(text: string): unknown {
 }
 
 function csvValue(field: string, cell: string): unknown {
-  if (field === 'cb') {
+  if (field === 'zeta' && cell.toLowerCase() === 'ion') return 'ion';
+  if (field === 'cb' || field === 'zeta') {
     const x = Number(cell);
     return Number.isFinite(x) ? x : cell;
   }
-  if (field === 'fitC' || field === 'spinForbidden') {
+  if (field === 'fitC' || field === 'spinForbidden' || field === 'keepBands') {
     const v = cell.toLowerCase();
     if (['yes', 'true', '1', 'y'].includes(v)) return true;
     if (['no', 'false', '0', 'n'].includes(v)) return false;

@@ -88,7 +88,7 @@ describe('termsplit fit (in process)', () => {
   it('lists the alternatives of an ambiguous d³ pair and the warnings', async () => {
     const r = await runFit('--ion', 'Cr3+', '--bands', '17400,37800');
     expect(r.stdout).toContain('Alternatives that fit nearly as well:');
-    expect(r.stdout).toMatch(/#2 {2}Dq \d+.*\[beta-above-one\]/);
+    expect(r.stdout).toMatch(/#2 {2}.*Dq \d+.*score .*\[β above 1: implausible\]/);
     expect(r.stdout).toContain('Warnings and cautions:');
     expect(r.stdout).toMatch(/observed band at 37800 cm⁻¹/);
     expect(r.stdout).toMatch(/no error estimate/);
@@ -138,7 +138,10 @@ describe('termsplit fit (in process)', () => {
       /3 assignments for 2 bands/,
     ],
     [['--ion', 'Ni2+', '--bands', '8500,13800', '--assign', '4T2g'], /no such level of d8.*expected one of/],
-    [['--ion', 'Ni2+', '--bands', '8500'], /1 band for 2 free parameters/],
+    [
+      ['--ion', 'V3+', '--bands', '17800'],
+      /1 band: .*cannot fix Dq and B: give a second band, or hold B .*\(--B\)/,
+    ],
     [['--ion', 'Ni2+', '--bands', '8500,13800', '--fit-c'], /2 bands for 3 free parameters/],
     [['--ion', 'Xx9+', '--bands', '8500,13800'], /unknown ion "Xx9\+"/],
     [['--d', '8', '--bands', '8500,13800', '--geometry', 'square'], /--geometry "square"/],

@@ -80,13 +80,57 @@ describe('fitBands with B held', () => {
     expect(best?.beta).toBeCloseTo(800 / 1058, 9);
   });
 
-  it('asks for B held when one band cannot fix Dq and B', () => {
-    expect(() => fitBands({ n: 6, bands: [{ energy: 10400 }] })).toThrow(InputError);
-    expect(() => fitBands({ n: 6, bands: [{ energy: 10400 }] })).toThrow(/hold B/);
+  it('fits one band of high-spin d6 without B: Dq = ν/10, B not determined, no β', () => {
+    const r = fitBands({ n: 6, bands: [{ energy: 10400 }], freeIon: findIon('Fe2+') });
+    const best = r.solutions[0];
+    expect(best?.ground).toBe('5T2g');
+    expect(best?.dq).toBeCloseTo(1040, 6);
+    expect(best?.bDetermined).toBe(false);
+    expect(best?.beta).toBeNull();
+    expect(best?.warnings.map((w) => w.code)).toContain('b-not-determined');
   });
 
-  it('warns that two bands of high-spin d4/d6/d9 may be one Jahn–Teller-split band', () => {
-    const r = fitBands({ n: 6, bands: [{ energy: 8300 }, { energy: 10400 }], freeIon: findIon('Fe2+') });
+  it('asks for B held when one band cannot fix Dq and B (d2: every band depends on B)', () => {
+    expect(() => fitBands({ n: 2, bands: [{ energy: 17800 }] })).toThrow(InputError);
+    expect(() => fitBands({ n: 2, bands: [{ energy: 17800 }] })).toThrow(/hold B at a known value \(--B\)/);
+  });
+
+  it('merges a Jahn–Teller pair of high-spin d6 (8302±110, 10401±125) and fits Dq from the centroid, also with spinState high', () => {
+    for (const spinState of [undefined, 'high'] as const) {
+      const r = fitBands({
+        n: 6,
+        bands: [
+          { energy: 8302, sigma: 110 },
+          { energy: 10401, sigma: 125 },
+        ],
+        freeIon: findIon('Fe2+'),
+        ...(spinState ? { spinState } : {}),
+      });
+      expect(r.merges[0]?.members).toEqual([0, 1]);
+      expect(r.merges[0]?.reason).toMatch(/Jahn–Teller pair/);
+      expect(r.solutions[0]?.ground).toBe('5T2g');
+      expect(r.solutions[0]?.dq).toBeCloseTo((8302 + 10401) / 20, 6);
+      expect(r.warnings.map((w) => w.code)).toContain('merged-bands');
+    }
+  });
+
+  it('refuses in one line when the bands cannot belong to the spin state asked for', () => {
+    const fit = () =>
+      fitBands({ n: 6, bands: [{ energy: 8302 }, { energy: 10401 }], merge: false, spinState: 'high' });
+    expect(fit).toThrow(InputError);
+    expect(fit).toThrow(/^2 bands: cannot belong to high-spin d6 \(octahedral\) \(ground state 5T2g\)/);
+  });
+
+  it('warns that two bands of high-spin d4/d6 may be one Jahn–Teller-split band when kept apart', () => {
+    const r = fitBands({
+      n: 6,
+      bands: [{ energy: 8300 }, { energy: 10400 }],
+      merge: false,
+      freeIon: findIon('Fe2+'),
+      fixedB: 800,
+      spinState: 'high',
+      includeSpinForbidden: true,
+    });
     expect(r.warnings.map((w) => w.code)).toContain('jahn-teller-pair');
   });
 });
