@@ -13,11 +13,12 @@ import type { CorrelationDiagram, DiagramCurve } from '../src/index.js';
 import { drawKey, spinKey } from './key.js';
 import { type Box, freeSpot, nearShifts, overlaps, spreadLabels } from './labelLayout.js';
 import { type FigureOptions, renderChart } from './render.js';
-import { type SampleMark, withSample } from './sampleOverlay.js';
+import { type SampleMark, samplePosition, withSample } from './sampleOverlay.js';
 import { STYLE } from './style.js';
 import {
   chartContext,
   drawRuns,
+  fitted,
   ionMarkup,
   markupRuns,
   measureRuns,
@@ -31,10 +32,19 @@ import {
 /** Options of {@link diagramChart}. */
 export interface DiagramChartOptions {
   /**
-   * Top of the E/B axis.
+   * Top of the E/B axis (ignored when `eRange` is given).
    * @default the highest curve, but at most DEFAULT_E_SPAN × the largest Δ/B, rounded up
    */
   readonly eMax?: number;
+  /** The Δ/B range drawn, to zoom in around a sample. @default [0, the diagram's largest Δ/B] */
+  readonly deltaRange?: readonly [number, number];
+  /** The E/B range drawn. @default [0, eMax] */
+  readonly eRange?: readonly [number, number];
+  /**
+   * Draw only this many spin-forbidden curves besides every spin-allowed one: the lowest, by
+   * their E/B at the sample's Δ/B (with a sample) or at the right edge. @default all of them
+   */
+  readonly forbidden?: number;
   /** A sample to mark on the diagram (see {@link withSample}). */
   readonly sample?: SampleMark;
   /** The ion's name for the title, e.g. `Cr3+`. */
@@ -59,10 +69,18 @@ export interface DiagramLabel {
 /** The automatic top of the E/B axis is at most this many times the largest Δ/B. */
 export const DEFAULT_E_SPAN = 2;
 
+/** Room under the x axis title for the line key, px. */
+const KEY_ROW = 22;
 /** Room right of the plot for the curve labels, px. */
 const LABEL_COLUMN = 108;
 /** Room above the plot for the title and the strip naming the spin regions, px. */
 const HEADER = 66;
+/** Room above the plot for the title alone (no change of ground state to name), px. */
+const HEADER_PLAIN = 44;
+/** Height of the leaders between the plot's top edge and the labels of curves leaving through it, px. */
+const EXIT_LEADER = 14;
+/** Labels of curves leaving through the top: a little smaller, set upright (rotated a quarter turn). */
+const EXIT_LABEL: TextStyle = { size: STYLE.smallSize, color: STYLE.ink };
 /** Gap between the plot's right edge and the curve labels (where leader lines run), px. */
 const LEADER = 12;
 
@@ -99,25 +117,85 @@ function everAllowed(diagram: CorrelationDiagram, curve: DiagramCurve): boolean 
   return diagram.regions.some((r) => r.S === curve.S);
 }
 
+/** The part of a diagram a figure shows: its ranges and the curves drawn. */
+interface DiagramView {
+  readonly xMin: number;
+  readonly xMax: number;
+  readonly eMin: number;
+  readonly eMax: number;
+  /** The diagram with only the curves drawn. */
+  readonly shown: CorrelationDiagram;
+}
+
+function checkedRange(name: string, range: readonly [number, number], lo: number, hi: number) {
+  const [a, b] = range;
+  ensure(
+    Number.isFinite(a) && Number.isFinite(b) && a >= lo && b > a && b <= hi,
+    `${name} ${a}:${b}: expected two increasing numbers from ${lo} to ${hi}`,
+  );
+  return { from: a, to: b };
+}
+
 /**
- * The chart.js configuration of a correlation diagram (type `scatter` with lines, x = Δ/B,
- * y = E/B), with the in-figure labels as a plugin and the sample, if given, drawn on it.
- * @throws InputError for a non-positive `eMax`, or a sample that does not fit (see {@link withSample}).
+ * Ranges and curves of the figure.
+ * @throws InputError for d¹ and d⁹, a bad range or count (see {@link diagramChart}).
  */
-export function diagramChart(
-  diagram: CorrelationDiagram,
-  options: DiagramChartOptions = {},
-): ChartConfiguration {
-  const eMax = options.eMax ?? automaticEMax(diagram);
+function diagramView(diagram: CorrelationDiagram, options: DiagramChartOptions): DiagramView {
+  ensure(
+    diagram.n !== 1 && diagram.n !== 9,
+    `d${diagram.n}: one free-ion term (²D) and no electron repulsion, so its levels do not depend on B and an E/B against Δ/B diagram means nothing; the one splitting is 10Dq between ²T₂g and ²E_g (use the level diagram)`,
+  );
+  const x = checkedRange(
+    'Δ/B range',
+    options.deltaRange ?? [0, diagram.maxDeltaOverB],
+    0,
+    diagram.maxDeltaOverB,
+  );
+  const eMax = options.eRange?.[1] ?? options.eMax ?? automaticEMax(diagram);
   ensure(Number.isFinite(eMax) && eMax > 0, `top of the E/B axis ${eMax}: expected a positive number`);
+  const e = checkedRange('E/B range', options.eRange ?? [0, eMax], 0, Number.POSITIVE_INFINITY);
+  const limit = options.forbidden;
+  ensure(
+    limit === undefined || (Number.isInteger(limit) && limit >= 0),
+    `number of spin-forbidden curves ${limit}: expected a whole number, 0 or more`,
+  );
+  let curves = diagram.curves;
+  if (limit !== undefined) {
+    const at = options.sample ? samplePosition(options.sample).deltaOverB : x.to;
+    const forbidden = curves
+      .filter((c) => !everAllowed(diagram, c))
+      .sort((a, b) => valueAt(diagram, a, at) - valueAt(diagram, b, at))
+      .slice(0, limit);
+    curves = curves.filter((c) => everAllowed(diagram, c) || forbidden.includes(c));
+  }
+  return { xMin: x.from, xMax: x.to, eMin: e.from, eMax: e.to, shown: { ...diagram, curves } };
+}
+
+/** Width a state label will take, px, estimated before any canvas exists (an upper bound for DejaVu Sans). */
+function estimatedWidth(label: string, style: TextStyle): number {
+  return stateRuns(label).reduce(
+    (w, r) => w + [...r.text].length * 0.64 * style.size * (r.shift === 'base' ? 1 : 0.7),
+    0,
+  );
+}
+
+/** Tick step of an axis spanning `span`: 5 up to 60, 10 up to 120, else chart.js's choice. */
+function tickStep(span: number): { stepSize?: number } {
+  if (span <= 12) return { stepSize: 1 };
+  if (span <= 30) return { stepSize: 2 };
+  if (span <= 60) return { stepSize: 5 };
+  return span <= 120 ? { stepSize: 10 } : {};
+}
+
+/** One chart.js dataset per curve, each segment styled by the spin region of its middle. */
+function curveDatasets(diagram: CorrelationDiagram): ChartDataset[] {
   const xs = diagram.deltaOverB;
-  // Segment i runs from point i to i + 1; its style follows the spin region of its middle.
   const segmentRegion = xs.slice(1).map((x, i) => regionIndex(diagram, ((xs[i] ?? 0) + x) / 2));
   // chart.js draws the first dataset on top: the spin-allowed curves go first.
   const curves = [...diagram.curves].sort(
     (a, b) => Number(everAllowed(diagram, b)) - Number(everAllowed(diagram, a)),
   );
-  const datasets = curves.map((curve) => {
+  return curves.map((curve) => {
     const style = (i: number) => {
       const r = segmentRegion[i] ?? 0;
       return allowedIn(diagram, curve, r)
@@ -141,6 +219,31 @@ export function diagramChart(
       },
     } as ChartDataset<'scatter'>;
   });
+}
+
+/**
+ * The chart.js configuration of a correlation diagram (type `scatter` with lines, x = Δ/B,
+ * y = E/B), with the in-figure labels as a plugin and the sample, if given, drawn on it.
+ * Labels: every spin-allowed curve is named, at its right end (spread apart, with leaders) or,
+ * where it leaves through the top, upright above the plot with a leader to its exit; a
+ * spin-forbidden curve is named at its right end only where its label fits within about one
+ * line of the end without displacing another label (the stated thinning rule), and not where it
+ * leaves through the top.
+ * @throws InputError for d¹ and d⁹ (no B dependence: the diagram means nothing), a non-positive
+ * `eMax`, a range outside the diagram, a negative or fractional `forbidden`, or a sample that
+ * does not fit (see {@link withSample}).
+ */
+export function diagramChart(
+  diagram: CorrelationDiagram,
+  options: DiagramChartOptions = {},
+): ChartConfiguration {
+  const view = diagramView(diagram, options);
+  const { shown } = view;
+  const exits = allowedExits(shown, view.eMax, view.xMin, view.xMax);
+  const band =
+    exits.length === 0
+      ? 0
+      : EXIT_LEADER + 6 + Math.max(...exits.map((e) => estimatedWidth(e.curve.label, EXIT_LABEL)));
   const tick = { font: { size: STYLE.tickSize }, color: STYLE.ink };
   const axisTitle = (text: string) => ({
     display: true,
@@ -150,36 +253,53 @@ export function diagramChart(
   });
   const config: ChartConfiguration = {
     type: 'scatter',
-    data: { datasets: datasets as ChartDataset[] },
+    data: { datasets: curveDatasets(shown) },
     options: {
       parsing: false,
       normalized: true,
-      layout: { padding: { top: HEADER, right: LABEL_COLUMN, left: 12, bottom: 6 } },
+      layout: {
+        padding: {
+          top: (shown.crossings.length > 0 ? HEADER : HEADER_PLAIN) + band,
+          right: LABEL_COLUMN,
+          left: 12,
+          bottom: KEY_ROW,
+        },
+      },
       plugins: { legend: { display: false }, tooltip: { enabled: false }, title: { display: false } },
       scales: {
         x: {
           type: 'linear',
-          min: 0,
-          max: diagram.maxDeltaOverB,
+          min: view.xMin,
+          max: view.xMax,
           title: axisTitle('Δ/B'),
-          ticks: { ...tick, ...(diagram.maxDeltaOverB <= 60 ? { stepSize: 5 } : {}) },
-          grid: { color: STYLE.grid },
+          ticks: { ...tick, ...tickStep(view.xMax - view.xMin), maxRotation: 0, autoSkipPadding: 6 },
+          grid: { display: false },
           border: { color: STYLE.ink },
         },
         y: {
           type: 'linear',
-          min: 0,
-          max: eMax,
+          min: view.eMin,
+          max: view.eMax,
           title: axisTitle('E/B'),
-          ticks: { ...tick, ...(eMax <= 120 ? { stepSize: 10 } : {}) },
-          grid: { color: STYLE.grid },
+          ticks: { ...tick, ...tickStep(view.eMax - view.eMin) },
+          grid: { display: false },
           border: { color: STYLE.ink },
         },
       },
     },
-    plugins: [regionBackdrop(diagram), diagramLabels(diagram, options.ion, options.onLabels)],
+    plugins: [
+      regionBackdrop(shown),
+      diagramLabels(shown, {
+        ion: options.ion,
+        band,
+        onLabels: options.onLabels,
+        allForbidden: options.forbidden === undefined,
+      }),
+    ],
   };
-  return options.sample ? withSample(config, options.sample) : config;
+  return options.sample
+    ? withSample(config, options.sample, { clearOf: shown.crossings.map((c) => c.deltaOverB) })
+    : config;
 }
 
 /**
@@ -218,12 +338,12 @@ function regionBackdrop(diagram: CorrelationDiagram): Plugin {
     id: 'termsplitRegions',
     beforeDatasetsDraw(chart) {
       const ctx = chartContext(chart);
-      const { top, bottom } = chart.chartArea;
-      const px = (x: number) => chart.scales.x?.getPixelForValue(x) ?? 0;
+      const { top, bottom, left, right } = chart.chartArea;
+      const px = (x: number) => Math.max(left, Math.min(right, chart.scales.x?.getPixelForValue(x) ?? 0));
       ctx.save();
       diagram.regions.forEach((region, r) => {
         if (regionColor(diagram, r) !== STYLE.allowedLowSpin) return;
-        ctx.fillStyle = 'rgba(164, 67, 28, 0.045)';
+        ctx.fillStyle = STYLE.lowSpinTint;
         ctx.fillRect(
           px(region.fromDeltaOverB),
           top,
@@ -232,12 +352,14 @@ function regionBackdrop(diagram: CorrelationDiagram): Plugin {
         );
       });
       ctx.strokeStyle = STYLE.crossover;
-      ctx.lineWidth = 1.2;
-      ctx.setLineDash([5, 4]);
+      ctx.lineWidth = STYLE.markWidth;
+      ctx.setLineDash([...STYLE.crossoverDash]);
       for (const c of diagram.crossings) {
+        const x = chart.scales.x?.getPixelForValue(c.deltaOverB) ?? 0;
+        if (x < left || x > right) continue;
         ctx.beginPath();
-        ctx.moveTo(px(c.deltaOverB), top);
-        ctx.lineTo(px(c.deltaOverB), bottom);
+        ctx.moveTo(x, top);
+        ctx.lineTo(x, bottom);
         ctx.stroke();
       }
       ctx.restore();
@@ -252,14 +374,22 @@ interface Placed extends DiagramLabel {
   box: Box;
   /** Where the leader line starts (the curve's end), if the label moved away from it. */
   leaderFrom?: { x: number; y: number };
+  /** Where the leader ends. @default the middle of the label's left edge */
+  leaderTo?: { x: number; y: number };
+}
+
+/** What the label plugin needs besides the diagram. */
+interface LabelSetting {
+  readonly ion: string | undefined;
+  /** Height of the band above the plot for upright exit labels, px (0 without any). */
+  readonly band: number;
+  readonly onLabels: ((labels: readonly DiagramLabel[]) => void) | undefined;
+  /** Whether every spin-forbidden curve is drawn (else the key says only the lowest are). */
+  readonly allForbidden: boolean;
 }
 
 /** Everything drawn over the plot: frame, title, region names, and the labels of curves and terms. */
-function diagramLabels(
-  diagram: CorrelationDiagram,
-  ion: string | undefined,
-  onLabels: ((labels: readonly DiagramLabel[]) => void) | undefined,
-): Plugin {
+function diagramLabels(diagram: CorrelationDiagram, setting: LabelSetting): Plugin {
   return {
     id: 'termsplitDiagramLabels',
     afterDraw(chart) {
@@ -267,33 +397,49 @@ function diagramLabels(
       const area = chart.chartArea;
       ctx.save();
       ctx.strokeStyle = STYLE.ink;
-      ctx.lineWidth = 1;
+      ctx.lineWidth = STYLE.frameWidth;
       ctx.strokeRect(area.left, area.top, area.right - area.left, area.bottom - area.top);
       ctx.restore();
-      drawHeader(ctx, chart, diagram, ion);
+      drawHeader(ctx, chart, diagram, setting);
       const placed = layoutLabels(ctx, chart, diagram);
-      for (const p of placed) {
-        if (p.leaderFrom) {
-          ctx.save();
-          ctx.strokeStyle = p.style.color;
-          ctx.globalAlpha = 0.7;
-          ctx.lineWidth = 0.7;
-          ctx.beginPath();
-          ctx.moveTo(p.leaderFrom.x, p.leaderFrom.y);
-          ctx.lineTo(p.box.left - 3, (p.box.top + p.box.bottom) / 2);
-          ctx.stroke();
-          ctx.restore();
-        }
-        drawRuns(ctx, p.runs, p.box.left, (p.box.top + p.box.bottom) / 2, p.style);
-      }
+      for (const p of placed) drawLabel(ctx, p);
       const colors = diagram.regions.length > 1 ? [STYLE.allowed, STYLE.allowedLowSpin] : [STYLE.allowed];
       const anyForbidden = diagram.curves.some((c) => diagram.regions.some((r) => r.S !== c.S));
+      const key = spinKey(
+        colors,
+        anyForbidden,
+        setting.allForbidden ? undefined : 'spin-forbidden, lowest only',
+      );
       // With spin–orbit coupling spin is no good label: every curve is drawn alike, with no key.
-      if (diagram.zetaOverB === undefined)
-        drawKey(ctx, spinKey(colors, anyForbidden), chart.chartArea.right, chart.height - 16);
-      onLabels?.(placed.map((p) => ({ text: p.text, kind: p.kind, box: p.box })));
+      if (diagram.zetaOverB === undefined) drawKey(ctx, key, chart.width - 8, chart.height - 11);
+      setting.onLabels?.(placed.map((p) => ({ text: p.text, kind: p.kind, box: p.box })));
     },
   };
+}
+
+/** A placed label with its leader: upright above the plot for an exit, else level. */
+function drawLabel(ctx: SKRSContext2D, p: Placed): void {
+  if (p.leaderFrom) {
+    const to = p.leaderTo ?? { x: p.box.left - 3, y: (p.box.top + p.box.bottom) / 2 };
+    ctx.save();
+    ctx.strokeStyle = p.style.color;
+    ctx.globalAlpha = 0.75;
+    ctx.lineWidth = STYLE.leaderWidth;
+    ctx.beginPath();
+    ctx.moveTo(p.leaderFrom.x, p.leaderFrom.y);
+    ctx.lineTo(to.x, to.y);
+    ctx.stroke();
+    ctx.restore();
+  }
+  if (p.kind !== 'exit') {
+    drawRuns(ctx, p.runs, p.box.left, (p.box.top + p.box.bottom) / 2, p.style);
+    return;
+  }
+  ctx.save();
+  ctx.translate((p.box.left + p.box.right) / 2, p.box.bottom);
+  ctx.rotate(-Math.PI / 2);
+  drawRuns(ctx, p.runs, 0, 0, p.style);
+  ctx.restore();
 }
 
 /** The title, and the strip under it naming the spin regions and the Δ/B of each crossover. */
@@ -301,24 +447,22 @@ function drawHeader(
   ctx: SKRSContext2D,
   chart: Chart,
   diagram: CorrelationDiagram,
-  ion: string | undefined,
+  setting: LabelSetting,
 ): void {
+  const { ion, band } = setting;
   const area = chart.chartArea;
   const px = (x: number) => chart.scales.x?.getPixelForValue(x) ?? 0;
   const title: TextStyle = { size: STYLE.titleSize, color: STYLE.ink, bold: true };
-  drawRuns(
-    ctx,
-    markupRuns(diagramTitleMarkup(diagram, ion)),
-    (area.left + area.right) / 2,
-    18,
-    title,
-    'center',
-  );
+  const titleRuns = markupRuns(diagramTitleMarkup(diagram, ion));
+  const wide = chart.width > 2 * measureRuns(ctx, titleRuns, title);
+  const centre = wide ? (area.left + area.right) / 2 : chart.width / 2;
+  drawRuns(ctx, titleRuns, centre, 18, fitted(ctx, titleRuns, title, chart.width - 20), 'center');
   if (diagram.crossings.length === 0) return;
-  const y = area.top - 14;
+  const y = area.top - band - 14;
   const strip: TextStyle = { size: STYLE.smallSize, color: STYLE.crossover };
   const taken: Box[] = [];
   for (const c of diagram.crossings) {
+    if (px(c.deltaOverB) < area.left || px(c.deltaOverB) > area.right) continue;
     const runs = markupRuns(`Δ/B = ${c.deltaOverB.toFixed(2)}`);
     const w = measureRuns(ctx, runs, strip);
     drawRuns(ctx, runs, px(c.deltaOverB), y, strip, 'center');
@@ -335,8 +479,8 @@ function drawHeader(
     const style: TextStyle = { size: STYLE.smallSize + 1, color: regionColor(diagram, r), bold: true };
     const runs = markupRuns(name);
     const w = measureRuns(ctx, runs, style);
-    const lo = px(region.fromDeltaOverB);
-    const hi = px(region.toDeltaOverB);
+    const lo = Math.max(area.left, px(region.fromDeltaOverB));
+    const hi = Math.min(area.right, px(region.toDeltaOverB));
     // Centred over the region, then slid away from the crossover captions if it meets one.
     let left = (lo + hi) / 2 - w / 2;
     for (const t of taken) {
@@ -355,8 +499,12 @@ interface Layout {
   readonly diagram: CorrelationDiagram;
   readonly x: Scale;
   readonly y: Scale;
-  /** Top of the E/B axis. */
+  /** Top and bottom of the E/B axis. */
   readonly eMax: number;
+  readonly eMin: number;
+  /** The Δ/B range shown. */
+  readonly xMin: number;
+  readonly xMax: number;
   /** Height of one label, px. */
   readonly h: number;
   /** The plot area, where labels inside the plot must stay. */
@@ -387,6 +535,9 @@ function layoutLabels(ctx: SKRSContext2D, chart: Chart, diagram: CorrelationDiag
     x,
     y,
     eMax: y.max,
+    eMin: y.min,
+    xMin: x.min,
+    xMax: x.max,
     h: runsHeight(LABEL),
     inside: { left: area.left, right: area.right, top: area.top, bottom: area.bottom },
     columnLeft: area.right + LEADER,
@@ -394,18 +545,17 @@ function layoutLabels(ctx: SKRSContext2D, chart: Chart, diagram: CorrelationDiag
     taken: [],
     labelled: new Set(),
   };
-  const last = diagram.deltaOverB.length - 1;
   const ends = diagram.curves
-    .map((curve) => ({ curve, value: curve.values[last] ?? Number.NaN }))
-    .filter((e) => e.value >= 0 && e.value <= layout.eMax);
+    .map((curve) => ({ curve, value: valueAt(diagram, curve, layout.xMax) }))
+    .filter((e) => e.value >= layout.eMin && e.value <= layout.eMax);
   labelAllowedEnds(
     layout,
     ends.filter((e) => everAllowed(diagram, e.curve)),
   );
-  labelRegionGrounds(layout);
+  if (layout.eMin <= 0) labelRegionGrounds(layout);
   labelTopExits(layout);
   labelBeside(layout);
-  labelTerms(layout);
+  if (layout.xMin <= 0) labelTerms(layout);
   labelOtherEnds(
     layout,
     ends.filter((e) => !everAllowed(diagram, e.curve)),
@@ -455,31 +605,58 @@ function labelRegionGrounds(layout: Layout): void {
     const runs = stateRuns(region.ground);
     const style = { ...LABEL, color: regionColor(diagram, r), halo: true };
     const w = measureRuns(layout.ctx, runs, style);
-    const mid = layout.x.getPixelForValue((region.fromDeltaOverB + region.toDeltaOverB) / 2);
+    const from = Math.max(layout.xMin, region.fromDeltaOverB);
+    const to = Math.min(layout.xMax, region.toDeltaOverB);
+    if (to - from < 0.1 * (layout.xMax - layout.xMin)) return;
+    const mid = layout.x.getPixelForValue((from + to) / 2);
     const box = boxAt(layout, mid - w / 2, inside.bottom - layout.h / 2 - 3, w);
     layout.taken.push(box);
     layout.out.push({ text: region.ground, kind: 'ground', runs, style, box });
   });
 }
 
-/** Spin-allowed curves that leave through the top: named just inside, beside the exit, in one row. */
-function labelTopExits(layout: Layout): void {
-  const { diagram, inside } = layout;
-  const exits = diagram.curves
-    .map((curve) => ({ curve, x: topExit(diagram, curve, layout.eMax) }))
-    .filter((e): e is { curve: DiagramCurve; x: number } => e.x !== undefined)
+/** A spin-allowed curve leaving through the top of the plot, at Δ/B = x. */
+type Exit = { curve: DiagramCurve; x: number };
+
+/** The curves that leave through the top within the Δ/B range while spin-allowed there, left to right. */
+function allowedExits(diagram: CorrelationDiagram, eMax: number, xMin: number, xMax: number): Exit[] {
+  return diagram.curves
+    .map((curve) => ({ curve, x: topExit(diagram, curve, eMax, xMin, xMax) }))
+    .filter((e): e is Exit => e.x !== undefined)
     .filter((e) => allowedIn(diagram, e.curve, regionIndex(diagram, e.x)))
     .sort((a, b) => a.x - b.x);
-  for (const e of exits) {
+}
+
+/**
+ * Spin-allowed curves that leave through the top: named upright in the band above the plot,
+ * spread apart along it in the order of their exits (so no two leaders cross), each joined to
+ * its exit by a leader.
+ */
+function labelTopExits(layout: Layout): void {
+  const { diagram, inside } = layout;
+  const exits = allowedExits(diagram, layout.eMax, layout.xMin, layout.xMax);
+  const h = runsHeight(EXIT_LABEL);
+  const targets = exits.map((e) => layout.x.getPixelForValue(e.x));
+  const spread = spreadLabels(targets, h + 1, inside.left + h / 2, layout.chart.width - h / 2 - 2);
+  const bottom = inside.top - EXIT_LEADER;
+  exits.forEach((e, i) => {
     const runs = stateRuns(e.curve.label);
-    const style = { ...curveStyle(diagram, e.curve, regionIndex(diagram, e.x)), halo: true };
+    const style = { ...curveStyle(diagram, e.curve, regionIndex(diagram, e.x)), size: EXIT_LABEL.size };
     const w = measureRuns(layout.ctx, runs, style);
-    const px = layout.x.getPixelForValue(e.x);
-    const left = px + 4 + w <= inside.right - 2 ? px + 4 : px - 4 - w;
-    const box = boxAt(layout, left, inside.top + layout.h / 2 + 2, w);
-    const spot = freeSpot(pad(box), layout.taken, [0], inside);
-    if (spot) place(layout, { text: e.curve.label, kind: 'exit', runs, style, box }, spot);
-  }
+    const cx = spread[i] ?? 0;
+    const box = { left: cx - h / 2, right: cx + h / 2, top: bottom - w, bottom };
+    layout.taken.push(box);
+    layout.labelled.add(e.curve.label);
+    layout.out.push({
+      text: e.curve.label,
+      kind: 'exit',
+      runs,
+      style,
+      box,
+      leaderFrom: { x: targets[i] ?? cx, y: inside.top - 1 },
+      leaderTo: { x: cx, y: bottom + 2 },
+    });
+  });
 }
 
 /**
@@ -524,22 +701,38 @@ function labelBeside(layout: Layout): void {
   });
 }
 
-/** Free-ion terms where the curves start, just inside the left edge; those of the ground spin first. */
+/**
+ * Free-ion terms where the curves start, just inside the left edge; those of the ground spin
+ * first. Terms at the same height (within half a line, as ²P and ²H of d³) share one label, "²P, ²H".
+ */
 function labelTerms(layout: Layout): void {
   const { diagram, inside, h } = layout;
   const terms = new Map<string, { S: number; value: number }>();
   for (const c of diagram.curves)
     if (!terms.has(c.parent)) terms.set(c.parent, { S: c.S, value: c.values[0] ?? 0 });
   const groundS = diagram.regions[0]?.S;
-  const list = [...terms.entries()]
-    .filter(([, t]) => t.value <= layout.eMax)
-    .sort((a, b) => Number(b[1].S === groundS) - Number(a[1].S === groundS) || a[1].value - b[1].value);
-  for (const [name, t] of list) {
-    const runs = termRuns(name);
-    const color = t.S === groundS ? regionColor(diagram, 0) : STYLE.forbiddenText;
+  const sorted = [...terms.entries()]
+    .filter(([, t]) => t.value <= layout.eMax && t.value >= layout.eMin)
+    .sort((a, b) => a[1].value - b[1].value);
+  const groups: { names: string[]; ground: boolean; value: number }[] = [];
+  for (const [name, t] of sorted) {
+    const last = groups.at(-1);
+    const py = layout.y.getPixelForValue(t.value);
+    if (last && Math.abs(layout.y.getPixelForValue(last.value) - py) < h / 2) {
+      last.names.push(name);
+      last.ground ||= t.S === groundS;
+    } else groups.push({ names: [name], ground: t.S === groundS, value: t.value });
+  }
+  groups.sort((a, b) => Number(b.ground) - Number(a.ground) || a.value - b.value);
+  for (const g of groups) {
+    const runs = g.names.flatMap((name, k) => [
+      ...(k > 0 ? [{ text: ', ', shift: 'base' as const }] : []),
+      ...termRuns(name),
+    ]);
+    const color = g.ground ? regionColor(diagram, 0) : STYLE.forbiddenText;
     const style: TextStyle = { ...LABEL, color, halo: true };
     const w = measureRuns(layout.ctx, runs, style);
-    const cy = Math.min(layout.y.getPixelForValue(t.value) - h / 2, inside.bottom - h / 2 - 2);
+    const cy = Math.min(layout.y.getPixelForValue(g.value) - h / 2, inside.bottom - h / 2 - 2);
     const spot = freeSpot(
       boxAt(layout, inside.left + 5, cy, w),
       layout.taken,
@@ -548,7 +741,7 @@ function labelTerms(layout: Layout): void {
     );
     if (!spot) continue;
     layout.taken.push(spot);
-    layout.out.push({ text: name, kind: 'term', runs, style, box: spot });
+    layout.out.push({ text: g.names.join(', '), kind: 'term', runs, style, box: spot });
   }
 }
 
@@ -571,18 +764,25 @@ function labelOtherEnds(layout: Layout, ends: readonly CurveEnd[]): void {
   }
 }
 
-/** Δ/B where a curve that ends above the top of the axis last crosses it, or undefined if it is never below it. */
-function topExit(diagram: CorrelationDiagram, curve: DiagramCurve, eMax: number): number | undefined {
-  const xs = diagram.deltaOverB;
-  const v = curve.values;
-  const last = v.length - 1;
-  if (!((v[last] ?? 0) > eMax)) return undefined;
-  for (let i = last - 1; i >= 0; i--) {
-    const a = v[i] ?? 0;
+/**
+ * Δ/B where a curve that is above the top of the axis at the right edge (`xMax`) last rises
+ * through it, or undefined if it is below the top there or above it across the whole range.
+ */
+function topExit(
+  diagram: CorrelationDiagram,
+  curve: DiagramCurve,
+  eMax: number,
+  xMin: number,
+  xMax: number,
+): number | undefined {
+  if (!(valueAt(diagram, curve, xMax) > eMax)) return undefined;
+  const xs = [xMin, ...diagram.deltaOverB.filter((x) => x > xMin && x < xMax), xMax];
+  for (let i = xs.length - 2; i >= 0; i--) {
+    const x0 = xs[i] ?? 0;
+    const a = valueAt(diagram, curve, x0);
     if (a <= eMax) {
-      const b = v[i + 1] ?? 0;
-      const x0 = xs[i] ?? 0;
       const x1 = xs[i + 1] ?? 0;
+      const b = valueAt(diagram, curve, x1);
       return x0 + ((eMax - a) / (b - a)) * (x1 - x0);
     }
   }

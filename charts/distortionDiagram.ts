@@ -81,7 +81,7 @@ export function distortionChart(sweep: DistortionSweep, eMax?: number): ChartCon
           reverse: (sweep.x[0] ?? 0) > (sweep.x[sweep.x.length - 1] ?? 0),
           title: axisTitle(sweep.coordinate),
           ticks: tick,
-          grid: { color: STYLE.grid },
+          grid: { display: false },
           border: { color: STYLE.ink },
         },
         y: {
@@ -90,7 +90,7 @@ export function distortionChart(sweep: DistortionSweep, eMax?: number): ChartCon
           max: top,
           title: axisTitle('E / cm⁻¹'),
           ticks: tick,
-          grid: { color: STYLE.grid },
+          grid: { display: false },
           border: { color: STYLE.ink },
         },
       },

@@ -8,6 +8,7 @@ import type { MapRow, MapSegment } from '../src/analysis/groundMap.js';
 import { pairingCoefficients } from '../src/analysis/lfse.js';
 import type { GroundStateMap } from '../src/index.js';
 import { type FigureOptions, renderChart } from './render.js';
+import { STYLE } from './style.js';
 import { chartContext, drawRuns, measureRuns, stateRuns, type TextRun } from './typeset.js';
 
 /** What to mark on the map besides the regions. */
@@ -29,10 +30,12 @@ export interface GroundMapMarks {
 
 /** Fill colours of the regions by spin role (light, and of different lightness so greyscale prints keep them apart). */
 export const REGION_COLOURS = {
-  high: '#f7c98f',
-  intermediate: '#c9e3bf',
-  low: '#a9c6ea',
-  only: '#e4e4e4',
+  // Light tints of the house colours of each side (high spin blue, low spin rust, as on the
+  // correlation diagrams), of different lightness so greyscale prints keep them apart.
+  high: '#d5e0ee',
+  intermediate: '#e4dcef',
+  low: '#f3d9cc',
+  only: '#ececec',
 } as const;
 
 type SpinRole = keyof typeof REGION_COLOURS;
@@ -155,11 +158,11 @@ function markLayers(
       { x: 0, y: marks.cOverB },
       { x: map.maxDeltaOverB, y: marks.cOverB },
     ];
-    layers.datasets.push(lineDataset('C/B', data, '#1f4e99', 2, dash));
+    layers.datasets.push(lineDataset('C/B', data, STYLE.muted, 1.6, dash));
     layers.legend.push({
       text: `C/B = ${marks.cOverB.toFixed(2)}`,
       kind: 'line',
-      colour: '#1f4e99',
+      colour: STYLE.muted,
       width: 2,
       dash,
     });
@@ -178,18 +181,18 @@ function markLayers(
     layers.datasets.push({
       label: 'sample',
       data: [{ x: sample.deltaOverB, y: sample.cOverB }],
-      pointStyle: 'circle',
-      pointRadius: 6,
+      pointStyle: 'rectRot',
+      pointRadius: 7,
       pointBorderWidth: 2,
-      borderColor: '#000000',
-      backgroundColor: '#d62728',
+      borderColor: STYLE.sample,
+      backgroundColor: '#ffffff',
     });
     const spread = sample.sigmaDeltaOverB ? ` ± ${sample.sigmaDeltaOverB.toFixed(1)}` : '';
     layers.legend.push({
       text: sample.label ?? `sample, Δ/B = ${sample.deltaOverB.toFixed(1)}${spread}`,
       kind: 'point',
-      colour: '#000000',
-      fill: '#d62728',
+      colour: STYLE.sample,
+      fill: '#ffffff',
       width: 2,
     });
   }
@@ -331,8 +334,13 @@ function drawLegend(chart: Chart<'scatter'>, legend: readonly LegendEntry[]): vo
       ctx.lineTo(x + 44, y);
       ctx.stroke();
     } else {
+      // The sample's open diamond, as on the plot.
       ctx.fillStyle = entry.fill ?? entry.colour;
-      ctx.arc(x + 22, y, 6, 0, 2 * Math.PI);
+      ctx.moveTo(x + 22, y - 7);
+      ctx.lineTo(x + 29, y);
+      ctx.lineTo(x + 22, y + 7);
+      ctx.lineTo(x + 15, y);
+      ctx.closePath();
       ctx.fill();
       ctx.stroke();
     }
@@ -372,7 +380,7 @@ function mapOptions(
         max: map.maxDeltaOverB,
         title: axis('Δ/B   (Δ = 10Dq)'),
         ticks: { font: { size: 15 } },
-        grid: { color: 'rgba(0,0,0,0.14)' },
+        grid: { display: false },
       },
       y: {
         type: 'linear',
@@ -380,7 +388,7 @@ function mapOptions(
         max: yMax,
         title: axis('C/B'),
         ticks: { font: { size: 15 } },
-        grid: { color: 'rgba(0,0,0,0.14)' },
+        grid: { display: false },
       },
     },
     plugins: {

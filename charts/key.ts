@@ -9,15 +9,23 @@ export interface KeyItem {
   readonly colors: readonly string[];
   readonly width: number;
   readonly text: string;
+  /** Dash pattern of the line sample, px. @default solid */
+  readonly dash?: readonly number[];
+  /** A filled swatch under the line sample (a filled silhouette), instead of a bare line. */
+  readonly fill?: string;
 }
 
 /**
  * The entries every figure here uses: strong lines spin-allowed, light lines spin-forbidden
  * (left out where nothing is spin-forbidden, as for d¹ and d⁹).
  */
-export function spinKey(allowedColors: readonly string[], anyForbidden = true): KeyItem[] {
+export function spinKey(
+  allowedColors: readonly string[],
+  anyForbidden = true,
+  forbiddenText = 'spin-forbidden',
+): KeyItem[] {
   const allowed = { colors: allowedColors, width: STYLE.allowedWidth, text: 'spin-allowed' };
-  const forbidden = { colors: [STYLE.forbidden], width: STYLE.forbiddenWidth + 0.3, text: 'spin-forbidden' };
+  const forbidden = { colors: [STYLE.forbidden], width: STYLE.forbiddenWidth + 0.3, text: forbiddenText };
   return anyForbidden ? [allowed, forbidden] : [allowed];
 }
 
@@ -32,11 +40,16 @@ export function drawKey(ctx: SKRSContext2D, items: readonly KeyItem[], right: nu
     for (const color of [...item.colors].reverse()) {
       x -= 26;
       ctx.save();
+      if (item.fill) {
+        ctx.fillStyle = item.fill;
+        ctx.fillRect(x, y - 5, 20, 10);
+      }
       ctx.strokeStyle = color;
-      ctx.lineWidth = item.width;
+      ctx.lineWidth = item.fill ? 1 : item.width;
+      ctx.setLineDash([...(item.dash ?? [])]);
       ctx.beginPath();
-      ctx.moveTo(x, y);
-      ctx.lineTo(x + 20, y);
+      ctx.moveTo(x, item.fill ? y - 5 : y);
+      ctx.lineTo(x + 20, item.fill ? y - 5 : y);
       ctx.stroke();
       ctx.restore();
     }

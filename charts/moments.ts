@@ -95,7 +95,7 @@ export function momentChart(data: MomentFigureData): ChartConfiguration {
           max: tMax,
           title: title('T / K'),
           ticks: tick,
-          grid: { color: STYLE.grid },
+          grid: { display: false },
         },
         mu: {
           type: 'linear',
@@ -104,7 +104,7 @@ export function momentChart(data: MomentFigureData): ChartConfiguration {
           suggestedMax: muMax * 1.1,
           title: title('μ_eff / μ_B', STYLE.allowed),
           ticks: tick,
-          grid: { color: STYLE.grid },
+          grid: { display: false },
         },
         chiT: {
           type: 'linear',

@@ -1,14 +1,20 @@
 /**
  * Headless rendering of chart.js figures through @napi-rs/canvas (Skia, no system libraries):
- * PNG, SVG (text turned into paths, so it looks the same everywhere) and PDF (vector, fonts
- * embedded). The DejaVu fonts ship as an npm package, so figures do not depend on what fonts a
- * machine has.
+ * PNG, SVG (text kept as editable `<text>`, see svgText.ts; shapes compacted, svgShapes.ts) and
+ * PDF (vector, fonts embedded).
+ * The DejaVu fonts ship as an npm package, so figures do not depend on what fonts a machine has.
  */
 
 import { createRequire } from 'node:module';
 import { createCanvas, GlobalFonts, PDFDocument, type SKRSContext2D, SvgExportFlag } from '@napi-rs/canvas';
 import { Chart, type ChartConfiguration, type Plugin, registerables } from 'chart.js';
+import { ensure } from '../src/core/errors.js';
 import { InputError } from '../src/index.js';
+import { FONT_FAMILY } from './style.js';
+import { compactShapes } from './svgShapes.js';
+import { editableSvg } from './svgText.js';
+
+export { FONT_FAMILY } from './style.js';
 
 /** Output formats, chosen by file extension. */
 export type FigureFormat = 'png' | 'svg' | 'pdf';
@@ -20,14 +26,64 @@ export interface FigureOptions {
   readonly width?: number;
   /** Height in CSS pixels. @default 650 */
   readonly height?: number;
-  /** PNG pixels per CSS pixel. @default 2 */
+  /** PNG pixels per CSS pixel (ignored when `dpi` is given). @default 2 */
   readonly pngScale?: number;
+  /**
+   * A journal column width: the figure is laid out at the preset's design width (height in
+   * proportion) and printed at the column's physical width, text at about 7 pt. @default none
+   */
+  readonly size?: FigureSize;
+  /** PNG pixels per inch of the printed figure (with a size preset) or per 96 CSS px (without). */
+  readonly dpi?: number;
   /** PDF document title. */
   readonly title?: string;
 }
 
-/** The font family every figure uses. */
-export const FONT_FAMILY = 'DejaVu Sans';
+/** The journal column widths figures can be made for. */
+export type FigureSize = keyof typeof FIGURE_SIZES;
+
+/**
+ * Column widths (mm) of one- and two-column figures, as many journals set them (common
+ * practice, no source), and the width (CSS px) each is laid out at: the figures' 13 px labels
+ * then print at about 7 pt, the usual smallest size asked for.
+ */
+export const FIGURE_SIZES = {
+  'one-column': { mm: 85, designWidth: 440, aspect: 1.35 },
+  'two-column': { mm: 175, designWidth: 900, aspect: 1 },
+} as const;
+
+/** PNG resolution of a size preset unless given, pixels per inch (what journals usually ask for line art with text). */
+export const DEFAULT_PRESET_DPI = 300;
+
+/** Layout size (CSS px), physical width (CSS px at 96 per inch) and PNG scale of a figure. */
+function layoutOf(options: FigureOptions) {
+  const width = options.width ?? 900;
+  const height = options.height ?? 650;
+  if (options.size === undefined) {
+    const pngScale = options.dpi !== undefined ? options.dpi / 96 : (options.pngScale ?? 2);
+    return { width, height, printWidth: width, pngScale };
+  }
+  const preset = FIGURE_SIZES[options.size];
+  ensure(preset !== undefined, `figure size "${options.size}": expected one-column or two-column`);
+  const designHeight = Math.round((height * preset.designWidth * preset.aspect) / width);
+  const printWidth = (preset.mm / 25.4) * 96;
+  const pixels = (preset.mm / 25.4) * (options.dpi ?? DEFAULT_PRESET_DPI);
+  return {
+    width: preset.designWidth,
+    height: designHeight,
+    printWidth,
+    pngScale: pixels / preset.designWidth,
+  };
+}
+
+/** An SVG's root sized in millimetres over its pixel drawing (viewBox), for a size preset. */
+function printSize(svg: string, width: number, height: number, printWidth: number): string {
+  const mm = (px: number) => `${Math.round(((px * printWidth) / width / 96) * 25.4 * 10) / 10}mm`;
+  return svg.replace(
+    /<svg([^>]*?) width="[^"]*" height="[^"]*"/,
+    `<svg$1 width="${mm(width)}" height="${mm(height)}" viewBox="0 0 ${width} ${height}"`,
+  );
+}
 
 let ready = false;
 
@@ -70,8 +126,11 @@ const whiteBackground: Plugin = {
  */
 export function renderChart(config: ChartConfiguration, options: FigureOptions): Buffer {
   setUp();
-  const width = options.width ?? 900;
-  const height = options.height ?? 650;
+  ensure(
+    options.dpi === undefined || (Number.isFinite(options.dpi) && options.dpi >= 30 && options.dpi <= 2400),
+    `PNG resolution ${options.dpi} dpi: expected a number from 30 to 2400`,
+  );
+  const { width, height, printWidth, pngScale } = layoutOf(options);
   const withDefaults = (ratio: number): ChartConfiguration => ({
     ...config,
     options: { ...config.options, animation: false, responsive: false, devicePixelRatio: ratio },
@@ -80,19 +139,24 @@ export function renderChart(config: ChartConfiguration, options: FigureOptions):
   if (options.format === 'png') {
     // chart.js enlarges the canvas itself by devicePixelRatio and scales the drawing to match.
     const canvas = createCanvas(width, height);
-    return drawOn(canvas, withDefaults(options.pngScale ?? 2), () => canvas.toBuffer('image/png'));
+    return drawOn(canvas, withDefaults(pngScale), () => canvas.toBuffer('image/png'));
   }
   if (options.format === 'svg') {
-    const canvas = createCanvas(width, height, SvgExportFlag.ConvertTextToPaths);
-    return drawOn(canvas, withDefaults(1), () => canvas.getContent());
+    const canvas = createCanvas(width, height, SvgExportFlag.NoPrettyXML);
+    return drawOn(canvas, withDefaults(1), () => {
+      const svg = compactShapes(editableSvg(canvas.getContent().toString('utf8')));
+      return Buffer.from(options.size ? printSize(svg, width, height, printWidth) : svg, 'utf8');
+    });
   }
   const doc = new PDFDocument({ title: options.title ?? 'termsplit figure', creator: 'termsplit' });
-  const ctx = doc.beginPage(width, height) as unknown as SKRSContext2D;
+  // A PDF page is measured in points (1/72 in): the drawing is scaled to the printed width.
+  const points = (printWidth / width) * 0.75;
+  const ctx = doc.beginPage(width * points, height * points) as unknown as SKRSContext2D;
   // chart.js asks its item for a 2D context and reads the context's canvas for the size; a PDF
   // page context has no canvas, so it gets a stand-in of the page size.
   const page = { width, height, style: {}, getContext: () => ctx };
   Object.defineProperty(ctx, 'canvas', { value: page, configurable: true });
-  return drawOn(page, withDefaults(1), () => {
+  return drawOn(page, withDefaults(points), () => {
     doc.endPage();
     return doc.close();
   });

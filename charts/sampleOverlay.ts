@@ -7,7 +7,7 @@
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import { ensure } from '../src/core/errors.js';
 import { STYLE } from './style.js';
-import { chartContext, drawRuns } from './typeset.js';
+import { chartContext, drawRuns, runsHeight, type TextStyle } from './typeset.js';
 
 /** A sample to mark. Energies in cm⁻¹. */
 export interface SampleMark {
@@ -47,6 +47,12 @@ export function samplePosition(mark: SampleMark): SamplePosition {
   return { deltaOverB: (10 * mark.dq) / mark.B, bandsOverB: bands.map((b) => b / mark.B) };
 }
 
+/** Where the sample's caption must keep clear of. */
+export interface SampleOverlayOptions {
+  /** Δ/B of other vertical lines (the crossovers): the caption goes on a side without one. @default [] */
+  readonly clearOf?: readonly number[];
+}
+
 /** Headroom above the highest band when the E/B axis must grow to show it. */
 const BAND_HEADROOM = 1.08;
 
@@ -57,13 +63,22 @@ const BAND_HEADROOM = 1.08;
  * @throws InputError when the sample's Δ/B lies outside the chart's Δ/B axis, or for a bad mark
  * (see {@link samplePosition}).
  */
-export function withSample(config: ChartConfiguration, mark: SampleMark): ChartConfiguration {
+export function withSample(
+  config: ChartConfiguration,
+  mark: SampleMark,
+  options: SampleOverlayOptions = {},
+): ChartConfiguration {
   const { deltaOverB, bandsOverB } = samplePosition(mark);
   const scales = config.options?.scales ?? {};
+  const xMin = Number(scales.x?.min ?? 0);
   const xMax = Number(scales.x?.max ?? Number.POSITIVE_INFINITY);
   ensure(
     deltaOverB <= xMax,
     `the sample's Δ/B = 10Dq/B = ${deltaOverB.toFixed(2)} lies beyond the diagram's largest Δ/B ${xMax}: draw the diagram to a larger Δ/B`,
+  );
+  ensure(
+    deltaOverB >= xMin,
+    `the sample's Δ/B = 10Dq/B = ${deltaOverB.toFixed(2)} lies below the Δ/B range drawn, which starts at ${xMin}`,
   );
   const yMax = Number(scales.y?.max ?? 0);
   const highest = Math.max(0, ...bandsOverB);
@@ -72,29 +87,37 @@ export function withSample(config: ChartConfiguration, mark: SampleMark): ChartC
     label: mark.label ?? DEFAULT_SAMPLE_LABEL,
     data: bandsOverB.map((e) => ({ x: deltaOverB, y: e })),
     showLine: false,
-    pointRadius: 5.5,
-    pointHoverRadius: 5.5,
-    pointStyle: 'circle',
-    backgroundColor: STYLE.sample,
-    borderColor: '#ffffff',
-    borderWidth: 1.6,
+    pointRadius: 6,
+    pointHoverRadius: 6,
+    pointStyle: 'rectRot',
+    backgroundColor: '#ffffff',
+    borderColor: STYLE.sample,
+    borderWidth: 2,
     order: -10,
   };
   return {
     ...config,
     data: { ...config.data, datasets: [...config.data.datasets, points as ChartDataset] },
     options: { ...config.options, scales: { ...scales, ...(y ? { y } : {}) } },
-    plugins: [...(config.plugins ?? []), sampleLine(deltaOverB, mark.label ?? DEFAULT_SAMPLE_LABEL)],
+    plugins: [
+      ...(config.plugins ?? []),
+      sampleLine(deltaOverB, mark.label ?? DEFAULT_SAMPLE_LABEL, options.clearOf ?? []),
+    ],
   };
 }
 
+/** Gap between the sample's line and its caption, px. */
+const CAPTION_GAP = 9;
+
 /**
- * The vertical line, under the curves (so it never hides them), and its caption over them, set
- * off to the left far enough to clear the band points on the line.
+ * The vertical line, under the curves (so it never hides them), and its caption over them,
+ * upright beside the line: left of it unless another vertical line (a crossover) or the plot's
+ * edge lies there, then right of it.
  */
-function sampleLine(deltaOverB: number, label: string): Plugin {
+function sampleLine(deltaOverB: number, label: string, clearOf: readonly number[]): Plugin {
   const at = (chart: Parameters<NonNullable<Plugin['afterDatasetsDraw']>>[0]) =>
     chart.scales.x?.getPixelForValue(deltaOverB) ?? 0;
+  const style: TextStyle = { size: STYLE.smallSize, color: STYLE.sample, bold: true, halo: true };
   return {
     id: 'termsplitSampleLine',
     beforeDatasetsDraw(chart) {
@@ -103,8 +126,8 @@ function sampleLine(deltaOverB: number, label: string): Plugin {
       const x = at(chart);
       ctx.save();
       ctx.strokeStyle = STYLE.sample;
-      ctx.lineWidth = 1.6;
-      ctx.setLineDash([7, 4]);
+      ctx.lineWidth = STYLE.markWidth + 0.4;
+      ctx.setLineDash([...STYLE.sampleDash]);
       ctx.beginPath();
       ctx.moveTo(x, top);
       ctx.lineTo(x, bottom);
@@ -113,15 +136,17 @@ function sampleLine(deltaOverB: number, label: string): Plugin {
     },
     afterDatasetsDraw(chart) {
       const ctx = chartContext(chart);
+      const x = at(chart);
+      const h = runsHeight(style);
+      const { left, right } = chart.chartArea;
+      const lines = clearOf.map((d) => chart.scales.x?.getPixelForValue(d) ?? Number.NaN);
+      const free = (mid: number) =>
+        mid - h / 2 > left && mid + h / 2 < right && lines.every((l) => Math.abs(l - mid) > h / 2 + 3);
+      const mid = [x - CAPTION_GAP - h / 2, x + CAPTION_GAP + h / 2].find(free) ?? x - CAPTION_GAP - h / 2;
       ctx.save();
-      ctx.translate(at(chart) - 15, chart.chartArea.bottom - 8);
+      ctx.translate(mid, chart.chartArea.bottom - 8);
       ctx.rotate(-Math.PI / 2);
-      drawRuns(ctx, [{ text: `${label}, Δ/B = ${deltaOverB.toFixed(1)}`, shift: 'base' }], 0, 0, {
-        size: STYLE.smallSize,
-        color: STYLE.sample,
-        bold: true,
-        halo: true,
-      });
+      drawRuns(ctx, [{ text: `${label}, Δ/B = ${deltaOverB.toFixed(1)}`, shift: 'base' }], 0, 0, style);
       ctx.restore();
     },
   };

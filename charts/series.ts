@@ -4,16 +4,25 @@
  * sees the spectrochemical and nephelauxetic orders of the series at a glance.
  */
 
-import type { ChartConfiguration, Plugin } from 'chart.js';
-import { unicodeIon } from '../src/field/labels.js';
+import type { ChartConfiguration, Plugin, PointStyle } from 'chart.js';
+import { drawPoint } from 'chart.js/helpers';
 import type { SeriesEntry } from '../src/index.js';
+import { groupedNumber } from './numbers.js';
 import { type FigureOptions, renderChart } from './render.js';
 import { STYLE } from './style.js';
+import {
+  chartContext,
+  drawRuns,
+  formulaRuns,
+  ionMarkup,
+  markupRuns,
+  measureRuns,
+  type TextRun,
+  type TextStyle,
+} from './typeset.js';
 
 /** The quantity a trend figure shows. */
 export type TrendQuantity = 'tenDq' | 'beta';
-
-const ION_COLOURS = ['#1d4e89', '#a4431c', '#1b8a5a', '#7a3e9d', '#8a6d1b', '#2a7f8f'];
 
 const TITLES: Record<TrendQuantity, { title: string; axis: string }> = {
   tenDq: { title: '10Dq (Δ) across the series', axis: '10Dq / cm⁻¹' },
@@ -34,21 +43,31 @@ function ionKey(e: SeriesEntry): string {
 }
 
 function ionColour(k: number): string {
-  return ION_COLOURS[k % ION_COLOURS.length] ?? STYLE.ink;
+  return STYLE.groups[k % STYLE.groups.length] ?? STYLE.ink;
+}
+
+function ionMarker(k: number): PointStyle {
+  return STYLE.markers[k % STYLE.markers.length] ?? 'circle';
+}
+
+/** The name of an ion group in a key: Ni²⁺ typeset, "(T_d)" for tetrahedral. */
+function ionRuns(key: string): TextRun[] {
+  const [ion = '', geometry = ''] = key.split('/');
+  return markupRuns(`${ionMarkup(ion)}${geometry === 'tet' ? ' (T_d)' : ''}`);
 }
 
 /** One dataset per ion, with a value at that ion's samples and gaps elsewhere. */
 function trendDatasets(entries: readonly SeriesEntry[], quantity: TrendQuantity, ions: readonly string[]) {
   return ions.map((key, k) => {
     const colour = ionColour(k);
-    const [ion = '', geometry = ''] = key.split('/');
     return {
-      label: `${unicodeIon(ion)}${geometry === 'tet' ? ' (Td)' : ''}`,
+      label: key,
       data: entries.map((e) => (ionKey(e) === key ? trendValue(e, quantity) : null)),
       borderColor: colour,
       backgroundColor: colour,
-      pointRadius: 6,
-      pointHoverRadius: 6,
+      pointStyle: ionMarker(k),
+      pointRadius: 6.5,
+      pointHoverRadius: 6.5,
       showLine: false,
     };
   });
@@ -102,9 +121,83 @@ function trendYAxis(entries: readonly SeriesEntry[], quantity: TrendQuantity) {
     ...(quantity === 'tenDq' ? { min: 0 } : { suggestedMin: lo - pad }),
     suggestedMax: hi + pad,
     title: { display: true, text: TITLES[quantity].axis, font: { size: STYLE.axisTitleSize } },
-    ticks: { font: { size: STYLE.tickSize } },
-    grid: { color: STYLE.grid },
+    ticks: {
+      font: { size: STYLE.tickSize },
+      callback: (v: string | number) =>
+        quantity === 'tenDq' ? groupedNumber(Number(v)) : Number(v).toFixed(2).replace('-', '\u2212'),
+    },
+    grid: { display: false },
+    border: { color: STYLE.ink },
   };
+}
+
+/** Room under the plot for the sample names, px. */
+const NAME_ROOM = 64;
+
+/**
+ * The frame, the sample names under the plot typeset as formulae ([Ni(ors)₆]⁴⁻), level where
+ * they fit and slanted where they do not, and the key of ions: marker shape, colour, typeset name.
+ */
+function namesAndKey(entries: readonly SeriesEntry[], ions: readonly string[]): Plugin {
+  return {
+    id: 'termsplitSeriesNames',
+    afterDraw(chart) {
+      const ctx = chartContext(chart);
+      const area = chart.chartArea;
+      ctx.save();
+      ctx.strokeStyle = STYLE.ink;
+      ctx.lineWidth = STYLE.frameWidth;
+      ctx.strokeRect(area.left, area.top, area.right - area.left, area.bottom - area.top);
+      ctx.restore();
+      const style: TextStyle = { size: STYLE.tickSize, color: STYLE.ink };
+      const names = entries.map((e) => formulaRuns(e.name));
+      const widths = names.map((runs) => measureRuns(ctx, runs, style));
+      const spacing = (area.right - area.left) / Math.max(1, entries.length);
+      const slanted = Math.max(...widths) > spacing - 8;
+      names.forEach((runs, i) => {
+        const x = chart.scales.x?.getPixelForValue(i) ?? 0;
+        if (!slanted) {
+          drawRuns(ctx, runs, x, area.bottom + 16, style, 'center');
+          return;
+        }
+        ctx.save();
+        ctx.translate(x + 4, area.bottom + 10);
+        ctx.rotate(-Math.PI / 6);
+        drawRuns(ctx, runs, 0, 0, style, 'right');
+        ctx.restore();
+      });
+      drawIonKey(ctx, ions, area.right, chart.height - 14);
+    },
+  };
+}
+
+/** The key of ion groups, ending at `right`: marker, then the ion's name, for each. */
+function drawIonKey(
+  ctx: ReturnType<typeof chartContext>,
+  ions: readonly string[],
+  right: number,
+  y: number,
+): void {
+  const style: TextStyle = { size: STYLE.labelSize, color: STYLE.ink };
+  let x = right;
+  for (let k = ions.length - 1; k >= 0; k--) {
+    const runs = ionRuns(ions[k] ?? '');
+    x -= measureRuns(ctx, runs, style);
+    drawRuns(ctx, runs, x, y, style);
+    x -= 14;
+    ctx.save();
+    ctx.fillStyle = ionColour(k);
+    ctx.strokeStyle = ionColour(k);
+    ctx.lineWidth = 1;
+    drawPoint(
+      ctx as unknown as Parameters<typeof drawPoint>[0],
+      { pointStyle: ionMarker(k), radius: 6, borderWidth: 1, rotation: 0 },
+      x,
+      y,
+    );
+    ctx.restore();
+    x -= 24;
+  }
 }
 
 /** The chart.js configuration of a trend figure over `entries` in the order given. */
@@ -114,31 +207,30 @@ export function trendChart(entries: readonly SeriesEntry[], quantity: TrendQuant
     type: 'line',
     data: { labels: entries.map((e) => e.name), datasets: trendDatasets(entries, quantity, ions) },
     options: {
-      layout: { padding: { left: 8, right: 24, top: 8, bottom: 8 } },
+      layout: { padding: { left: 8, right: 24, top: 8, bottom: NAME_ROOM + 26 } },
       plugins: {
         title: {
           display: true,
           text: TITLES[quantity].title,
           font: { size: STYLE.titleSize, weight: 'bold' },
+          color: STYLE.ink,
         },
-        legend: {
-          display: true,
-          position: 'bottom',
-          labels: { font: { size: STYLE.labelSize }, usePointStyle: true },
-        },
+        legend: { display: false },
         tooltip: { enabled: false },
       },
       scales: {
         x: {
           type: 'category',
           offset: true,
-          ticks: { font: { size: STYLE.tickSize }, maxRotation: 30, minRotation: 0, autoSkip: false },
-          grid: { color: STYLE.grid },
+          // The sample names are typeset as formulae by the plugin below.
+          ticks: { display: false },
+          grid: { display: false },
+          border: { color: STYLE.ink },
         },
         y: trendYAxis(entries, quantity),
       },
     },
-    plugins: [errorBarsPlugin(entries, quantity, ions)],
+    plugins: [errorBarsPlugin(entries, quantity, ions), namesAndKey(entries, ions)],
   };
 }
 

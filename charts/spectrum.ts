@@ -7,11 +7,14 @@
 
 import type { ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
 import { xyReduce } from 'ml-spectra-processing';
-import { parseStateLabel } from '../src/field/labels.js';
 import { cmToNm, type FoundBand } from '../src/index.js';
 import type { AbsorptionQuantity } from '../src/spectra/absorptionSpectrum.js';
 import { bandSum, gaussianValue, type LinearBaseline } from '../src/spectra/gaussianBands.js';
-import { type FigureOptions, FONT_FAMILY, renderChart } from './render.js';
+import { drawKey, type KeyItem } from './key.js';
+import { groupedNumber, tickText } from './numbers.js';
+import { type FigureOptions, renderChart } from './render.js';
+import { STYLE } from './style.js';
+import { chartContext, drawRuns, measureRuns, runsHeight, stateRuns, type TextStyle } from './typeset.js';
 
 /** A predicted transition from the ground state, to draw as a vertical mark. */
 export interface PredictedTransition {
@@ -45,26 +48,15 @@ const CT_SCALE_LIMIT = 1.5;
 /** Points per fitted curve. */
 const CURVE_POINTS = 600;
 
-const INK = '#1a1a1a';
-const MEASURED_COLOUR = '#3a3a3a';
-const SUM_COLOUR = '#c0392b';
-const BAND_COLOUR = '#1f77b4';
-const CT_COLOUR = '#7a7a7a';
-const BASELINE_COLOUR = '#b0b0b0';
-const ALLOWED_COLOUR = '#1b3a6b';
-const FORBIDDEN_COLOUR = '#a8b0ba';
+const INK = STYLE.ink;
+/** Room under the plot for the three rows of the key, px. */
+const KEY_ROOM = 62;
 
 /** Axis title of the y quantity. */
 export function quantityTitle(quantity: AbsorptionQuantity): string {
   if (quantity === 'epsilon') return 'ε / L mol⁻¹ cm⁻¹';
   if (quantity === 'absorbance') return 'Absorbance';
   return 'Absorption / arb. units';
-}
-
-/** A number with thin-space thousands separators, as figures in papers print them: 20 000. */
-function grouped(v: number): string {
-  const s = String(Math.round(v));
-  return s.length <= 4 ? s : s.replace(/\B(?=(\d{3})+(?!\d))/g, '\u2009');
 }
 
 /** The smallest round number (1, 1.2, 1.5, 2, 2.5, 3, 4, 5, 6 or 8 × 10ᵏ) at or above v, where the y axis ends. */
@@ -136,20 +128,22 @@ function points(xs: ArrayLike<number>, ys: ArrayLike<number>): { x: number; y: n
   return Array.from(xs, (x, i) => ({ x, y: ys[i] as number }));
 }
 
-/** The datasets: measured data, fit, each band (d–d and charge transfer), baseline, and legend entries of the marks. */
+/** The datasets: measured data (a filled silhouette), fit, each band (d–d and charge transfer) and baseline. */
 function spectrumDatasets(
   input: SpectrumFigureInput,
   drawn: XY,
   curves: FitCurves,
-  transitions: readonly PredictedTransition[],
 ): ChartDataset<'scatter'>[] {
   const datasets: ChartDataset<'scatter'>[] = [
     // The data are drawn first, under the fitted curves (a higher order is drawn earlier).
-    { ...line('Measured', points(drawn.x, drawn.y), MEASURED_COLOUR, 1.1), order: 1 },
-    line('Fit: bands + baseline', points(curves.x, curves.sum), SUM_COLOUR, 1.6, [6, 3]),
+    {
+      ...line('measured', points(drawn.x, drawn.y), STYLE.measuredLine, 0.9),
+      fill: 'origin',
+      backgroundColor: STYLE.measuredFill,
+      order: 1,
+    },
+    line('fit: bands + baseline', points(curves.x, curves.sum), STYLE.allowed, 1.6),
   ];
-  let firstBand = true;
-  let firstCt = true;
   const range = Math.max(...curves.sum) - Math.min(0, ...curves.sum);
   for (const band of input.bands) {
     // A band is drawn on the baseline only where it rises visibly above it, so the bands'
@@ -158,25 +152,47 @@ function spectrumDatasets(
       const g = gaussianValue(band, x);
       return g > VISIBLE_FRACTION * range ? (curves.baseline[i] as number) + g : Number.NaN;
     });
-    if (band.chargeTransfer) {
-      datasets.push(
-        line(firstCt ? 'Charge-transfer band or edge' : '', points(curves.x, ys), CT_COLOUR, 1.2, [5, 3]),
-      );
-      firstCt = false;
-    } else {
-      datasets.push(line(firstBand ? 'Fitted Gaussian bands' : '', points(curves.x, ys), BAND_COLOUR, 1.2));
-      firstBand = false;
-    }
+    datasets.push(
+      band.chargeTransfer
+        ? line('charge transfer', points(curves.x, ys), STYLE.chargeTransfer, 1.2, [...STYLE.crossoverDash])
+        : line('Gaussian bands', points(curves.x, ys), STYLE.component, 1.1),
+    );
   }
   if (input.baseline.offset !== 0 || input.baseline.slope !== 0) {
-    datasets.push(line('Baseline', points(curves.x, curves.baseline), BASELINE_COLOUR, 1, [1, 3]));
-  }
-  if (transitions.some((t) => t.spinAllowed))
-    datasets.push(line('Predicted, spin-allowed', [], ALLOWED_COLOUR, 1.4));
-  if (transitions.some((t) => !t.spinAllowed)) {
-    datasets.push(line('Predicted, spin-forbidden', [], FORBIDDEN_COLOUR, 1, [4, 3]));
+    datasets.push(
+      line('baseline', points(curves.x, curves.baseline), STYLE.muted, 1, [...STYLE.baselineDash]),
+    );
   }
   return datasets;
+}
+
+/** The key under the plot, in rows narrow enough for a one-column figure: data and fit, the fit's parts, the predictions. */
+function keyRows(input: SpectrumFigureInput, transitions: readonly PredictedTransition[]): KeyItem[][] {
+  const data: KeyItem[] = [
+    { colors: [STYLE.measuredLine], width: 1, text: 'measured', fill: STYLE.measuredFill },
+    { colors: [STYLE.allowed], width: 1.6, text: 'fit: bands + baseline' },
+  ];
+  const parts: KeyItem[] = [{ colors: [STYLE.component], width: 1.1, text: 'Gaussian bands' }];
+  if (input.bands.some((b) => b.chargeTransfer))
+    parts.push({
+      colors: [STYLE.chargeTransfer],
+      width: 1.2,
+      text: 'charge transfer',
+      dash: STYLE.crossoverDash,
+    });
+  if (input.baseline.offset !== 0 || input.baseline.slope !== 0)
+    parts.push({ colors: [STYLE.muted], width: 1, text: 'baseline', dash: STYLE.baselineDash });
+  const predicted: KeyItem[] = [];
+  if (transitions.some((t) => t.spinAllowed))
+    predicted.push({ colors: [STYLE.allowed], width: 1.4, text: 'predicted, spin-allowed' });
+  if (transitions.some((t) => !t.spinAllowed))
+    predicted.push({
+      colors: [STYLE.forbidden],
+      width: 1,
+      text: 'predicted, spin-forbidden',
+      dash: STYLE.forbiddenDash,
+    });
+  return [data, parts, predicted].filter((row) => row.length > 0);
 }
 
 /**
@@ -212,26 +228,26 @@ function bandNumbers(input: SpectrumFigureInput): { number: number; x: number; y
     }));
 }
 
-/** Axes (wavenumber below, wavelength on top, the quantity up the side) and the legend below. */
+/** Axes (wavenumber below, wavelength on top, the quantity up the side), room for the key below. */
 function spectrumOptions(
   input: SpectrumFigureInput,
   y: { yMin: number; yMax: number },
 ): ChartConfiguration<'scatter'>['options'] {
   const { from, to } = input.window;
   return {
-    layout: { padding: { left: 8, right: 18, top: 8, bottom: 4 } },
+    layout: { padding: { left: 8, right: 18, top: 8, bottom: KEY_ROOM } },
     scales: {
       x: {
         type: 'linear',
         position: 'bottom',
         min: from,
         max: to,
-        title: { display: true, text: 'Wavenumber / cm⁻¹', font: { size: 15 } },
+        title: { display: true, text: 'Wavenumber / cm⁻¹', font: { size: STYLE.axisTitleSize } },
         afterBuildTicks: (axis: Scale) => {
           axis.ticks = wavenumberTicks(from, to).map((value) => ({ value }));
         },
-        ticks: { font: { size: 13 }, callback: (v) => grouped(Number(v)), maxRotation: 0 },
-        grid: { color: '#ececec' },
+        ticks: { font: { size: STYLE.tickSize }, callback: (v) => groupedNumber(Number(v)), maxRotation: 0 },
+        grid: { display: false },
         border: { color: INK },
       },
       xTop: {
@@ -239,12 +255,12 @@ function spectrumOptions(
         position: 'top',
         min: from,
         max: to,
-        title: { display: true, text: 'Wavelength / nm', font: { size: 15 } },
+        title: { display: true, text: 'Wavelength / nm', font: { size: STYLE.axisTitleSize } },
         afterBuildTicks: (axis: Scale) => {
           axis.ticks = wavelengthTicks(from, to).map((nm) => ({ value: 1e7 / nm }));
         },
         ticks: {
-          font: { size: 13 },
+          font: { size: STYLE.tickSize },
           callback: (v) => String(Math.round(cmToNm(Number(v)))),
           maxRotation: 0,
         },
@@ -254,25 +270,18 @@ function spectrumOptions(
       y: {
         min: y.yMin,
         max: y.yMax,
-        title: { display: true, text: quantityTitle(input.quantity), font: { size: 15 } },
-        ticks: { font: { size: 13 } },
-        grid: { color: '#ececec' },
+        title: { display: true, text: quantityTitle(input.quantity), font: { size: STYLE.axisTitleSize } },
+        ticks: {
+          font: { size: STYLE.tickSize },
+          callback(v) {
+            return tickText(Number(v), this.chart.scales.y?.ticks ?? []);
+          },
+        },
+        grid: { display: false },
         border: { color: INK },
       },
     },
-    plugins: {
-      legend: {
-        position: 'bottom',
-        labels: {
-          font: { size: 12 },
-          boxWidth: 26,
-          boxHeight: 0,
-          filter: (item) => item.text !== '',
-          sort: (a, b) => (a.datasetIndex ?? 0) - (b.datasetIndex ?? 0),
-        },
-      },
-      tooltip: { enabled: false },
-    },
+    plugins: { legend: { display: false }, tooltip: { enabled: false } },
   };
 }
 
@@ -284,9 +293,9 @@ export function spectrumChart(input: SpectrumFigureInput): ChartConfiguration {
   const transitions = (input.transitions ?? []).filter((t) => t.energy >= from && t.energy <= to);
   return {
     type: 'scatter',
-    data: { datasets: spectrumDatasets(input, drawn, curves, transitions) },
+    data: { datasets: spectrumDatasets(input, drawn, curves) },
     options: spectrumOptions(input, yRange(input, drawn, curves, transitions.length > 0)),
-    plugins: [marksPlugin(transitions, bandNumbers(input))],
+    plugins: [marksPlugin(transitions, bandNumbers(input)), keyPlugin(keyRows(input, transitions))],
   };
 }
 
@@ -310,31 +319,15 @@ function line(
   };
 }
 
-interface LabelRun {
-  readonly text: string;
-  readonly size: number;
-  /** Vertical shift in px: negative raises (superscript), positive lowers (subscript). */
-  readonly shift: number;
-}
-
-/** The typeset pieces of a state label: ⁴T₁g(F) as 4 raised, T, 1g lowered, (F). */
-function labelRuns(label: string, size: number): LabelRun[] {
-  const p = parseStateLabel(label);
-  if (!p) return [{ text: label, size, shift: 0 }];
-  const small = Math.round(size * 0.7);
-  const runs: LabelRun[] = [
-    { text: p.multiplicity, size: small, shift: -size * 0.38 },
-    { text: p.letter, size, shift: 0 },
-  ];
-  if (p.index + p.parity !== '') runs.push({ text: p.index + p.parity, size: small, shift: size * 0.25 });
-  if (p.parent !== '') runs.push({ text: `(${p.parent})`, size: Math.round(size * 0.85), shift: 0 });
-  return runs;
-}
+/** Labels of the predicted transitions: spin-allowed at the labels' size, spin-forbidden smaller. */
+const ALLOWED_MARK: TextStyle = { size: STYLE.labelSize, color: STYLE.allowed };
+const FORBIDDEN_MARK: TextStyle = { size: STYLE.smallSize - 1, color: STYLE.forbiddenText };
 
 /**
- * Draws the predicted transitions (vertical marks with typeset labels in rows at the top,
- * spin-allowed first, a label dropped when no row has room) and the numbers of the fitted
- * bands at their maxima.
+ * Draws the predicted transitions and the numbers of the fitted bands at their maxima. Each
+ * label goes in the first of the rows at the top where it has room (spin-allowed first, in rows
+ * 0–2; spin-forbidden in rows 1–3), or is dropped; each mark's line starts under its own label
+ * (or under the rows, if the label was dropped), so no line runs through a label.
  */
 function marksPlugin(
   transitions: readonly PredictedTransition[],
@@ -343,62 +336,86 @@ function marksPlugin(
   return {
     id: 'termsplitSpectrumMarks',
     afterDatasetsDraw(chart) {
-      const { ctx, chartArea } = chart;
+      const ctx = chartContext(chart);
+      const { chartArea } = chart;
       const xs = chart.scales.x as Scale;
       const ys = chart.scales.y as Scale;
-      ctx.save();
-      ctx.textBaseline = 'alphabetic';
+      const rowHeight = runsHeight(ALLOWED_MARK) + 2;
       const ordered = [...transitions].sort((a, b) => Number(b.spinAllowed) - Number(a.spinAllowed));
-      for (const t of ordered) {
-        const x = xs.getPixelForValue(t.energy);
-        ctx.beginPath();
-        ctx.strokeStyle = t.spinAllowed ? ALLOWED_COLOUR : FORBIDDEN_COLOUR;
-        ctx.lineWidth = t.spinAllowed ? 1.4 : 1;
-        ctx.setLineDash(t.spinAllowed ? [] : [4, 3]);
-        ctx.moveTo(x, chartArea.top + 4);
-        ctx.lineTo(x, chartArea.bottom);
-        ctx.stroke();
-      }
-      ctx.setLineDash([]);
-      const rowHeight = 19;
       const taken: { row: number; left: number; right: number }[] = [];
-      for (const t of ordered) {
-        const size = t.spinAllowed ? 14 : 11;
-        const runs = labelRuns(t.label, size);
-        const width = runs.reduce((w, r) => {
-          ctx.font = `${r.size}px "${FONT_FAMILY}"`;
-          return w + ctx.measureText(r.text).width;
-        }, 0);
+      const labelled = ordered.map((t) => {
+        const style = t.spinAllowed ? ALLOWED_MARK : FORBIDDEN_MARK;
+        const runs = stateRuns(t.label);
+        const width = measureRuns(ctx, runs, style);
         const x = xs.getPixelForValue(t.energy);
         const left = Math.max(chartArea.left + 2, Math.min(chartArea.right - width - 2, x - width / 2));
         const rows = t.spinAllowed ? [0, 1, 2] : [1, 2, 3];
         const row = rows.find((r) =>
           taken.every((o) => o.row !== r || left > o.right + 5 || left + width < o.left - 5),
         );
-        if (row === undefined) continue;
-        taken.push({ row, left, right: left + width });
-        const base = chartArea.top + 6 + rowHeight * (row + 1) - 4;
-        ctx.fillStyle = 'rgba(255,255,255,0.9)';
-        ctx.fillRect(left - 2, base - rowHeight + 5, width + 4, rowHeight - 1);
-        ctx.fillStyle = t.spinAllowed ? ALLOWED_COLOUR : '#6f7780';
-        let cursor = left;
-        for (const r of runs) {
-          ctx.font = `${r.size}px "${FONT_FAMILY}"`;
-          ctx.fillText(r.text, cursor, base + r.shift);
-          cursor += ctx.measureText(r.text).width;
-        }
+        if (row !== undefined) taken.push({ row, left, right: left + width });
+        const middle = chartArea.top + 4 + rowHeight * (row ?? 0) + rowHeight / 2;
+        return { t, x, runs, style, left, row, middle };
+      });
+      const rowsBottom = chartArea.top + 4 + rowHeight * (Math.max(-1, ...taken.map((o) => o.row)) + 1);
+      ctx.save();
+      for (const m of labelled) {
+        ctx.beginPath();
+        ctx.strokeStyle = m.t.spinAllowed ? STYLE.allowed : STYLE.forbidden;
+        ctx.lineWidth = m.t.spinAllowed ? 1.4 : 1;
+        ctx.setLineDash(m.t.spinAllowed ? [] : [...STYLE.forbiddenDash]);
+        ctx.moveTo(m.x, m.row === undefined ? rowsBottom : m.middle + rowHeight / 2 - 1);
+        ctx.lineTo(m.x, chartArea.bottom);
+        ctx.stroke();
       }
-      ctx.fillStyle = INK;
-      ctx.font = `bold 12px "${FONT_FAMILY}"`;
-      ctx.textAlign = 'center';
-      const marks = transitions.map((t) => xs.getPixelForValue(t.energy));
+      ctx.restore();
+      ctx.save();
+      // The frame: chart.js draws only the axes' own edges.
+      ctx.strokeStyle = STYLE.ink;
+      ctx.lineWidth = STYLE.frameWidth;
+      ctx.strokeRect(
+        chartArea.left,
+        chartArea.top,
+        chartArea.right - chartArea.left,
+        chartArea.bottom - chartArea.top,
+      );
+      // A white ground under each label hides the lines of the marks next to it.
+      ctx.fillStyle = '#ffffff';
+      for (const m of labelled) {
+        if (m.row === undefined) continue;
+        const w = measureRuns(ctx, m.runs, m.style);
+        ctx.fillRect(m.left - 2, m.middle - rowHeight / 2 + 1, w + 4, rowHeight - 2);
+      }
+      ctx.restore();
+      for (const m of labelled) if (m.row !== undefined) drawRuns(ctx, m.runs, m.left, m.middle, m.style);
+      const marks = labelled.map((m) => m.x);
+      const numberStyle: TextStyle = { size: STYLE.smallSize, color: STYLE.ink, bold: true, halo: true };
       for (const n of numbers) {
         const x = xs.getPixelForValue(n.x);
         // Beside a transition mark that runs through the maximum, the number moves right of it.
         const shift = marks.some((m) => Math.abs(m - x) < 8) ? 10 : 0;
-        ctx.fillText(String(n.number), x + shift, ys.getPixelForValue(n.y) - 6);
+        drawRuns(
+          ctx,
+          [{ text: String(n.number), shift: 'base' }],
+          x + shift,
+          ys.getPixelForValue(n.y) - 12,
+          numberStyle,
+          'center',
+        );
       }
-      ctx.restore();
+    },
+  };
+}
+
+/** The key, in rows under the plot, right-aligned with it. */
+function keyPlugin(rows: readonly (readonly KeyItem[])[]): Plugin {
+  return {
+    id: 'termsplitSpectrumKey',
+    afterDraw(chart) {
+      const ctx = chartContext(chart);
+      rows.forEach((row, k) => {
+        drawKey(ctx, row, chart.chartArea.right, chart.height - KEY_ROOM + 10 + 18 * k);
+      });
     },
   };
 }

@@ -150,3 +150,57 @@ export function drawRuns(
 export function ionMarkup(name: string): string {
   return name.replace(/^([A-Z][a-z]?)(\d[+-])$/, '$1^$2');
 }
+
+/**
+ * Runs of a chemical formula: counts lowered, the charge raised with a true minus sign —
+ * `[Ni(ors)6]4-` → [Ni(ors), 6 lowered, ], 4− raised; `Cr3+` → Cr, 3+ raised. Text that does not
+ * look like a formula — with spaces, starting with a digit (a state label such as 4T1g), or with
+ * neither a square bracket nor a final charge (`sample A1`, `d6`) — stays plain.
+ */
+export function formulaRuns(text: string): TextRun[] {
+  const charge = /^(.*[A-Za-z)\]])(\d*[+-])$/.exec(text);
+  const body = charge ? (charge[1] ?? '') : text;
+  if (/\s|^\d/.test(text) || (!charge && !text.includes('['))) return [{ text, shift: 'base' }];
+  const runs: TextRun[] = [];
+  for (const m of body.matchAll(/(?<=[A-Za-z)\]])\d+|[^\d]+|\d+/g)) {
+    const isCount = /^\d+$/.test(m[0]) && m.index > 0;
+    runs.push({ text: m[0], shift: isCount ? 'sub' : 'base' });
+  }
+  if (charge) runs.push({ text: (charge[2] ?? '').replace('-', '\u2212'), shift: 'sup' });
+  return runs;
+}
+
+/** A formula as HTML: counts in <sub>, the charge in <sup> (see {@link formulaRuns}); text escaped. */
+export function formulaHtml(text: string): string {
+  const escaped = (s: string) =>
+    s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
+  return formulaRuns(text)
+    .map((r) => (r.shift === 'base' ? escaped(r.text) : `<${r.shift}>${escaped(r.text)}</${r.shift}>`))
+    .join('');
+}
+
+/** Text as HTML with every formula in it typeset (word by word; trailing , ; : . kept outside). */
+export function formulaTextHtml(text: string): string {
+  return text
+    .split(/(\s+)/)
+    .map((word) => {
+      const m = /^(.*?)([,;:.]*)$/.exec(word);
+      return formulaHtml(m?.[1] ?? word) + formulaHtml(m?.[2] ?? '');
+    })
+    .join('');
+}
+
+/**
+ * A style whose size is cut, down to 70 %, until `runs` fit in `width` px: titles of narrow
+ * (one-column) figures stay whole instead of running off the edge.
+ */
+export function fitted(
+  ctx: SKRSContext2D,
+  runs: readonly TextRun[],
+  style: TextStyle,
+  width: number,
+): TextStyle {
+  const natural = measureRuns(ctx, runs, style);
+  if (natural <= width) return style;
+  return { ...style, size: Math.max(0.7 * style.size, (style.size * width) / natural) };
+}

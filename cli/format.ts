@@ -2,8 +2,12 @@
  * Plain-text tables and number formats for human output, and rounded JSON text for --json.
  */
 
+import { unicodeConfiguration, unicodeIon } from '../src/field/labels.js';
+
 /** Right-aligns numeric-looking cells, left-aligns the rest; columns separated by two spaces. */
-export function table(headers: readonly string[], rows: readonly (readonly string[])[]): string {
+export function table(headers: readonly string[], givenRows: readonly (readonly string[])[]): string {
+  // Human tables print negative numbers with the minus sign, as the text around them does.
+  const rows = givenRows.map((r) => r.map((c) => c.replace(/(^|[\s(])-(?=\d)/g, '$1−')));
   const widths = headers.map((h, i) => Math.max(width(h), ...rows.map((r) => width(r[i] ?? ''))));
   const numeric = headers.map(
     (_, i) => rows.length > 0 && rows.every((r) => /^[-+−]?[\d.,]+%?$|^—$|^$/.test(r[i] ?? '')),
@@ -59,4 +63,15 @@ export function jsonText(value: unknown): string {
 /** A titled list for human output — a blank line, the title, then `  - item` lines — or nothing when empty. */
 export function listSection(title: string, items: readonly string[]): string[] {
   return items.length === 0 ? [] : ['', title, ...items.map((i) => `  - ${i}`)];
+}
+
+/** dⁿ with the ion in front when there is one, in Unicode as all text output writes them: `Cr³⁺ d³`. */
+export function ionText(ion: string | undefined, n: number): string {
+  const d = unicodeConfiguration(`d^${n}`);
+  return ion === undefined ? d : `${unicodeIon(ion)} ${d}`;
+}
+
+/** Ion names inside a phrase written in Unicode (`free-ion ratio of Cr3+` → `… of Cr³⁺`). */
+export function unicodeIons(text: string): string {
+  return text.replace(/\b[A-Z][a-z]?\d+[+-](?=[\s;:,)]|$)/g, (ion) => unicodeIon(ion));
 }

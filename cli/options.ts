@@ -4,6 +4,7 @@
  * once into typed values; the help texts of shared options are built from the named defaults.
  */
 
+import { DEFAULT_PRESET_DPI, FIGURE_SIZES, type FigureOptions, type FigureSize } from '../charts/render.js';
 import { DEFAULT_C_OVER_B, DEFAULT_GEOMETRY } from '../src/core/defaults.js';
 import {
   B_LIMIT,
@@ -12,6 +13,7 @@ import {
   COMPLEX_B_LIMIT,
   checkLimit,
   DELTA_OVER_B_LIMIT,
+  DPI_LIMIT,
   DQ_LIMIT,
   type Limit,
   limitText,
@@ -247,4 +249,49 @@ export function levelsFromOptions(opts: LevelOptions): SolvedLevels {
     cOrigin: single ? SINGLE_ELECTRON_ORIGIN : ratio.origin,
     ...(choice.ion ? { ion: choice.ion.ion } : {}),
   };
+}
+
+/** `--size`: a figure for one or two journal columns. */
+export const SIZE_OPTION = [
+  '--size <columns>',
+  'figure width for a journal: one-column (85 mm) or two-column (175 mm)',
+] as const;
+
+/** `--dpi`: resolution of a PNG figure. */
+export const DPI_OPTION = [
+  '--dpi <n>',
+  `PNG resolution in pixels per inch (default ${DEFAULT_PRESET_DPI} with --size, else 192)`,
+] as const;
+
+/** The size preset and PNG resolution of `--size` and `--dpi`. */
+export function figureSizeOptions(opts: {
+  size?: string;
+  dpi?: string;
+}): Pick<FigureOptions, 'size' | 'dpi'> {
+  const size = opts.size?.trim();
+  if (size !== undefined && !(size in FIGURE_SIZES)) {
+    throw new InputError(`--size "${opts.size}": expected ${Object.keys(FIGURE_SIZES).join(' or ')}`);
+  }
+  const dpi = numberOption('--dpi', opts.dpi, DPI_LIMIT);
+  return {
+    ...(size !== undefined ? { size: size as FigureSize } : {}),
+    ...(dpi !== undefined ? { dpi } : {}),
+  };
+}
+
+/** A range `from:to` of two increasing numbers (for zooming a figure), or undefined. */
+export function rangeOption(name: string, text: string | undefined): readonly [number, number] | undefined {
+  if (text === undefined) return undefined;
+  const parts = text.split(':').map((p) => Number(p.trim()));
+  const [from, to] = parts;
+  if (
+    parts.length !== 2 ||
+    from === undefined ||
+    to === undefined ||
+    !(Number.isFinite(from) && Number.isFinite(to)) ||
+    !(to > from) ||
+    from < 0
+  )
+    throw new InputError(`${name} "${text}": expected from:to, two increasing numbers ≥ 0, e.g. 10:30`);
+  return [from, to];
 }

@@ -49,7 +49,7 @@ import {
   unicodeLabel,
 } from '../../src/index.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
-import { fixed, jsonText, table } from '../format.js';
+import { fixed, ionText, jsonText, table, unicodeIons } from '../format.js';
 import { type Io, progress } from '../io.js';
 import {
   cbHelp,
@@ -501,11 +501,11 @@ function headerLines(r: Report): string[] {
   const where = input.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
   const sigmaB = input.sigmaB !== undefined ? ` ± ${fixed(input.sigmaB)}` : '';
   const lines = [
-    `${ion ? `${ion.ion} ` : ''}d${n}, ${where}` +
+    `${ionText(ion?.ion, n)}, ${where}` +
       (n === 1 || n === 9
         ? ''
-        : `: B = ${fixed(B)}${sigmaB} cm⁻¹ (${input.bOrigin}), C = ${fixed(C)} cm⁻¹ ` +
-          `(C/B = ${fixed(C / B, 2)}, ${input.cOrigin})`),
+        : `: B = ${fixed(B)}${sigmaB} cm⁻¹ (${unicodeIons(input.bOrigin)}), C = ${fixed(C)} cm⁻¹ ` +
+          `(C/B = ${fixed(C / B, 2)}, ${unicodeIons(input.cOrigin)})`),
   ];
   if (input.bOrigin.startsWith('free-ion') && analysis.crossings.length > 0) {
     lines.push(
@@ -598,12 +598,12 @@ function oneElectronLines(r: Report): string[] {
   const lfseHeader = verdict ? 'LFSE at sample / cm⁻¹' : hsToLs ? 'LFSE at Dq_c / cm⁻¹' : 'LFSE / cm⁻¹';
   lines.push(indent(table(['state', 'configuration', 'LFSE', lfseHeader, 'unpaired', 'S'], rows)));
   lines.push(
-    `  LFSE: ${geometry === 'oct' ? 't₂g −4Dq, e_g +6Dq' : 'e −6Dq, t₂ +4Dq (Dq of the tetrahedron)'}; ` +
+    `  LFSE: ${geometry === 'oct' ? 't₂g −4Dq, eg +6Dq' : 'e −6Dq, t₂ +4Dq (Dq of the tetrahedron)'}; ` +
       'Π counts the pairs beyond the high-spin arrangement.',
   );
   if (!ls) {
     lines.push(
-      `  d${n} ${geometry === 'oct' ? 'octahedral' : 'tetrahedral'}: one arrangement only, no choice of spin.`,
+      `  ${ionText(undefined, n)} ${geometry === 'oct' ? 'octahedral' : 'tetrahedral'}: one arrangement only, no choice of spin.`,
     );
     return lines;
   }

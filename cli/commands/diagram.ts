@@ -6,8 +6,8 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { renderDiagram } from '../../charts/diagram.js';
-import { type FigureFormat, formatOfPath } from '../../charts/render.js';
+import { type DiagramChartOptions, renderDiagram } from '../../charts/diagram.js';
+import { type FigureFormat, type FigureOptions, formatOfPath } from '../../charts/render.js';
 import { type SampleMark, samplePosition } from '../../charts/sampleOverlay.js';
 import { DEFAULT_SWEEP_STEPS } from '../../src/analysis/distortionSweep.js';
 import {
@@ -22,6 +22,7 @@ import {
   DELTA_OVER_B_LIMIT,
   DQ_LIMIT,
   ENERGY_OVER_B_LIMIT,
+  LABEL_COUNT_LIMIT,
   POINTS_LIMIT,
   positive,
 } from '../../src/core/limits.js';
@@ -46,10 +47,14 @@ import { type Io, progress } from '../io.js';
 import {
   cbHelp,
   configOrIon,
+  DPI_OPTION,
+  figureSizeOptions,
   GEOMETRY_OPTION,
   geometryOption,
   numberOption,
+  rangeOption,
   ratioChoice,
+  SIZE_OPTION,
 } from '../options.js';
 import { ZETA_FACTOR_HELP, zetaOption } from '../zetaOption.js';
 
@@ -62,6 +67,11 @@ export interface DiagramOptions {
   max?: string;
   points?: string;
   emax?: string;
+  dbRange?: string;
+  ebRange?: string;
+  forbidden?: string;
+  size?: string;
+  dpi?: string;
   output?: string;
   data?: string;
   dq?: string;
@@ -87,6 +97,14 @@ export function registerDiagram(program: Command, io: Io): void {
     .option('--max <Δ/B>', 'largest Δ/B', String(DEFAULT_MAX_DELTA_OVER_B))
     .option('--points <n>', 'number of Δ/B values from 0 to --max', String(DEFAULT_SWEEP_POINTS))
     .option('--emax <E/B>', 'top of the E/B axis (default: fitted to the curves, at most 2 × --max)')
+    .option('--db-range <from:to>', 'draw only this Δ/B range, e.g. 15:25 to zoom in around a sample')
+    .option('--eb-range <from:to>', 'draw only this E/B range (instead of --emax)')
+    .option(
+      '--forbidden <n>',
+      'draw only the n lowest spin-forbidden curves (at the sample, else the right edge)',
+    )
+    .option(...SIZE_OPTION)
+    .option(...DPI_OPTION)
     .option('-o, --output <file>', 'figure file, .png, .svg or .pdf (default: d<n>-<geometry>.png here)')
     .option('--data <file>', 'also write the curves as .csv or .json')
     .option('--dq <cm-1>', 'mark a sample: its Dq (10Dq = Δ), with --B')
@@ -163,6 +181,9 @@ interface DiagramJob {
   readonly maxDeltaOverB: number;
   readonly points: number;
   readonly eMax?: number;
+  /** What the figure draws: ranges, spin-forbidden curves, size. */
+  readonly view: Pick<DiagramChartOptions, 'deltaRange' | 'eRange' | 'forbidden'>;
+  readonly figureSize: Pick<FigureOptions, 'size' | 'dpi'>;
   readonly sample?: Sample;
   readonly figurePath?: string;
   readonly figureFormat?: FigureFormat;
@@ -183,6 +204,9 @@ function diagramJob(configText: string | undefined, opts: DiagramOptions, io: Io
   const maxDeltaOverB = numberOption('--max', opts.max, DELTA_OVER_B_LIMIT) ?? DEFAULT_MAX_DELTA_OVER_B;
   const points = numberOption('--points', opts.points, POINTS_LIMIT) ?? DEFAULT_SWEEP_POINTS;
   const eMax = numberOption('--emax', opts.emax, ENERGY_OVER_B_LIMIT);
+  const deltaRange = rangeOption('--db-range', opts.dbRange);
+  const eRange = rangeOption('--eb-range', opts.ebRange);
+  const forbidden = numberOption('--forbidden', opts.forbidden, LABEL_COUNT_LIMIT);
   if (sample && sample.deltaOverB > maxDeltaOverB) {
     throw new InputError(
       `the sample's Δ/B = 10Dq/B = ${fixed(sample.deltaOverB, 2)} lies beyond --max ${maxDeltaOverB}: raise --max`,
@@ -204,6 +228,12 @@ function diagramJob(configText: string | undefined, opts: DiagramOptions, io: Io
     maxDeltaOverB,
     points,
     ...(eMax !== undefined ? { eMax } : {}),
+    view: {
+      ...(deltaRange ? { deltaRange } : {}),
+      ...(eRange ? { eRange } : {}),
+      ...(forbidden !== undefined ? { forbidden } : {}),
+    },
+    figureSize: figureSizeOptions(opts),
     ...(sample ? { sample } : {}),
     ...(spinOrbit ? { spinOrbit } : {}),
     ...(figurePath !== undefined
@@ -263,11 +293,12 @@ function diagramFiles(
     const options = {
       ...(ion ? { ion: ion.ion } : {}),
       ...(eMax !== undefined ? { eMax } : {}),
+      ...job.view,
       ...(sample ? { sample: { dq: sample.dq, B: sample.B, bands: sample.bands ?? [] } } : {}),
     };
     outputs.push({
       path: job.figurePath,
-      data: renderDiagram(diagram, { format: job.figureFormat }, options),
+      data: renderDiagram(diagram, { format: job.figureFormat, ...job.figureSize }, options),
     });
   }
   if (job.dataPath !== undefined) {

@@ -19,11 +19,14 @@ import { jsonText } from '../format.js';
 import { type Io, progress } from '../io.js';
 import {
   cbHelp,
+  DPI_OPTION,
+  figureSizeOptions,
   GEOMETRY_OPTION,
   geometryOption,
   ionOrCount,
   numberOption,
   ratioChoice,
+  SIZE_OPTION,
   spinStateOption,
   splitLabels,
 } from '../options.js';
@@ -47,6 +50,8 @@ export interface FitOptions {
   spinState?: string;
   B?: string;
   diagram?: string;
+  size?: string;
+  dpi?: string;
   zeta?: string;
   zetaFactor?: string;
   json?: boolean;
@@ -103,6 +108,8 @@ export function registerFit(program: Command, io: Io): void {
       'then refine the best solution with spin–orbit coupling, ζ held (cm⁻¹, or "ion" for the free-ion value)',
     )
     .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
+    .option(...SIZE_OPTION)
+    .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout');
   addFieldOptions(command).action((opts: FitOptions & DistortedFitOptions) => {
     if (hasFieldOptions(opts)) {
@@ -177,6 +184,7 @@ function fitCommand(opts: FitOptions, io: Io): string {
   const diagramPath = opts.diagram === undefined ? undefined : resolve(io.cwd, opts.diagram);
   const diagramFormat = opts.diagram === undefined ? undefined : formatOfPath(opts.diagram);
   if (diagramPath !== undefined) checkOutputDirectory(diagramPath);
+  const size = figureSizeOptions(opts);
   const bar = progress(io, 'fitting');
   let fitted: ReturnType<typeof fitFromOptions>;
   try {
@@ -189,7 +197,7 @@ function fitCommand(opts: FitOptions, io: Io): string {
   const zeta = zetaOption(opts.zeta, opts.zetaFactor, opts.ion === undefined ? undefined : findIon(opts.ion));
   const spinOrbit = zeta === undefined || !best ? undefined : refineBest(result, best, zeta);
   if (diagramPath !== undefined && diagramFormat !== undefined && best) {
-    writeFileAtomic(diagramPath, fittedDiagram(result, best, diagramFormat, ion));
+    writeFileAtomic(diagramPath, fittedDiagram(result, best, diagramFormat, ion, size));
   }
   const figureNote =
     diagramPath !== undefined && best

@@ -6,11 +6,17 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { renderLevelDiagram } from '../../charts/levelDiagram.js';
+import {
+  DEFAULT_LEVEL_CEILING,
+  DEFAULT_LEVEL_FORBIDDEN,
+  type LevelDiagramOptions,
+  renderLevelDiagram,
+} from '../../charts/levelDiagram.js';
 import { formatOfPath } from '../../charts/render.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
 import { elementOfIon } from '../../src/core/ions.js';
+import { ENERGY_LIMIT, LABEL_COUNT_LIMIT } from '../../src/core/limits.js';
 import { unicodeConfiguration, unicodeTerm } from '../../src/field/labels.js';
 import { type SpinOrbitResult, solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
 import {
@@ -25,14 +31,18 @@ import {
 import { distortedLevels } from '../distorted.js';
 import { addFieldOptions, type FieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFileAtomic } from '../files.js';
-import { fixed, jsonText, listSection, table } from '../format.js';
+import { fixed, ionText, jsonText, listSection, table, unicodeIons } from '../format.js';
 import type { Io } from '../io.js';
 import {
   cbHelp,
+  DPI_OPTION,
+  figureSizeOptions,
   GEOMETRY_OPTION,
   type LevelOptions,
   levelsFromOptions,
+  numberOption,
   SINGLE_ELECTRON_ORIGIN,
+  SIZE_OPTION,
   type SolvedLevels,
 } from '../options.js';
 import { levelJson } from '../present/levelPresent.js';
@@ -41,6 +51,10 @@ import { ZETA_FACTOR_HELP, ZETA_HELP, zetaOption } from '../zetaOption.js';
 
 /** Options of `termsplit levels`. */
 export interface LevelsOptions extends LevelOptions {
+  emax?: string;
+  forbidden?: string;
+  size?: string;
+  dpi?: string;
   zeta?: string;
   zetaFactor?: string;
   output?: string;
@@ -64,6 +78,16 @@ export function registerLevels(program: Command, io: Io): void {
     .option('--zeta <cm-1|ion>', ZETA_HELP)
     .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('-o, --output <file>', 'also draw the energy-level diagram, free ion → field: .png, .svg or .pdf')
+    .option(
+      '--emax <cm-1>',
+      `top of the level diagram, cm⁻¹ above the ground level (default ${DEFAULT_LEVEL_CEILING})`,
+    )
+    .option(
+      '--forbidden <n>',
+      `spin-forbidden levels in the diagram, the lowest (default ${DEFAULT_LEVEL_FORBIDDEN})`,
+    )
+    .option(...SIZE_OPTION)
+    .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout');
   addFieldOptions(command).action((opts: LevelsOptions & FieldOptions) => {
     if (hasFieldOptions(opts)) {
@@ -78,11 +102,24 @@ export function registerLevels(program: Command, io: Io): void {
     const solved = levelsFromOptions(opts);
     const spinOrbit = spinOrbitFromOptions(opts, solved);
     if (figure !== undefined && format !== undefined) {
-      const options = solved.ion ? { ion: solved.ion } : {};
-      writeFileAtomic(figure, renderLevelDiagram(solved.result, { format }, options));
+      writeFileAtomic(
+        figure,
+        renderLevelDiagram(solved.result, { format, ...figureSizeOptions(opts) }, levelFigure(opts, solved)),
+      );
     }
     io.out(levelsText(opts, solved, figure, spinOrbit));
   });
+}
+
+/** The level diagram's options from --emax and --forbidden. */
+function levelFigure(opts: LevelsOptions, solved: SolvedLevels): LevelDiagramOptions {
+  const eMax = numberOption('--emax', opts.emax, ENERGY_LIMIT);
+  const forbidden = numberOption('--forbidden', opts.forbidden, LABEL_COUNT_LIMIT);
+  return {
+    ...(solved.ion ? { ion: solved.ion } : {}),
+    ...(eMax !== undefined ? { eMax } : {}),
+    ...(forbidden !== undefined ? { forbidden } : {}),
+  };
 }
 
 /** The levels with spin–orbit coupling when `--zeta` is given, at the same Dq, B and C. */
@@ -124,8 +161,8 @@ function levelsText(
   const lines: string[] = [];
   const geometryName = result.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
   lines.push(
-    `${ion ? `${ion} ` : ''}d${result.n}, ${geometryName}: Dq = ${fixed(result.dq)} cm⁻¹ (10Dq = ${fixed(10 * result.dq)}), ` +
-      `B = ${fixed(result.B)} cm⁻¹, C = ${fixed(result.C)} cm⁻¹ (${cOrigin === SINGLE_ELECTRON_ORIGIN ? cOrigin : `C/B ${fixed(result.C / result.B, 2)}, ${cOrigin}`})`,
+    `${ionText(ion, result.n)}, ${geometryName}: Dq = ${fixed(result.dq)} cm⁻¹ (10Dq = ${fixed(10 * result.dq)}), ` +
+      `B = ${fixed(result.B)} cm⁻¹, C = ${fixed(result.C)} cm⁻¹ (${cOrigin === SINGLE_ELECTRON_ORIGIN ? cOrigin : `C/B ${fixed(result.C / result.B, 2)}, ${unicodeIons(cOrigin)}`})`,
   );
   lines.push(
     `Ground state: ${unicodeLabel(g.label)} (S = ${halfIntegerText(g.S)}), from ${unicodeTerm(g.parent)}, ` +

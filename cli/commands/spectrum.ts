@@ -31,15 +31,18 @@ import {
 import { DEFAULT_X_COLUMN, DEFAULT_Y_COLUMN } from '../../src/spectra/spectrumText.js';
 import { parseXUnit, parseYUnit, X_UNIT_NAMES, Y_UNIT_NAMES } from '../../src/spectra/spectrumUnits.js';
 import { readTextFile, writeFileAtomic } from '../files.js';
-import { fixed, jsonText, table } from '../format.js';
+import { fixed, ionText, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 import {
+  DPI_OPTION,
+  figureSizeOptions,
   GEOMETRY_OPTION,
   geometryOption,
   ionOrCount,
   levelsFromOptions,
   numberOption,
   ratioChoice,
+  SIZE_OPTION,
   type SolvedLevels,
   spinStateOption,
 } from '../options.js';
@@ -72,6 +75,8 @@ export interface SpectrumOptions {
   minWidth?: string;
   baseline?: string;
   output?: string;
+  size?: string;
+  dpi?: string;
   json?: boolean;
 }
 
@@ -109,6 +114,8 @@ export function registerSpectrum(program: Command, io: Io): void {
     .option('--min-width <cm-1>', 'narrowest band (FWHM) looked for', String(DEFAULT_MIN_FWHM))
     .option('--baseline <kind>', 'baseline fitted with the bands: none, constant or linear', DEFAULT_BASELINE)
     .option('-o, --output <file>', 'write the overlay figure (.png, .svg or .pdf)')
+    .option(...SIZE_OPTION)
+    .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout')
     .action((file: string, opts: SpectrumOptions) => {
       io.out(spectrumCommand(file, opts, io));
@@ -127,6 +134,7 @@ export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): st
   const job = spectrumJob(opts);
   const outPath = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
   const format = outPath === undefined ? undefined : formatOfPath(outPath);
+  const size = figureSizeOptions(opts);
   const text = readTextFile(resolve(io.cwd, file));
   const report: SpectrumReport = {
     file,
@@ -135,7 +143,7 @@ export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): st
     ...(opts.output !== undefined ? { figure: opts.output } : {}),
   };
   if (outPath !== undefined && format !== undefined) {
-    writeFileAtomic(outPath, spectrumFigure(report, `termsplit spectrum ${file}`, format));
+    writeFileAtomic(outPath, spectrumFigure(report, `termsplit spectrum ${file}`, format, size));
   }
   return opts.json ? jsonText(reportJson(report)) : reportText(report, opts);
 }
@@ -403,7 +411,7 @@ function predictedLines(r: SpectrumReport): string[] {
     const { result, cOrigin, ion } = r.predicted;
     lines.push('');
     lines.push(
-      `Predicted transitions, ${ion ?? `d${result.n}`} ${result.geometry === 'oct' ? 'octahedral' : 'tetrahedral'}, ` +
+      `Predicted transitions, ${ionText(ion, result.n)} ${result.geometry === 'oct' ? 'octahedral' : 'tetrahedral'}, ` +
         `Dq = ${fixed(result.dq)}, B = ${fixed(result.B)}, C = ${fixed(result.C)} cm⁻¹ (C: ${cOrigin}), ` +
         `from ${unicodeLabel(result.ground.label)}, inside the window:`,
     );

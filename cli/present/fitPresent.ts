@@ -7,6 +7,7 @@
 
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
+import { unicodeIon } from '../../src/field/labels.js';
 import type { FitWarningCode } from '../../src/fit/fitWarnings.js';
 import {
   cmToNm,
@@ -16,7 +17,7 @@ import {
   type SpinHypothesis,
   unicodeLabel,
 } from '../../src/index.js';
-import { fixed, listSection, table } from '../format.js';
+import { fixed, ionText, listSection, table, unicodeIons } from '../format.js';
 
 /** Whether only Dq was fitted because there is no B (d¹, d⁹). */
 function single(s: FitSolution): boolean {
@@ -185,17 +186,17 @@ function fitHeaderLines(
     .map((b) => `${fixed(b.energy)}${b.sigma === undefined ? '' : `±${fixed(b.sigma)}`}`)
     .join(', ');
   lines.push(
-    `Fit of ${ion ? `${ion} (d${result.n})` : `d${result.n}`}, ${geometryName}, to ${result.bands.length} band${result.bands.length === 1 ? '' : 's'}: ${bandList} cm⁻¹`,
+    `Fit of ${ionText(ion, result.n)}, ${geometryName}, to ${result.bands.length} band${result.bands.length === 1 ? '' : 's'}: ${bandList} cm⁻¹`,
   );
   const cLine = single(best)
     ? 'only Dq enters (one d electron or hole)'
     : best.bHeld
-      ? `B held at ${fixed(best.B)} cm⁻¹ (given) and C/B at ${fixed(result.cOverB, 2)} (${cOrigin}); only Dq fitted`
+      ? `B held at ${fixed(best.B)} cm⁻¹ (given) and C/B at ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)}); only Dq fitted`
       : result.fitC && best.cFitted
-        ? `C fitted${result.cChoice === 'bands-determine-it' ? ' because the bands fix it' : ''}, starting from C/B ${fixed(result.cOverB, 2)} (${cOrigin})`
+        ? `C fitted${result.cChoice === 'bands-determine-it' ? ' because the bands fix it' : ''}, starting from C/B ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)})`
         : result.fitC
-          ? `C asked to be fitted, but no assigned band depends on it: held at C/B ${fixed(result.cOverB, 2)} (${cOrigin})`
-          : `C/B held at ${fixed(result.cOverB, 2)} (${cOrigin})`;
+          ? `C asked to be fitted, but no assigned band depends on it: held at C/B ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)})`
+          : `C/B held at ${fixed(result.cOverB, 2)} (${unicodeIons(cOrigin)})`;
   lines.push(
     `${cLine}; bands weighted ${result.weighting === 'given' ? 'by their given uncertainties' : 'equally (no uncertainties given)'}`,
   );
@@ -230,7 +231,7 @@ function bestLines(result: FitResult, best: FitSolution, ion: string | undefined
     );
     if (best.beta !== null && result.freeIon) {
       lines.push(
-        `  β    = ${withError(best.beta, e.beta, 3)}   (B / free-ion B = ${fixed(result.freeIon.B)} cm⁻¹ of ${ion ?? 'the ion'})`,
+        `  β    = ${withError(best.beta, e.beta, 3)}   (B / free-ion B = ${fixed(result.freeIon.B)} cm⁻¹ of ${ion ? unicodeIon(ion) : 'the ion'})`,
       );
       if (result.freeIon.source) lines.push(`         free-ion B: ${result.freeIon.source}`);
     }

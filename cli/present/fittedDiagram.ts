@@ -4,7 +4,7 @@
  */
 
 import { renderDiagram } from '../../charts/diagram.js';
-import type { FigureFormat } from '../../charts/render.js';
+import type { FigureFormat, FigureOptions } from '../../charts/render.js';
 import { DEFAULT_MAX_DELTA_OVER_B } from '../../src/analysis/sweep.js';
 import { type FitResult, type FitSolution, InputError, sweepDiagram } from '../../src/index.js';
 
@@ -17,6 +17,7 @@ export function fittedDiagram(
   best: FitSolution,
   format: FigureFormat,
   ion?: string,
+  size: Pick<FigureOptions, 'size' | 'dpi'> = {},
 ): Buffer {
   if (best.deltaOverB === null || best.cOverB === null) {
     throw new InputError(`--diagram: a diagram in units of B needs d2 to d8; d${result.n} has no Racah B`);
@@ -25,7 +26,7 @@ export function fittedDiagram(
   const diagram = sweepDiagram(result.n, { geometry: result.geometry, cOverB: best.cOverB, maxDeltaOverB });
   return renderDiagram(
     diagram,
-    { format },
+    { format, ...size },
     {
       sample: { dq: best.dq, B: best.B, bands: result.bands.map((b) => b.energy), label: 'fitted sample' },
       ...(ion ? { ion } : {}),

@@ -3,12 +3,17 @@
  * baseline and the marked transitions — shared by the spectrum command and the report.
  */
 
-import type { FigureFormat } from '../../charts/render.js';
+import type { FigureFormat, FigureOptions } from '../../charts/render.js';
 import { renderSpectrumFigure } from '../../charts/spectrum.js';
 import type { SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
 
 /** The overlay figure of an analysed spectrum, as file bytes. */
-export function spectrumFigure(report: SpectrumAnalysis, title: string, format: FigureFormat): Buffer {
+export function spectrumFigure(
+  report: SpectrumAnalysis,
+  title: string,
+  format: FigureFormat,
+  size: Pick<FigureOptions, 'size' | 'dpi'> = {},
+): Buffer {
   const { spectrum, analysis } = report;
   return renderSpectrumFigure(
     {
@@ -19,6 +24,6 @@ export function spectrumFigure(report: SpectrumAnalysis, title: string, format: 
       baseline: analysis.baseline,
       transitions: report.transitions,
     },
-    { format, title },
+    { format, title, ...size },
   );
 }

@@ -4,6 +4,7 @@
  * server), and each table as CSV.
  */
 
+import { formulaTextHtml } from '../../charts/typeset.js';
 import { csvText } from '../../src/sheets/csv.js';
 import type { Block, TableBlock } from './document.js';
 
@@ -59,6 +60,11 @@ export function toMarkdown(blocks: readonly Block[]): string {
   return `${out.join('\n\n')}\n`;
 }
 
+/** Text as HTML with its formulae typeset, escaped, control characters as spaces. */
+function typesetHtml(text: string): string {
+  return formulaTextHtml(oneLine(text)).replace(/'/g, '&#39;');
+}
+
 /** Escapes text for HTML content and attribute values; control characters become spaces. */
 export function htmlEscape(text: string): string {
   return oneLine(text)
@@ -98,7 +104,7 @@ export function toHtml(blocks: readonly Block[], title: string): string {
     switch (b.kind) {
       case 'heading':
         body.push(
-          `<h${b.level}${b.id ? ` id="${htmlEscape(b.id)}"` : ''}>${htmlEscape(b.text)}</h${b.level}>`,
+          `<h${b.level}${b.id ? ` id="${htmlEscape(b.id)}"` : ''}>${typesetHtml(b.text)}</h${b.level}>`,
         );
         break;
       case 'paragraph':
@@ -112,11 +118,11 @@ export function toHtml(blocks: readonly Block[], title: string): string {
         break;
       case 'table':
         body.push(
-          `<table><thead><tr>${b.headers.map((h) => `<th>${htmlEscape(h)}</th>`).join('')}</tr></thead><tbody>` +
+          `<table><thead><tr>${b.headers.map((h) => `<th>${typesetHtml(h)}</th>`).join('')}</tr></thead><tbody>` +
             b.rows
               .map(
                 (r) =>
-                  `<tr>${r.map((c) => `<td${NUMERIC.test(c) ? ' class="num"' : ''}>${htmlEscape(c)}</td>`).join('')}</tr>`,
+                  `<tr>${r.map((c) => `<td${NUMERIC.test(c) ? ' class="num"' : ''}>${typesetHtml(c)}</td>`).join('')}</tr>`,
               )
               .join('') +
             '</tbody></table>',
@@ -124,7 +130,7 @@ export function toHtml(blocks: readonly Block[], title: string): string {
         break;
       case 'figure':
         body.push(
-          `<figure>${inlineSvg(b.svg, b.caption)}<figcaption>${htmlEscape(b.caption)}</figcaption></figure>`,
+          `<figure>${inlineSvg(b.svg, b.caption)}<figcaption>${typesetHtml(b.caption)}</figcaption></figure>`,
         );
         break;
     }

@@ -108,6 +108,12 @@ export const TOLERANCE_LIMIT: Limit = { what: 'a positive number', min: 0, max: 
 /** A distortion coordinate (ratio, angle or parameter, by the path). */
 export const COORDINATE_LIMIT: Limit = { what: 'a number', min: -50_000, max: 50_000 };
 
+/** How many spin-forbidden curves or levels a figure names. */
+export const LABEL_COUNT_LIMIT: Limit = { what: 'a whole number', min: 0, max: 1_000, integer: true };
+
+/** Resolution of a PNG figure, dots per inch. */
+export const DPI_LIMIT: Limit = { what: 'a number of dots per inch', min: 30, max: 2_400 };
+
 /** A plain decimal number: optional sign, digits with an optional point, optional exponent. */
 const DECIMAL = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 

@@ -9,10 +9,17 @@ import {
   renderDiagram,
 } from '../../charts/diagram.js';
 import { overlaps, spreadLabels } from '../../charts/labelLayout.js';
-import { levelDiagramHeight, renderLevelDiagram } from '../../charts/levelDiagram.js';
+import {
+  DEFAULT_LEVEL_CEILING,
+  DEFAULT_LEVEL_FORBIDDEN,
+  levelDiagramHeight,
+  levelView,
+  renderLevelDiagram,
+} from '../../charts/levelDiagram.js';
 import { renderChart } from '../../charts/render.js';
 import { samplePosition, withSample } from '../../charts/sampleOverlay.js';
 import { type CorrelationDiagram, InputError, solveCubic, sweepDiagram } from '../../src/index.js';
+import { expectClose } from '../helpers.js';
 
 const PNG_SIGNATURE = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
 
@@ -50,7 +57,7 @@ describe('renderDiagram: files', () => {
       { format: 'svg' },
       { sample: { dq: 1900, B: 1050, bands: [16500, 23000] } },
     );
-    expect(svg.length).toBeGreaterThan(50_000);
+    expect(svg.length).toBeGreaterThan(10_000);
     await expectSvg(svg, 900, 650);
   });
 
@@ -182,10 +189,33 @@ describe('renderLevelDiagram: free ion → field', () => {
     expect(pdf.length).toBeGreaterThan(10_000);
   });
 
-  it('grows taller with the number of levels so each label has a line', () => {
+  it('grows taller with the number of levels shown so each label has a line', () => {
     const mn = solveCubic({ n: 5, dq: 1000, B: 800, C: 3600 });
     expect(levelDiagramHeight(cr)).toBe(650);
-    expect(levelDiagramHeight(mn)).toBeGreaterThan(650);
+    expect(levelDiagramHeight(mn, { forbidden: 100, eMax: 1e6 })).toBeGreaterThan(650);
+  });
+
+  it('levelView: both columns on one zero, the ground level in the field', () => {
+    // ⁴A₂g lies 12Dq below ⁴F and ⁵T₂g 4Dq below ⁵D, exactly (neither mixes with another level of
+    // its symbol from a lower term): Lever, Inorganic Electronic Spectroscopy, 2nd ed., 1984 (from memory).
+    const view = levelView(cr);
+    expectClose(view.terms.find((t) => t.name === '4F')?.energy ?? 0, 12 * 1740, 1e-6, 1e-6);
+    const co = solveCubic({ n: 6, dq: 2300, B: 635, C: 3048 });
+    const coView = levelView(co);
+    const t2g = co.levels.find((l) => l.label === '5T2g')?.energy ?? 0;
+    expectClose((coView.terms.find((t) => t.name === '5D')?.energy ?? 0) - t2g, 4 * 2300, 1e-6, 1e-6);
+  });
+
+  it('levelView: every spin-allowed level under the ceiling and the lowest spin-forbidden ones', () => {
+    const co = solveCubic({ n: 6, dq: 2300, B: 635, C: 3048 });
+    const view = levelView(co);
+    expect(view.top).toBeLessThanOrEqual(DEFAULT_LEVEL_CEILING);
+    expect(view.levels.every((l) => l.energy <= DEFAULT_LEVEL_CEILING)).toBe(true);
+    const allowed = co.levels.filter((l) => l.spinAllowed && l.energy <= DEFAULT_LEVEL_CEILING);
+    expect(view.levels.filter((l) => l.spinAllowed)).toEqual(allowed);
+    const forbidden = view.levels.filter((l) => !l.spinAllowed);
+    expect(forbidden).toEqual(co.levels.filter((l) => !l.spinAllowed).slice(0, DEFAULT_LEVEL_FORBIDDEN));
+    expect(() => levelView(co, { forbidden: -1 })).toThrow(InputError);
   });
 });
 

@@ -24,18 +24,17 @@ const input = {
 };
 
 describe('spectrumChart', () => {
-  it('draws the data (reduced to about 4000 points), the fit, each band and the baseline, with legend entries once', () => {
+  it('draws the data (reduced to about 4000 points) as a filled silhouette, the fit, each band and the baseline', () => {
     const config = spectrumChart(input);
     const labels = config.data.datasets.map((d) => d.label);
     expect(labels).toEqual([
-      'Measured',
-      'Fit: bands + baseline',
-      'Fitted Gaussian bands',
-      '',
-      'Baseline',
-      'Predicted, spin-allowed',
-      'Predicted, spin-forbidden',
+      'measured',
+      'fit: bands + baseline',
+      'Gaussian bands',
+      'Gaussian bands',
+      'baseline',
     ]);
+    expect((config.data.datasets[0] as { fill?: unknown }).fill).toBe('origin');
     // xyReduce keeps both end points besides the 4000 it is asked for.
     expect(config.data.datasets[0]?.data.length).toBeLessThanOrEqual(4001);
   });

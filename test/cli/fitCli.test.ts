@@ -21,8 +21,8 @@ describe('termsplit fit (in process)', () => {
     const r = await runFit('--ion', 'Ni2+', '--bands', '8500,13800,25300');
     expect(r.code).toBe(0);
     expect(r.stderr).toBe('');
-    expect(r.stdout).toMatch(/^Fit of Ni2\+ \(d8\), octahedral, to 3 bands/);
-    expect(r.stdout).toMatch(/C\/B held at 4\.46 \(free-ion ratio of Ni2\+\)/);
+    expect(r.stdout).toMatch(/^Fit of Ni²⁺ d⁸, octahedral, to 3 bands/);
+    expect(r.stdout).toMatch(/C\/B held at 4\.46 \(free-ion ratio of Ni²⁺\)/);
     expect(r.stdout).toMatch(/Dq {3}= \d+ ± \d+ cm⁻¹/);
     expect(r.stdout).toMatch(/β {4}= 0\.\d+ ± 0\.\d+/);
     expect(r.stdout).toContain('³T₁g(P)');
