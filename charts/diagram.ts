@@ -17,6 +17,7 @@ import { type SampleMark, samplePosition, withSample } from './sampleOverlay.js'
 import { STYLE } from './style.js';
 import {
   chartContext,
+  drawFrame,
   drawRuns,
   fitted,
   ionMarkup,
@@ -395,11 +396,7 @@ function diagramLabels(diagram: CorrelationDiagram, setting: LabelSetting): Plug
     afterDraw(chart) {
       const ctx = chartContext(chart);
       const area = chart.chartArea;
-      ctx.save();
-      ctx.strokeStyle = STYLE.ink;
-      ctx.lineWidth = STYLE.frameWidth;
-      ctx.strokeRect(area.left, area.top, area.right - area.left, area.bottom - area.top);
-      ctx.restore();
+      drawFrame(ctx, area);
       drawHeader(ctx, chart, diagram, setting);
       const placed = layoutLabels(ctx, chart, diagram);
       for (const p of placed) drawLabel(ctx, p);

@@ -12,6 +12,7 @@ import { type FigureOptions, renderChart } from './render.js';
 import { STYLE } from './style.js';
 import {
   chartContext,
+  drawFrame,
   drawRuns,
   formulaRuns,
   ionMarkup,
@@ -144,11 +145,7 @@ function namesAndKey(entries: readonly SeriesEntry[], ions: readonly string[]): 
     afterDraw(chart) {
       const ctx = chartContext(chart);
       const area = chart.chartArea;
-      ctx.save();
-      ctx.strokeStyle = STYLE.ink;
-      ctx.lineWidth = STYLE.frameWidth;
-      ctx.strokeRect(area.left, area.top, area.right - area.left, area.bottom - area.top);
-      ctx.restore();
+      drawFrame(ctx, area);
       const style: TextStyle = { size: STYLE.tickSize, color: STYLE.ink };
       const names = entries.map((e) => formulaRuns(e.name));
       const widths = names.map((runs) => measureRuns(ctx, runs, style));

@@ -9,6 +9,7 @@ import type { SKRSContext2D } from '@napi-rs/canvas';
 import type { Chart } from 'chart.js';
 import { parseStateLabel } from '../src/field/labels.js';
 import { FONT_FAMILY } from './render.js';
+import { STYLE } from './style.js';
 
 /** A piece of text at the baseline, raised or lowered. */
 export interface TextRun {
@@ -36,6 +37,18 @@ const SUB_DROP = 0.2;
 /** The context chart.js draws with: a Skia context from @napi-rs/canvas in every figure here. */
 export function chartContext(chart: Chart): SKRSContext2D {
   return chart.ctx as unknown as SKRSContext2D;
+}
+
+/** The closed frame of the house style around a chart's plot area. */
+export function drawFrame(
+  ctx: SKRSContext2D,
+  area: { left: number; top: number; right: number; bottom: number },
+): void {
+  ctx.save();
+  ctx.strokeStyle = STYLE.ink;
+  ctx.lineWidth = STYLE.frameWidth;
+  ctx.strokeRect(area.left, area.top, area.right - area.left, area.bottom - area.top);
+  ctx.restore();
 }
 
 /** Runs of a state label such as `4T1g(F)`: raised 4, T, lowered 1g, then (F). Other text stays plain. */

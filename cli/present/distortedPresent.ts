@@ -8,6 +8,7 @@ import { type DistortedCaution, distortedCautions } from '../../src/analysis/dis
 import { halfIntegerText } from '../../src/atom/terms.js';
 import type { Ligand } from '../../src/field/angularOverlap.js';
 import type { DistortedResult } from '../../src/field/distortedComplex.js';
+import { SUBSCRIPT, SUPERSCRIPT } from '../../src/field/labels.js';
 import type { FieldLevel } from '../../src/field/lowSymmetrySolver.js';
 import { cmToEv, cmToNm, unicodeLabel } from '../../src/index.js';
 import type { GeometryUsed } from '../fieldOptions.js';
@@ -15,24 +16,11 @@ import { fixed, table } from '../format.js';
 
 /** Unicode form of a state label of any point group: `3B1g(2)` → `³B₁g(2)`, `2E"` → `²E″`. */
 export function unicodeGroupLabel(label: string): string {
-  const sup: Record<string, string> = {
-    '0': '⁰',
-    '1': '¹',
-    '2': '²',
-    '3': '³',
-    '4': '⁴',
-    '5': '⁵',
-    '6': '⁶',
-    '7': '⁷',
-    '8': '⁸',
-    '9': '⁹',
-  };
-  const sub: Record<string, string> = { '1': '₁', '2': '₂', '3': '₃' };
   const m = /^(\d+)([ABET])(\d?)([gu]?)(['"]?)(.*)$/.exec(label);
   if (!m) return unicodeLabel(label);
   const [, mult = '', letter = '', index = '', parity = '', prime = '', rest = ''] = m;
   const primes = prime === "'" ? '′' : prime === '"' ? '″' : '';
-  return `${[...mult].map((c) => sup[c] ?? c).join('')}${letter}${sub[index] ?? index}${parity}${primes}${rest}`;
+  return `${[...mult].map((c) => SUPERSCRIPT[c] ?? c).join('')}${letter}${SUBSCRIPT[index] ?? index}${parity}${primes}${rest}`;
 }
 
 /** A short line describing the geometry used. */

@@ -40,7 +40,8 @@ export function configurationText(t2: number, e: number, geometry: Geometry): st
   return text === '' ? '(empty)' : text;
 }
 
-const SUPERSCRIPT: Readonly<Record<string, string>> = {
+/** Superscript digits. */
+export const SUPERSCRIPT: Readonly<Record<string, string>> = {
   '0': '⁰',
   '1': '¹',
   '2': '²',
@@ -52,7 +53,8 @@ const SUPERSCRIPT: Readonly<Record<string, string>> = {
   '8': '⁸',
   '9': '⁹',
 };
-const SUBSCRIPT: Readonly<Record<string, string>> = {
+/** Subscript digits. */
+export const SUBSCRIPT: Readonly<Record<string, string>> = {
   '0': '₀',
   '1': '₁',
   '2': '₂',
