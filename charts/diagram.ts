@@ -14,7 +14,7 @@ import { drawKey, spinKey } from './key.js';
 import { type Box, freeSpot, nearShifts, overlaps, spreadLabels } from './labelLayout.js';
 import { type FigureOptions, renderChart } from './render.js';
 import { type SampleMark, samplePosition, withSample } from './sampleOverlay.js';
-import { STYLE } from './style.js';
+import { axisTitle, STYLE, TICKS } from './style.js';
 import {
   chartContext,
   drawFrame,
@@ -245,13 +245,7 @@ export function diagramChart(
     exits.length === 0
       ? 0
       : EXIT_LEADER + 6 + Math.max(...exits.map((e) => estimatedWidth(e.curve.label, EXIT_LABEL)));
-  const tick = { font: { size: STYLE.tickSize }, color: STYLE.ink };
-  const axisTitle = (text: string) => ({
-    display: true,
-    text,
-    font: { size: STYLE.axisTitleSize },
-    color: STYLE.ink,
-  });
+  const tick = TICKS;
   const config: ChartConfiguration = {
     type: 'scatter',
     data: { datasets: curveDatasets(shown) },

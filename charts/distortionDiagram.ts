@@ -9,7 +9,7 @@ import type { DistortionSweep } from '../src/analysis/distortionSweep.js';
 import { drawKey, spinKey } from './key.js';
 import { spreadLabels } from './labelLayout.js';
 import { type FigureOptions, renderChart } from './render.js';
-import { STYLE } from './style.js';
+import { axisTitle, STYLE, TICKS } from './style.js';
 import { chartContext, drawRuns, markupRuns, runsHeight, type TextRun, type TextStyle } from './typeset.js';
 
 /** Room right of the plot for the curve labels, px. */
@@ -58,13 +58,7 @@ export function distortionChart(sweep: DistortionSweep, eMax?: number): ChartCon
     showLine: true,
     fill: false,
   }));
-  const tick = { font: { size: STYLE.tickSize }, color: STYLE.ink };
-  const axisTitle = (text: string) => ({
-    display: true,
-    text,
-    font: { size: STYLE.axisTitleSize },
-    color: STYLE.ink,
-  });
+  const tick = TICKS;
   const lo = Math.min(sweep.x[0] ?? 0, sweep.x[sweep.x.length - 1] ?? 1);
   const hi = Math.max(sweep.x[0] ?? 0, sweep.x[sweep.x.length - 1] ?? 1);
   return {

@@ -17,7 +17,7 @@ import { drawKey, spinKey } from './key.js';
 import { spreadLabels } from './labelLayout.js';
 import { groupedNumber } from './numbers.js';
 import { type FigureOptions, renderChart } from './render.js';
-import { STYLE } from './style.js';
+import { STYLE, TICKS } from './style.js';
 import {
   chartContext,
   drawRuns,
@@ -121,7 +121,7 @@ export function levelDiagramChart(
   options: LevelDiagramOptions = {},
 ): ChartConfiguration {
   const view = levelView(result, options);
-  const tick = { font: { size: STYLE.tickSize }, color: STYLE.ink };
+  const tick = TICKS;
   return {
     type: 'scatter',
     data: { datasets: [] },

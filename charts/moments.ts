@@ -6,7 +6,7 @@
 import type { ChartConfiguration, ChartDataset } from 'chart.js';
 import type { MomentPoint } from '../src/analysis/susceptibility.js';
 import { type FigureOptions, renderChart } from './render.js';
-import { STYLE } from './style.js';
+import { STYLE, TICKS } from './style.js';
 
 /** What the magnetism figure shows. */
 export interface MomentFigureData {
@@ -70,7 +70,7 @@ export function momentChart(data: MomentFigureData): ChartConfiguration {
       label: `spin-only ${data.spinOnly.toFixed(2)} μ_B (left)`,
     });
   }
-  const tick = { font: { size: STYLE.tickSize }, color: STYLE.ink };
+  const tick = TICKS;
   const title = (text: string, color: string = STYLE.ink) => ({
     display: true,
     text,

@@ -58,3 +58,11 @@ export const STYLE = {
   labelSize: 13,
   smallSize: 12,
 } as const;
+
+/** Tick labels in the house style. */
+export const TICKS = { font: { size: STYLE.tickSize }, color: STYLE.ink };
+
+/** An axis title in the house style. */
+export function axisTitle(text: string) {
+  return { display: true, text, font: { size: STYLE.axisTitleSize }, color: STYLE.ink };
+}
