@@ -3,7 +3,9 @@
  * solver) per dⁿ and geometry that has a crossover, a sample verdict, and the default map.
  */
 
-import { crossoverAnalysis, type Geometry, groundStateMap, sampleVerdict } from '../src/index.js';
+import { crossoverAnalysis, sampleVerdict } from '../src/analysis/crossover.js';
+import { groundStateMap } from '../src/analysis/groundMap.js';
+import type { Geometry } from '../src/core/geometry.js';
 
 function time<T>(work: () => T, repeats: number): { ms: number; result: T } {
   let result = work();

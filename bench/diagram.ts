@@ -2,7 +2,7 @@
 
 import { pathToFileURL } from 'node:url';
 import { renderDiagram } from '../charts/diagram.js';
-import { sweepDiagram } from '../src/index.js';
+import { sweepDiagram } from '../src/analysis/sweep.js';
 
 /** Milliseconds of one call, best of `repeats` (the machine is shared; the best is the least disturbed). */
 function best(repeats: number, f: () => void): number {

@@ -5,7 +5,10 @@
  */
 
 import { pathToFileURL } from 'node:url';
-import { type FitInput, fitBands, type Geometry, solveCubic } from '../src/index.js';
+import type { Geometry } from '../src/core/geometry.js';
+import { solveCubic } from '../src/field/cubic.js';
+import { fitBands } from '../src/fit/fitBands.js';
+import type { FitInput } from '../src/fit/fitTypes.js';
 
 interface Case {
   readonly n: number;

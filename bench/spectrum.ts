@@ -6,9 +6,11 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { readTextFile } from '../cli/files.js';
 import { DEMO_SPECTRA, demoSpectrumText } from '../fixtures/spectra/generate.js';
-import { absorptionSpectrum, findBands, parseJcampSpectrum, parseSpectrumText } from '../src/index.js';
+import { absorptionSpectrum } from '../src/spectra/absorptionSpectrum.js';
+import { findBands } from '../src/spectra/bandFinding.js';
 import { syntheticSpectrum } from '../src/spectra/gaussianBands.js';
-import { isJcamp } from '../src/spectra/spectrumJcamp.js';
+import { isJcamp, parseJcampSpectrum } from '../src/spectra/spectrumJcamp.js';
+import { parseSpectrumText } from '../src/spectra/spectrumText.js';
 
 /** Rows of the large-file benchmark. */
 const BIG_ROWS = 1_000_000;

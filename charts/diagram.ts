@@ -7,9 +7,9 @@
 
 import type { SKRSContext2D } from '@napi-rs/canvas';
 import type { Chart, ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
+import type { CorrelationDiagram, DiagramCurve } from '../src/analysis/sweep.js';
 import { halfIntegerText } from '../src/atom/terms.js';
 import { ensure } from '../src/core/errors.js';
-import type { CorrelationDiagram, DiagramCurve } from '../src/index.js';
 import { drawKey, spinKey } from './key.js';
 import { type Box, freeSpot, nearShifts, overlaps, spreadLabels } from './labelLayout.js';
 import { type FigureOptions, renderChart } from './render.js';

@@ -4,9 +4,8 @@
  */
 
 import type { Chart, ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
-import type { MapRow, MapSegment } from '../src/analysis/groundMap.js';
+import type { GroundStateMap, MapRow, MapSegment } from '../src/analysis/groundMap.js';
 import { pairingCoefficients } from '../src/analysis/lfse.js';
-import type { GroundStateMap } from '../src/index.js';
 import { type FigureOptions, renderChart } from './render.js';
 import { STYLE } from './style.js';
 import { chartContext, drawRuns, measureRuns, stateRuns, type TextRun } from './typeset.js';

@@ -10,9 +10,10 @@
 
 import type { SKRSContext2D } from '@napi-rs/canvas';
 import type { Chart, ChartConfiguration, Plugin } from 'chart.js';
+import { type FreeIonTerm, freeIonTerms } from '../src/atom/freeIon.js';
 import { BAND_CEILING } from '../src/core/defaults.js';
 import { ensure } from '../src/core/errors.js';
-import { type CubicLevel, type CubicResult, type FreeIonTerm, freeIonTerms } from '../src/index.js';
+import type { CubicLevel, CubicResult } from '../src/field/cubic.js';
 import { drawKey, spinKey } from './key.js';
 import { spreadLabels } from './labelLayout.js';
 import { groupedNumber } from './numbers.js';

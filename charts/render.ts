@@ -8,8 +8,7 @@
 import { createRequire } from 'node:module';
 import { createCanvas, GlobalFonts, PDFDocument, type SKRSContext2D, SvgExportFlag } from '@napi-rs/canvas';
 import { Chart, type ChartConfiguration, type Plugin, registerables } from 'chart.js';
-import { ensure } from '../src/core/errors.js';
-import { InputError } from '../src/index.js';
+import { ensure, InputError } from '../src/core/errors.js';
 import { FONT_FAMILY } from './style.js';
 import { compactShapes } from './svgShapes.js';
 import { editableSvg } from './svgText.js';

@@ -6,7 +6,7 @@
 
 import type { ChartConfiguration, Plugin, PointStyle } from 'chart.js';
 import { drawPoint } from 'chart.js/helpers';
-import type { SeriesEntry } from '../src/index.js';
+import type { SeriesEntry } from '../src/sheets/series.js';
 import { groupedNumber } from './numbers.js';
 import { type FigureOptions, renderChart } from './render.js';
 import { STYLE } from './style.js';

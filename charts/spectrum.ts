@@ -7,8 +7,9 @@
 
 import type { ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
 import { xyReduce } from 'ml-spectra-processing';
-import { cmToNm, type FoundBand } from '../src/index.js';
+import { cmToNm } from '../src/core/units.js';
 import type { AbsorptionQuantity } from '../src/spectra/absorptionSpectrum.js';
+import type { FoundBand } from '../src/spectra/bandFinding.js';
 import { bandSum, gaussianValue, type LinearBaseline } from '../src/spectra/gaussianBands.js';
 import { drawKey, type KeyItem } from './key.js';
 import { groupedNumber, tickText } from './numbers.js';

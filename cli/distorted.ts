@@ -9,13 +9,14 @@ import { resolve } from 'node:path';
 import { renderDistortionDiagram } from '../charts/distortionDiagram.js';
 import { formatOfPath } from '../charts/render.js';
 import { DEFAULT_SWEEP_STEPS, distortionCsv, distortionSweep } from '../src/analysis/distortionSweep.js';
+import { InputError } from '../src/core/errors.js';
+import type { FreeIon } from '../src/core/ions.js';
 import { B_LIMIT, COMPLEX_B_LIMIT, COORDINATE_LIMIT, ENERGY_LIMIT, STEPS_LIMIT } from '../src/core/limits.js';
-import { parseUnit } from '../src/core/units.js';
+import { parseEnergyList, parseUnit } from '../src/core/units.js';
 import type { FieldSpec } from '../src/field/distortedComplex.js';
 import { solveDistorted } from '../src/field/distortedComplex.js';
 import { presetLigands } from '../src/field/geometries.js';
 import { fitDistorted, fitParameterNames } from '../src/fit/distortedFit.js';
-import { type FreeIon, InputError, parseEnergyList } from '../src/index.js';
 import type { SheetGeometry } from '../src/sheets/geometrySheet.js';
 import {
   type FieldOptions,

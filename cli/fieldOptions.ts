@@ -7,13 +7,13 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
+import { InputError } from '../src/core/errors.js';
 import { ANGLE_LIMIT, AOM_POSITIVE_LIMIT, DISTANCE_LIMIT, TOLERANCE_LIMIT } from '../src/core/limits.js';
 import type { BondParameters, Ligand } from '../src/field/angularOverlap.js';
 import { trigonalFromSplitting } from '../src/field/axialFields.js';
 import type { FieldSpec } from '../src/field/distortedComplex.js';
 import { GEOMETRY_NAMES, GEOMETRY_PRESETS, presetLigands } from '../src/field/geometries.js';
 import { DEFAULT_SYMMETRY_TOLERANCE, MAX_SYMMETRY_TOLERANCE } from '../src/field/pointGroups.js';
-import { InputError } from '../src/index.js';
 import type { SheetGeometry } from '../src/sheets/geometrySheet.js';
 import { coordinationSphere, parseXyz } from '../src/sheets/xyz.js';
 import { numberOption } from './options.js';

@@ -8,7 +8,7 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { InputError } from '../src/index.js';
+import { InputError } from '../src/core/errors.js';
 
 /**
  * The largest input file read, bytes: a spectrum of 10⁶ rows is about 30 MB; anything much

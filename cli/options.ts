@@ -5,7 +5,11 @@
  */
 
 import { DEFAULT_PRESET_DPI, FIGURE_SIZES, type FigureOptions, type FigureSize } from '../charts/render.js';
+import { parseConfiguration } from '../src/atom/terms.js';
 import { DEFAULT_C_OVER_B, DEFAULT_GEOMETRY } from '../src/core/defaults.js';
+import { InputError } from '../src/core/errors.js';
+import type { Geometry } from '../src/core/geometry.js';
+import { type FreeIon, findIon } from '../src/core/ions.js';
 import {
   B_LIMIT,
   C_LIMIT,
@@ -21,15 +25,7 @@ import {
   parseWithin,
 } from '../src/core/limits.js';
 import { chooseRatio, type RatioChoice } from '../src/core/ratioChoice.js';
-import {
-  type CubicResult,
-  type FreeIon,
-  findIon,
-  type Geometry,
-  InputError,
-  parseConfiguration,
-  solveCubic,
-} from '../src/index.js';
+import { type CubicResult, solveCubic } from '../src/field/cubic.js';
 
 export type { RatioChoice };
 

@@ -5,7 +5,7 @@
  */
 
 import { Command, CommanderError } from 'commander';
-import { InputError } from '../src/index.js';
+import { InputError } from '../src/core/errors.js';
 import { registerCrossover } from './commands/crossover.js';
 import { registerDemo } from './commands/demo.js';
 import { registerDiagram } from './commands/diagram.js';

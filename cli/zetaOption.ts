@@ -3,9 +3,10 @@
  * the named ion's free-ion value, times a reduction factor for covalency, checked into one ζ.
  */
 
+import { InputError } from '../src/core/errors.js';
+import type { FreeIon } from '../src/core/ions.js';
 import { ZETA_FACTOR_LIMIT, ZETA_LIMIT } from '../src/core/limits.js';
 import { checkZeta } from '../src/field/spinOrbit.js';
-import { type FreeIon, InputError } from '../src/index.js';
 import { numberOption } from './options.js';
 
 /** Help of `--zeta`. */

@@ -10,44 +10,41 @@ import type { Command } from 'commander';
 import { renderGroundMap } from '../../charts/groundMap.js';
 import { type FigureFormat, formatOfPath } from '../../charts/render.js';
 import {
+  type Crossover,
+  type CrossoverAnalysis,
   type CrossoverCaution,
+  crossoverAnalysis,
   crossoverCautions,
   NEAR_CROSSOVER_PERCENT,
+  type SampleVerdict,
   SETTLED_SIGMAS,
+  sampleVerdict,
   TETRAHEDRAL_DELTA_CEILING,
 } from '../../src/analysis/crossover.js';
 import { fittedSample as placeByFit } from '../../src/analysis/fittedSample.js';
-import { GROUND_MAP_DEFAULTS } from '../../src/analysis/groundMap.js';
-import { pairingCoefficients } from '../../src/analysis/lfse.js';
+import { GROUND_MAP_DEFAULTS, groundStateMap } from '../../src/analysis/groundMap.js';
+import {
+  impliedPairingEnergy,
+  type OneElectronState,
+  type OneElectronStates,
+  oneElectronStates,
+  pairingCoefficients,
+  pairingEnergy,
+} from '../../src/analysis/lfse.js';
+import { type MomentEstimate, momentEstimate } from '../../src/analysis/magnetism.js';
 import { hasSpinChoice } from '../../src/analysis/spinChoice.js';
 import { susceptibility } from '../../src/analysis/susceptibility.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { DEFAULT_C_OVER_B, NOMINAL_B } from '../../src/core/defaults.js';
+import { InputError } from '../../src/core/errors.js';
+import type { Geometry } from '../../src/core/geometry.js';
+import type { FreeIon } from '../../src/core/ions.js';
 import { COMPLEX_B_LIMIT, DQ_LIMIT, positive } from '../../src/core/limits.js';
-import { unicodeConfiguration } from '../../src/field/labels.js';
+import { parseEnergyList } from '../../src/core/units.js';
+import { solveCubic } from '../../src/field/cubic.js';
+import { unicodeConfiguration, unicodeLabel } from '../../src/field/labels.js';
 import { solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
-import {
-  type Crossover,
-  type CrossoverAnalysis,
-  crossoverAnalysis,
-  type FitSolution,
-  type FreeIon,
-  type Geometry,
-  groundStateMap,
-  InputError,
-  impliedPairingEnergy,
-  type MomentEstimate,
-  momentEstimate,
-  type OneElectronState,
-  type OneElectronStates,
-  oneElectronStates,
-  pairingEnergy,
-  parseEnergyList,
-  type SampleVerdict,
-  sampleVerdict,
-  solveCubic,
-  unicodeLabel,
-} from '../../src/index.js';
+import type { FitSolution } from '../../src/fit/fitTypes.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { fixed, ionText, jsonText, table, unicodeIons } from '../format.js';
 import { type Io, progress } from '../io.js';

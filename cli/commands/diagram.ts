@@ -15,8 +15,19 @@ import {
   spinOrbitAsCorrelation,
   sweepSpinOrbit,
 } from '../../src/analysis/spinOrbitSweep.js';
-import { DEFAULT_MAX_DELTA_OVER_B, DEFAULT_SWEEP_POINTS, diagramCautions } from '../../src/analysis/sweep.js';
+import {
+  type CorrelationDiagram,
+  DEFAULT_MAX_DELTA_OVER_B,
+  DEFAULT_SWEEP_POINTS,
+  diagramCautions,
+  diagramCsv,
+  diagramJson,
+  sweepDiagram,
+} from '../../src/analysis/sweep.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
+import { InputError } from '../../src/core/errors.js';
+import type { Geometry } from '../../src/core/geometry.js';
+import type { FreeIon } from '../../src/core/ions.js';
 import {
   COMPLEX_B_LIMIT,
   DELTA_OVER_B_LIMIT,
@@ -26,19 +37,9 @@ import {
   POINTS_LIMIT,
   positive,
 } from '../../src/core/limits.js';
+import { parseEnergyList } from '../../src/core/units.js';
 import { DOUBLE_GROUP_NOTATION } from '../../src/field/doubleGroup.js';
-import { unicodeTerm } from '../../src/field/labels.js';
-import {
-  type CorrelationDiagram,
-  diagramCsv,
-  diagramJson,
-  type FreeIon,
-  type Geometry,
-  InputError,
-  parseEnergyList,
-  sweepDiagram,
-  unicodeLabel,
-} from '../../src/index.js';
+import { unicodeLabel, unicodeTerm } from '../../src/field/labels.js';
 import { type DistortionDiagramOptions, distortionDiagramCommand } from '../distorted.js';
 import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFilesAtomic } from '../files.js';

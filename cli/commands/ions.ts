@@ -4,7 +4,7 @@
  */
 
 import type { Command } from 'commander';
-import { FREE_IONS, freeIonRatio } from '../../src/index.js';
+import { FREE_IONS, freeIonRatio } from '../../src/core/ions.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 

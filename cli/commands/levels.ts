@@ -13,21 +13,16 @@ import {
   renderLevelDiagram,
 } from '../../charts/levelDiagram.js';
 import { formatOfPath } from '../../charts/render.js';
+import { cubicCautions } from '../../src/analysis/cautions.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
-import { elementOfIon } from '../../src/core/ions.js';
+import { InputError } from '../../src/core/errors.js';
+import { elementOfIon, findIon } from '../../src/core/ions.js';
 import { ENERGY_LIMIT, LABEL_COUNT_LIMIT } from '../../src/core/limits.js';
-import { unicodeConfiguration, unicodeTerm } from '../../src/field/labels.js';
+import { cmToEv, cmToNm } from '../../src/core/units.js';
+import type { CubicLevel } from '../../src/field/cubic.js';
+import { unicodeConfiguration, unicodeLabel, unicodeTerm } from '../../src/field/labels.js';
 import { type SpinOrbitResult, solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
-import {
-  type CubicLevel,
-  cmToEv,
-  cmToNm,
-  cubicCautions,
-  findIon,
-  InputError,
-  unicodeLabel,
-} from '../../src/index.js';
 import { distortedLevels } from '../distorted.js';
 import { addFieldOptions, type FieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFileAtomic } from '../files.js';

@@ -9,6 +9,7 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { renderMoments } from '../../charts/moments.js';
 import { formatOfPath } from '../../charts/render.js';
+import { spinOnlyMoment } from '../../src/analysis/magnetism.js';
 import {
   DEFAULT_ORBITAL_REDUCTION,
   DEFAULT_SPIN_G,
@@ -18,15 +19,16 @@ import {
   susceptibility,
 } from '../../src/analysis/susceptibility.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
+import { InputError } from '../../src/core/errors.js';
+import { findIon } from '../../src/core/ions.js';
 import {
   G_FACTOR_LIMIT,
   ORBITAL_REDUCTION_LIMIT,
   STEPS_LIMIT,
   TEMPERATURE_LIMIT,
 } from '../../src/core/limits.js';
-import { unicodeIon } from '../../src/field/labels.js';
+import { unicodeIon, unicodeLabel } from '../../src/field/labels.js';
 import { spinOrbitLevels } from '../../src/field/spinOrbitSolver.js';
-import { findIon, InputError, spinOnlyMoment, unicodeLabel } from '../../src/index.js';
 import { writeFileAtomic } from '../files.js';
 import { fixed, jsonText } from '../format.js';
 import type { Io } from '../io.js';

@@ -8,6 +8,8 @@ import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { quantityTitle } from '../../charts/spectrum.js';
+import { InputError } from '../../src/core/errors.js';
+import type { Geometry } from '../../src/core/geometry.js';
 import { elementOfIon } from '../../src/core/ions.js';
 import {
   BAND_COUNT_LIMIT,
@@ -16,8 +18,10 @@ import {
   CONCENTRATION_LIMIT,
   PATH_LENGTH_LIMIT,
 } from '../../src/core/limits.js';
-import { cmToNm, type FoundBand, type Geometry, InputError, unicodeLabel } from '../../src/index.js';
+import { cmToNm } from '../../src/core/units.js';
+import { unicodeLabel } from '../../src/field/labels.js';
 import type { BaselineKind } from '../../src/spectra/bandDecomposition.js';
+import type { FoundBand } from '../../src/spectra/bandFinding.js';
 import { DEFAULT_BASELINE, DEFAULT_MAX_BANDS, DEFAULT_MIN_FWHM } from '../../src/spectra/bandFinding.js';
 import { POSITION_WIDTH_FRACTION } from '../../src/spectra/bandObservations.js';
 import { parseRange } from '../../src/spectra/energyRange.js';

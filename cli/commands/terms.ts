@@ -5,21 +5,21 @@
  */
 
 import type { Command } from 'commander';
+import { freeIonTerms } from '../../src/atom/freeIon.js';
 import { freeIonLevels } from '../../src/atom/jLevels.js';
 import { binomial } from '../../src/atom/microstates.js';
-import { halfIntegerText, microstateTable } from '../../src/atom/terms.js';
-import { B_LIMIT, C_LIMIT } from '../../src/core/limits.js';
-import { unicodeTerm } from '../../src/field/labels.js';
 import {
-  type FreeIon,
-  findIon,
-  freeIonTerms,
+  halfIntegerText,
   hundGround,
-  InputError,
   jLevels,
+  microstateTable,
   parseConfiguration,
   termsOf,
-} from '../../src/index.js';
+} from '../../src/atom/terms.js';
+import { InputError } from '../../src/core/errors.js';
+import { type FreeIon, findIon } from '../../src/core/ions.js';
+import { B_LIMIT, C_LIMIT } from '../../src/core/limits.js';
+import { unicodeTerm } from '../../src/field/labels.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 import { numberOption } from '../options.js';

@@ -3,7 +3,7 @@
  * the crossover command and the report.
  */
 
-import type { CrossoverAnalysis, SampleVerdict } from '../../src/index.js';
+import type { CrossoverAnalysis, SampleVerdict } from '../../src/analysis/crossover.js';
 
 /** JSON form of the crossings of an analysis. */
 export function crossingsJson(analysis: CrossoverAnalysis) {

@@ -6,11 +6,11 @@
 
 import { type DistortedCaution, distortedCautions } from '../../src/analysis/distortedCautions.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
+import { cmToEv, cmToNm } from '../../src/core/units.js';
 import type { Ligand } from '../../src/field/angularOverlap.js';
 import type { DistortedResult } from '../../src/field/distortedComplex.js';
-import { SUBSCRIPT, SUPERSCRIPT } from '../../src/field/labels.js';
+import { SUBSCRIPT, SUPERSCRIPT, unicodeLabel } from '../../src/field/labels.js';
 import type { FieldLevel } from '../../src/field/lowSymmetrySolver.js';
-import { cmToEv, cmToNm, unicodeLabel } from '../../src/index.js';
 import type { GeometryUsed } from '../fieldOptions.js';
 import { fixed, table } from '../format.js';
 

@@ -7,16 +7,10 @@
 
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
-import { unicodeIon } from '../../src/field/labels.js';
+import { cmToNm } from '../../src/core/units.js';
+import { unicodeIon, unicodeLabel } from '../../src/field/labels.js';
+import type { FitResult, FitScore, FitSolution, SpinHypothesis } from '../../src/fit/fitTypes.js';
 import type { FitWarningCode } from '../../src/fit/fitWarnings.js';
-import {
-  cmToNm,
-  type FitResult,
-  type FitScore,
-  type FitSolution,
-  type SpinHypothesis,
-  unicodeLabel,
-} from '../../src/index.js';
 import { fixed, ionText, listSection, table, unicodeIons } from '../format.js';
 
 /** Whether only Dq was fitted because there is no B (d¹, d⁹). */

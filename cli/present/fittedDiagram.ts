@@ -5,8 +5,9 @@
 
 import { renderDiagram } from '../../charts/diagram.js';
 import type { FigureFormat, FigureOptions } from '../../charts/render.js';
-import { DEFAULT_MAX_DELTA_OVER_B } from '../../src/analysis/sweep.js';
-import { type FitResult, type FitSolution, InputError, sweepDiagram } from '../../src/index.js';
+import { DEFAULT_MAX_DELTA_OVER_B, sweepDiagram } from '../../src/analysis/sweep.js';
+import { InputError } from '../../src/core/errors.js';
+import type { FitResult, FitSolution } from '../../src/fit/fitTypes.js';
 
 /**
  * The correlation diagram at the best solution's C/B, wide enough to hold the sample, with the

@@ -2,7 +2,8 @@
  * The JSON form of one level of dⁿ in a cubic field, shared by the levels and spectrum commands.
  */
 
-import { type CubicLevel, cmToEv, cmToNm } from '../../src/index.js';
+import { cmToEv, cmToNm } from '../../src/core/units.js';
+import type { CubicLevel } from '../../src/field/cubic.js';
 
 /** JSON form of one level. */
 export function levelJson(l: CubicLevel) {

@@ -8,24 +8,19 @@
 
 import { resolve } from 'node:path';
 import { crossoverCautions } from '../../src/analysis/crossover.js';
-import { elementOfIon } from '../../src/core/ions.js';
+import { spinOnlyMoment } from '../../src/analysis/magnetism.js';
+import { susceptibility } from '../../src/analysis/susceptibility.js';
+import { InputError } from '../../src/core/errors.js';
+import type { Geometry } from '../../src/core/geometry.js';
+import { elementOfIon, type FreeIon, findIon } from '../../src/core/ions.js';
 import { chooseRatio, type RatioChoice } from '../../src/core/ratioChoice.js';
-import {
-  type FitResult,
-  type FitSolution,
-  type FreeIon,
-  findIon,
-  fitBands,
-  fitSpinVerdict,
-  type Geometry,
-  InputError,
-  type SampleSpec,
-  type SeriesEntry,
-  solveCubic,
-  solveSpinOrbit,
-  spinOnlyMoment,
-  susceptibility,
-} from '../../src/index.js';
+import { solveCubic } from '../../src/field/cubic.js';
+import { solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
+import { fitBands } from '../../src/fit/fitBands.js';
+import type { FitResult, FitSolution } from '../../src/fit/fitTypes.js';
+import { fitSpinVerdict } from '../../src/fit/fitVerdict.js';
+import type { SampleSpec } from '../../src/sheets/sampleSheet.js';
+import type { SeriesEntry } from '../../src/sheets/series.js';
 import { DEFAULT_BASELINE } from '../../src/spectra/bandFinding.js';
 import { parseRange } from '../../src/spectra/energyRange.js';
 import { analyseSpectrum, type SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';

@@ -5,8 +5,8 @@
  */
 
 import { BAND_CEILING } from '../../src/core/defaults.js';
-import { unicodeIon } from '../../src/field/labels.js';
-import { cmToNm, unicodeLabel } from '../../src/index.js';
+import { cmToNm } from '../../src/core/units.js';
+import { unicodeIon, unicodeLabel } from '../../src/field/labels.js';
 import { fixed } from '../format.js';
 import { unicodeGroupLabel } from '../present/distortedPresent.js';
 import { withError } from '../present/fitPresent.js';

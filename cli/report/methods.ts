@@ -2,8 +2,8 @@
  * The methods paragraph and the references of a report, written for the samples it holds.
  */
 
+import { FREE_IONS } from '../../src/core/ions.js';
 import { unicodeIon } from '../../src/field/labels.js';
-import { FREE_IONS } from '../../src/index.js';
 import type { SampleResult } from './analyse.js';
 
 /** The works the methods paragraph cites, in citation form. */

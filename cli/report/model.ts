@@ -4,9 +4,9 @@
  * it is written in any format.
  */
 
-import { type SampleSheet, type SeriesEntry, seriesOrders, seriesTable } from '../../src/index.js';
-import type { SheetProblem } from '../../src/sheets/sampleSheet.js';
+import type { SampleSheet, SheetProblem } from '../../src/sheets/sampleSheet.js';
 import type { IonOrder } from '../../src/sheets/series.js';
+import { type SeriesEntry, seriesOrders, seriesTable } from '../../src/sheets/series.js';
 import type { SampleOutcome, SampleResult } from './analyse.js';
 import { methodsParagraph, referencesFor } from './methods.js';
 

@@ -7,8 +7,9 @@
 import { existsSync } from 'node:fs';
 import { dirname, extname, isAbsolute, relative, resolve } from 'node:path';
 import { renderTrend } from '../../charts/series.js';
-import { InputError, parseSampleSheet, type SampleSheet } from '../../src/index.js';
+import { InputError } from '../../src/core/errors.js';
 import type { SheetFormat, SheetProblem } from '../../src/sheets/sampleSheet.js';
+import { parseSampleSheet, type SampleSheet } from '../../src/sheets/sampleSheet.js';
 import { readTextFile } from '../files.js';
 import { jsonText, messageLine } from '../format.js';
 import type { Io } from '../io.js';

@@ -19,7 +19,7 @@ import {
   writeFileSync,
 } from 'node:fs';
 import { basename, dirname, join, sep } from 'node:path';
-import { InputError } from '../../src/index.js';
+import { InputError } from '../../src/core/errors.js';
 import { trackTemporary } from '../files.js';
 
 /** The marker report.json carries, so that a later run may replace the report. */
