@@ -9,6 +9,12 @@ import { ensure } from '../core/errors.js';
 import { aomField, type BondParameters, dsMixingField, type Ligand } from './angularOverlap.js';
 import { tetragonalField, trigonalField, trigonalFrame } from './axialFields.js';
 import { cubicParents, cubicReference } from './cubicParent.js';
+import {
+  type FieldSpinOrbitResult,
+  type SpinOrbitReference,
+  solveFieldSpinOrbit,
+  spinFreeReference,
+} from './fieldSpinOrbit.js';
 import { presetLigands } from './geometries.js';
 import { type FieldResult, solveField, symmetryContext } from './lowSymmetrySolver.js';
 import {
@@ -19,6 +25,8 @@ import {
   pointGroup,
 } from './pointGroups.js';
 import { apply3, orbitalTransform, transformField } from './realOrbitals.js';
+import { checkZeta } from './spinOrbit.js';
+import { solveSpinOrbit } from './spinOrbitSolver.js';
 
 /** How the one-electron field is given. */
 export type FieldSpec =
@@ -177,4 +185,54 @@ export function orbitalLevels(field: Float64Array, group: PointGroup): OrbitalLe
     energy: l.energy - barycentre,
     dimension: l.dimension,
   }));
+}
+
+/** A distorted complex's levels without and with spin–orbit coupling. */
+export interface DistortedSpinOrbitResult extends DistortedResult {
+  /** The levels with ζ: degeneracy, spin–orbit-free parent, cubic double-group parent when near cubic. */
+  readonly spinOrbit: FieldSpinOrbitResult;
+}
+
+/**
+ * Levels of a distorted complex with spin–orbit coupling ζ, besides those without: each named by
+ * its degeneracy, the level without ζ it lies in most and, for small distortions (weight ≥
+ * {@link PARENT_MIN_WEIGHT}), the double-group level of the nearest cubic field with the same ζ.
+ * @throws InputError as {@link solveDistorted}, and for ζ outside 0…MAX_ZETA.
+ */
+export function solveDistortedSpinOrbit(
+  input: DistortedInput & { readonly zeta: number },
+): DistortedSpinOrbitResult {
+  checkZeta(input.zeta);
+  const base = solveDistorted(input);
+  const { n, B, C, zeta } = input;
+  const spec = idealised(input.field);
+  const reference = cubicReference(base.field, standInLigands(spec), groupOf(spec));
+  let cubic: SpinOrbitReference | undefined;
+  if (Math.abs(reference.dq) >= 1) {
+    const geometry = reference.dq >= 0 ? 'oct' : 'tet';
+    const levels = solveSpinOrbit({
+      n,
+      geometry,
+      dq: Math.abs(reference.dq),
+      B,
+      C,
+      zeta,
+      parentage: false,
+    }).levels;
+    cubic = {
+      field: reference.field,
+      zeta,
+      labels: levels.map((l) => ({ energy: l.energy, label: l.label })),
+    };
+  }
+  const solved = solveFieldSpinOrbit(
+    { n, field: base.field, B, C, zeta },
+    { spinFree: spinFreeReference(base.field, base), ...(cubic ? { cubic } : {}) },
+  );
+  const levels = solved.levels.map((l) => {
+    if (!l.cubicParent || l.cubicParent.weight >= PARENT_MIN_WEIGHT) return l;
+    const { cubicParent: _, ...rest } = l;
+    return rest;
+  });
+  return { ...base, spinOrbit: { ...solved, levels } };
 }

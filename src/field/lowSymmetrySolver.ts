@@ -93,7 +93,8 @@ export const DEGENERACY_TOLERANCE = 1e-6;
 /** Relative part of the degeneracy tolerance. */
 export const DEGENERACY_RELATIVE = 1e-10;
 
-function checkInput(input: FieldInput): void {
+/** Refuses n outside 1…9, a bad B or C, or a field that is not a finite symmetric 5×5 matrix. */
+export function checkFieldInput(input: FieldInput): void {
   const { n, field, B, C } = input;
   ensure(
     Number.isInteger(n) && n >= 1 && n <= 9,
@@ -153,7 +154,7 @@ export interface Eigenspace {
 
 /** The eigenspaces of H over the lowest-M_S block, lowest first, each of one S. */
 export function fieldEigenspaces(input: FieldInput): Eigenspace[] {
-  checkInput(input);
+  checkFieldInput(input);
   const { block, matrix } = fieldHamiltonian(input);
   const size = block.masks.length;
   const eig = symmetricEigen(matrix, size);

@@ -1,0 +1,251 @@
+/**
+ * Levels of dⁿ in a one-electron field of any symmetry with spin–orbit coupling ζ Σ l·s, over
+ * all C(10, n) determinants of the complex |m_l⟩ spin-orbitals. There the repulsion and l·s are
+ * real (Condon–Shortley phases) but a general field is complex Hermitian, H = A + iB; with no
+ * symmetry left to block by, H is diagonalised as the real symmetric [[A, −B], [B, A]] of twice
+ * the size, whose spectrum is H's with every eigenvalue twice (ml-matrix has no Hermitian
+ * solver). The levels are named by what survives in low symmetry: their degeneracy (Kramers
+ * doublets for odd n), the spin–orbit-free level they come from, and, where the field is near
+ * cubic, the double-group level of the nearest cubic field (weights of the eigenvectors).
+ */
+
+import { microstates, spinOrbital } from '../atom/microstates.js';
+import { type OneBodyTerm, oneBodyMatrix } from '../atom/operators.js';
+import { clusterSorted, column, symmetricEigen } from '../numeric/eigen.js';
+import { type DeterminantBlock, determinantBlock } from './hamiltonian.js';
+import {
+  checkFieldInput,
+  DEGENERACY_RELATIVE,
+  DEGENERACY_TOLERANCE,
+  type FieldInput,
+  type FieldResult,
+} from './lowSymmetrySolver.js';
+import { fieldInComplexBasis } from './realOrbitals.js';
+import { checkZeta, spinOrbitTerms } from './spinOrbit.js';
+
+/** Input of {@link solveFieldSpinOrbit}. Energies in cm⁻¹. */
+export interface FieldSpinOrbitInput extends FieldInput {
+  /** One-electron spin–orbit constant ζ, 0…MAX_ZETA. */
+  readonly zeta: number;
+}
+
+/** A labelled reference set of levels to name the spin–orbit levels by (see {@link solveFieldSpinOrbit}). */
+export interface SpinOrbitReference {
+  /** The reference field over the real orbitals. */
+  readonly field: Float64Array;
+  /** ζ of the reference (0: the spin–orbit-free levels). */
+  readonly zeta: number;
+  /** Label of each reference level by its energy above the reference ground level. */
+  readonly labels: readonly { readonly energy: number; readonly label: string }[];
+}
+
+/** A level's parent in a reference and the weight of its eigenvectors there. */
+export interface SpinOrbitParent {
+  readonly label: string;
+  /** Fraction 0…1 of the level in it. */
+  readonly weight: number;
+}
+
+/** One level of dⁿ with spin–orbit coupling in a general field. */
+export interface FieldSpinOrbitLevel {
+  /** Place from below, 1 for the ground level. */
+  readonly index: number;
+  /** Energy above the ground level, cm⁻¹. */
+  readonly energy: number;
+  /** Number of states: 2 for a Kramers doublet, more only where symmetry or chance joins levels. */
+  readonly degeneracy: number;
+  /** The spin–orbit-free level it lies in most, where that reference was given. */
+  readonly parent?: SpinOrbitParent;
+  /** The cubic double-group level it lies in most, where that reference was given. */
+  readonly cubicParent?: SpinOrbitParent;
+}
+
+/** Levels with spin–orbit coupling in a general field. */
+export interface FieldSpinOrbitResult {
+  readonly n: number;
+  readonly B: number;
+  readonly C: number;
+  readonly zeta: number;
+  /** Odd n: every level is at least a Kramers doublet. */
+  readonly kramers: boolean;
+  /** Energy of the ground level on the Hamiltonian's own scale (the levels are measured from it), cm⁻¹. */
+  readonly groundEnergy: number;
+  readonly levels: readonly FieldSpinOrbitLevel[];
+}
+
+/** Options of {@link solveFieldSpinOrbit}. */
+export interface FieldSpinOrbitOptions {
+  /** Name each level by the spin–orbit-free levels of this reference (same basis). */
+  readonly spinFree?: SpinOrbitReference;
+  /** Name each level by the levels of this (cubic, with ζ) reference. */
+  readonly cubic?: SpinOrbitReference;
+}
+
+interface FullBasis {
+  readonly block: DeterminantBlock;
+  readonly partZeta: Float64Array;
+}
+
+const basisCache = new Map<number, FullBasis>();
+
+/** All determinants of dⁿ with the repulsion and l·s over them; cached per n. */
+function fullBasis(n: number): FullBasis {
+  const cached = basisCache.get(n);
+  if (cached) return cached;
+  const block = determinantBlock(microstates(2, n).map((s) => s.mask));
+  const out = { block, partZeta: oneBodyMatrix(block, spinOrbitTerms()) };
+  basisCache.set(n, out);
+  return out;
+}
+
+/** The real and imaginary parts of a real-orbital field's matrix over the |m_l⟩ determinants. */
+function complexFieldMatrices(
+  block: DeterminantBlock,
+  field: Float64Array,
+): { re: Float64Array; im: Float64Array } {
+  const v = fieldInComplexBasis(field);
+  const re: OneBodyTerm[] = [];
+  const im: OneBodyTerm[] = [];
+  for (const alpha of [true, false]) {
+    for (let a = -2; a <= 2; a++) {
+      for (let b = -2; b <= 2; b++) {
+        const x = v[a + 2]?.[b + 2] ?? { re: 0, im: 0 };
+        const to = spinOrbital(2, a, alpha);
+        const from = spinOrbital(2, b, alpha);
+        if (x.re !== 0) re.push({ to, from, value: x.re });
+        if (x.im !== 0) im.push({ to, from, value: x.im });
+      }
+    }
+  }
+  return { re: oneBodyMatrix(block, re), im: oneBodyMatrix(block, im) };
+}
+
+/**
+ * The real symmetric [[A, −B], [B, A]] (row-major, size 2N) of H = A + iB = B·H_B + C·H_C + V +
+ * ζ·H_ζ over all N determinants of dⁿ: the slow, obvious path with nothing blocked.
+ */
+export function embeddedHamiltonian(input: FieldSpinOrbitInput): { size: number; matrix: Float64Array } {
+  const { block, partZeta } = fullBasis(input.n);
+  const { re, im } = complexFieldMatrices(block, input.field);
+  const n = block.masks.length;
+  const size = 2 * n;
+  const matrix = new Float64Array(size * size);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      const k = i * n + j;
+      const a =
+        input.B * (block.partB[k] ?? 0) +
+        input.C * (block.partC[k] ?? 0) +
+        (re[k] ?? 0) +
+        input.zeta * (partZeta[k] ?? 0);
+      const b = im[k] ?? 0;
+      matrix[i * size + j] = a;
+      matrix[(n + i) * size + n + j] = a;
+      matrix[i * size + n + j] = -b;
+      matrix[(n + i) * size + j] = b;
+    }
+  }
+  return { size, matrix };
+}
+
+/** A level of the embedded problem: energy and the real vectors (twice the complex dimension). */
+interface EmbeddedLevel {
+  readonly energy: number;
+  readonly vectors: readonly Float64Array[];
+}
+
+function embeddedLevels(input: FieldSpinOrbitInput, withVectors: boolean): EmbeddedLevel[] {
+  const { size, matrix } = embeddedHamiltonian(input);
+  const eig = symmetricEigen(matrix, size);
+  const values = [...eig.values];
+  let scale = 1;
+  for (const v of values) scale = Math.max(scale, Math.abs(v));
+  return clusterSorted(values, DEGENERACY_TOLERANCE + DEGENERACY_RELATIVE * scale).map((run) => ({
+    energy: run.reduce((s, i) => s + (values[i] ?? 0), 0) / run.length,
+    vectors: withVectors ? run.map((i) => column(eig.vectors, size, i)) : run.map(() => new Float64Array(0)),
+  }));
+}
+
+/** Fraction of `level` in the span of `ref` (real traces of the embedded projectors, whose ratio is the complex one). */
+function weightIn(level: EmbeddedLevel, ref: EmbeddedLevel): number {
+  let w = 0;
+  for (const v of level.vectors) {
+    for (const u of ref.vectors) {
+      let x = 0;
+      for (let i = 0; i < v.length; i++) x += (v[i] as number) * (u[i] as number);
+      w += x * x;
+    }
+  }
+  return w / level.vectors.length;
+}
+
+/** The reference's levels with their labels (matched by energy above the reference ground). */
+function labelledReference(
+  input: FieldSpinOrbitInput,
+  reference: SpinOrbitReference,
+): { level: EmbeddedLevel; label: string }[] {
+  const levels = embeddedLevels({ ...input, field: reference.field, zeta: reference.zeta }, true);
+  const ground = levels[0]?.energy ?? 0;
+  let scale = 1;
+  for (const l of levels) scale = Math.max(scale, Math.abs(l.energy - ground));
+  const tol = 1e-6 * scale;
+  return levels.map((level) => {
+    const e = level.energy - ground;
+    const names = [
+      ...new Set(reference.labels.filter((l) => Math.abs(l.energy - e) <= tol).map((l) => l.label)),
+    ];
+    return { level, label: names.length > 0 ? names.join('/') : '?' };
+  });
+}
+
+function bestParent(level: EmbeddedLevel, refs: readonly { level: EmbeddedLevel; label: string }[]) {
+  let best: SpinOrbitParent | undefined;
+  for (const r of refs) {
+    const weight = weightIn(level, r.level);
+    if (!best || weight > best.weight) best = { label: r.label, weight };
+  }
+  return best;
+}
+
+/**
+ * Levels of dⁿ in a general field with spin–orbit coupling, each with its degeneracy and, where
+ * references are given, the spin–orbit-free and cubic levels it lies in most.
+ * @throws InputError for n outside 1…9, a bad B, C or ζ, or a field that is not a finite
+ * symmetric 5×5 matrix.
+ */
+export function solveFieldSpinOrbit(
+  input: FieldSpinOrbitInput,
+  options: FieldSpinOrbitOptions = {},
+): FieldSpinOrbitResult {
+  checkFieldInput(input);
+  checkZeta(input.zeta);
+  const named = options.spinFree !== undefined || options.cubic !== undefined;
+  const levels = embeddedLevels(input, named);
+  const spinFree = options.spinFree ? labelledReference(input, options.spinFree) : [];
+  const cubic = options.cubic ? labelledReference(input, options.cubic) : [];
+  const ground = levels[0]?.energy ?? 0;
+  return {
+    n: input.n,
+    B: input.B,
+    C: input.C,
+    zeta: input.zeta,
+    kramers: input.n % 2 === 1,
+    groundEnergy: ground,
+    levels: levels.map((level, i) => {
+      const parent = spinFree.length > 0 ? bestParent(level, spinFree) : undefined;
+      const cubicParent = cubic.length > 0 ? bestParent(level, cubic) : undefined;
+      return {
+        index: i + 1,
+        energy: level.energy - ground,
+        degeneracy: level.vectors.length / 2,
+        ...(parent ? { parent } : {}),
+        ...(cubicParent ? { cubicParent } : {}),
+      };
+    }),
+  };
+}
+
+/** The spin–orbit-free reference of a field from its labelled levels (solveField's result). */
+export function spinFreeReference(field: Float64Array, result: FieldResult): SpinOrbitReference {
+  return { field, zeta: 0, labels: result.levels.map((l) => ({ energy: l.energy, label: l.label })) };
+}
