@@ -14,7 +14,7 @@ import type { FreeIon } from '../src/core/ions.js';
 import { B_LIMIT, COMPLEX_B_LIMIT, COORDINATE_LIMIT, ENERGY_LIMIT, STEPS_LIMIT } from '../src/core/limits.js';
 import { parseEnergyList, parseUnit } from '../src/core/units.js';
 import type { FieldSpec } from '../src/field/distortedComplex.js';
-import { solveDistorted } from '../src/field/distortedComplex.js';
+import { solveDistorted, solveDistortedSpinOrbit } from '../src/field/distortedComplex.js';
 import { presetLigands } from '../src/field/geometries.js';
 import { fitDistorted, fitParameterNames } from '../src/fit/distortedFit.js';
 import type { SheetGeometry } from '../src/sheets/geometrySheet.js';
@@ -29,6 +29,7 @@ import { fixed, jsonText, table } from './format.js';
 import { type Io, progress } from './io.js';
 import { ionOrCount, numberOption, ratioChoice } from './options.js';
 import { distortedJson, distortedText, geometryLine, unicodeGroupLabel } from './present/distortedPresent.js';
+import { zetaOption } from './zetaOption.js';
 
 /** Starting Racah B of a distorted fit as a fraction of the free-ion B (a usual β; common practice, no source). */
 export const START_BETA = 0.75;
@@ -71,7 +72,10 @@ function title(n: number, ion: FreeIon | undefined): string {
 }
 
 /** `levels` with a geometry: returns stdout. */
-export function distortedLevels(opts: DistortedOptions & { output?: string; dq?: string }, io: Io): string {
+export function distortedLevels(
+  opts: DistortedOptions & { output?: string; dq?: string; zeta?: string; zetaFactor?: string },
+  io: Io,
+): string {
   if (opts.dq !== undefined) {
     throw new InputError(
       '--dq is for cubic fields: with a geometry, give --bond (or the Dq inside --tetragonal / --trigonal)',
@@ -84,7 +88,9 @@ export function distortedLevels(opts: DistortedOptions & { output?: string; dq?:
   }
   const { n, ion, B, cOverB, cOrigin } = racah(opts, true);
   const { spec, geometry } = fieldFromOptions(opts, reader(io));
-  const result = solveDistorted({ n, B, C: cOverB * B, field: spec });
+  const zeta = zetaOption(opts.zeta, opts.zetaFactor, ion);
+  const input = { n, B, C: cOverB * B, field: spec };
+  const result = zeta === undefined ? solveDistorted(input) : solveDistortedSpinOrbit({ ...input, zeta });
   if (opts.json)
     return jsonText(distortedJson(result, geometry, { ...(ion ? { ion: ion.ion } : {}), cOrigin }));
   return distortedText(result, geometry, title(n, ion));

@@ -104,12 +104,19 @@ export {
 export {
   type DistortedInput,
   type DistortedResult,
+  type DistortedSpinOrbitResult,
   type FieldSpec,
   type OrbitalLevel,
   solveDistorted,
+  solveDistortedSpinOrbit,
 } from './field/distortedComplex.js';
 /** The ion in a cubic field with spin–orbit coupling: double-group levels with parentage. */
 export type { DoubleIrrep } from './field/doubleGroup.js';
+export type {
+  FieldSpinOrbitLevel,
+  FieldSpinOrbitResult,
+  SpinOrbitParent,
+} from './field/fieldSpinOrbit.js';
 export { GEOMETRY_PRESETS, type GeometryPreset, presetLigands } from './field/geometries.js';
 export { unicodeLabel } from './field/labels.js';
 export type { CubicParent, FieldLevel } from './field/lowSymmetrySolver.js';

@@ -62,6 +62,7 @@ it('the public API exports exactly the reviewed names (update this list on purpo
       "seriesTable",
       "solveCubic",
       "solveDistorted",
+      "solveDistortedSpinOrbit",
       "solveSpinOrbit",
       "spinOnlyMoment",
       "susceptibility",

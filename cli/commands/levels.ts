@@ -86,9 +86,6 @@ export function registerLevels(program: Command, io: Io): void {
     .option('--json', 'print one JSON object on stdout');
   addFieldOptions(command).action((opts: LevelsOptions & FieldOptions) => {
     if (hasFieldOptions(opts)) {
-      // The general-field solver has no spin–orbit term yet.
-      if (opts.zeta !== undefined)
-        throw new InputError('--zeta goes with a cubic field: leave it out with a geometry');
       io.out(distortedLevels(opts, io));
       return;
     }

@@ -1,14 +1,15 @@
 /**
  * Text and JSON of the levels of a distorted complex: the geometry used, the point group, the
  * d orbital energies, the nearest cubic field, every level with its cubic parent, the predicted
- * spin-allowed bands and the cautions.
+ * spin-allowed bands, the levels with spin–orbit coupling when ζ was given, and the cautions.
  */
 
 import { type DistortedCaution, distortedCautions } from '../../src/analysis/distortedCautions.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { cmToEv, cmToNm } from '../../src/core/units.js';
 import type { Ligand } from '../../src/field/angularOverlap.js';
-import type { DistortedResult } from '../../src/field/distortedComplex.js';
+import type { DistortedResult, DistortedSpinOrbitResult } from '../../src/field/distortedComplex.js';
+import type { FieldSpinOrbitLevel } from '../../src/field/fieldSpinOrbit.js';
 import { SUBSCRIPT, SUPERSCRIPT, unicodeLabel } from '../../src/field/labels.js';
 import type { FieldLevel } from '../../src/field/lowSymmetrySolver.js';
 import type { GeometryUsed } from '../fieldOptions.js';
@@ -62,6 +63,49 @@ export function cautionsOf(result: DistortedResult, geometry: GeometryUsed): Dis
   return distortedCautions(result, ligands, typeof eDs === 'number' ? eDs : 0);
 }
 
+function spinOrbitOf(result: DistortedResult): DistortedSpinOrbitResult['spinOrbit'] | undefined {
+  return 'spinOrbit' in result ? (result as DistortedSpinOrbitResult).spinOrbit : undefined;
+}
+
+/** The JSON of the levels with ζ, or nothing without. */
+function spinOrbitJson(result: DistortedResult): Record<string, unknown> {
+  const so = spinOrbitOf(result);
+  if (!so) return {};
+  return {
+    spinOrbit: {
+      zeta: so.zeta,
+      kramers: so.kramers,
+      levels: so.levels.map((l) => ({
+        index: l.index,
+        energy: l.energy,
+        degeneracy: l.degeneracy,
+        parent: l.parent ?? null,
+        cubicParent: l.cubicParent ?? null,
+      })),
+    },
+  };
+}
+
+/** The text lines of the levels with ζ, or none without. */
+function spinOrbitLines(result: DistortedResult): string[] {
+  const so = spinOrbitOf(result);
+  if (!so) return [];
+  const weight = (p: { label: string; weight: number } | undefined, name: (s: string) => string) =>
+    p ? `${p.label.split('/').map(name).join('/')} ${fixed(100 * p.weight)}%` : '—';
+  const row = (l: FieldSpinOrbitLevel) => [
+    String(l.index),
+    fixed(l.energy, 0),
+    String(l.degeneracy),
+    weight(l.parent, unicodeGroupLabel),
+    weight(l.cubicParent, (s) => s),
+  ];
+  return [
+    '',
+    `With spin–orbit coupling, ζ = ${fixed(so.zeta)} cm⁻¹${so.kramers ? ' (odd electron count: every level a Kramers doublet at least)' : ''}:`,
+    table(['#', 'cm⁻¹', 'degeneracy', 'level without ζ', 'cubic parent with ζ'], so.levels.map(row)),
+  ];
+}
+
 /** The JSON object of a distorted result. */
 export function distortedJson(
   result: DistortedResult,
@@ -89,6 +133,7 @@ export function distortedJson(
       cubicParent: l.cubicParent ?? null,
     })),
     bands: result.levels.filter((l) => l !== result.ground && l.spinAllowed).map((l) => l.label),
+    ...spinOrbitJson(result),
     cautions: cautionsOf(result, geometry).map((c) => c.message),
   };
 }
@@ -119,6 +164,7 @@ export function distortedText(result: DistortedResult, geometry: GeometryUsed, t
   lines.push('', `Predicted spin-allowed bands (from ${unicodeGroupLabel(g.label)}):`);
   lines.push(bands.length > 0 ? table(headers, bands.map(row)) : '  none');
   lines.push('', 'All levels:', table(headers, result.levels.map(row)));
+  lines.push(...spinOrbitLines(result));
   const cautions = cautionsOf(result, geometry);
   if (cautions.length > 0) lines.push('', 'Cautions:', ...cautions.map((c) => `  - ${c.message}`));
   lines.push('', 'These are model predictions for the geometry and parameters given, not measurements.');

@@ -1,7 +1,7 @@
 /**
  * Where the levels of a distorted complex can mislead, in words a report can carry: an orbitally
  * degenerate ground state (Jahn–Teller), open axial positions (d–s mixing, which the angular
- * overlap model here leaves out), spin–orbit coupling (left out), and bands in the
+ * overlap model here leaves out), spin–orbit coupling (left out, or named only in part), and bands in the
  * charge-transfer region. Thresholds are rules of thumb (common practice, no source).
  */
 
@@ -14,6 +14,9 @@ export interface DistortedCaution {
   readonly code: 'jahn-teller' | 'd-s-mixing' | 'spin-orbit' | 'charge-transfer' | 'weak-parents';
   readonly message: string;
 }
+
+/** Misfit of the nearest cubic field above which the spin–orbit levels' cubic names are worth a caution (common practice, no source). */
+const SPIN_ORBIT_PARENT_MISFIT = 0.1;
 
 /** A ligand counts as axial when its direction is within this cosine of the principal axis. */
 const AXIAL_COSINE = 0.9;
@@ -48,11 +51,19 @@ export function distortedCautions(
       });
     }
   }
-  out.push({
-    code: 'spin-orbit',
-    message:
-      'spin–orbit coupling is left out: levels split further (strongly for 4d and 5d ions), and spin-forbidden bands borrow intensity where levels of different spin come close',
-  });
+  if (!('spinOrbit' in result)) {
+    out.push({
+      code: 'spin-orbit',
+      message:
+        'spin–orbit coupling is left out (give ζ to add it): levels split further (strongly for 4d and 5d ions), and spin-forbidden bands borrow intensity where levels of different spin come close',
+    });
+  } else if (result.cubic.misfit > SPIN_ORBIT_PARENT_MISFIT) {
+    out.push({
+      code: 'spin-orbit',
+      message:
+        "with spin–orbit coupling the levels are named only by their degeneracy, the level without ζ they lie in most and, where the weight is high, the cubic double-group level: the point group's double-group irreps are not worked out here",
+    });
+  }
   if (result.levels.some((l) => l.spinAllowed && l.energy > CHARGE_TRANSFER_ONSET)) {
     out.push({
       code: 'charge-transfer',

@@ -99,6 +99,33 @@ describe('the commands with a geometry, in process', () => {
     expect(json.cautions.join(' ')).not.toContain('d–s mixing lowers');
   });
 
+  it('termsplit levels --shape --zeta ion adds Kramers doublets named by their levels without ζ', async () => {
+    const r = await runInProcess(
+      words(
+        'levels --ion Cu2+ --shape elongated-octahedron --bond eq=6500,1000 --bond ax=3500,500 --zeta ion --json',
+      ),
+      dir,
+    );
+    expect(r.code).toBe(0);
+    const json = JSON.parse(r.stdout);
+    expect(json.spinOrbit.kramers).toBe(true);
+    expect(json.spinOrbit.levels).toHaveLength(5);
+    expect(json.spinOrbit.levels[0].parent.label).toBe('2B1g');
+    expect(json.cautions.join(' ')).not.toContain('spin–orbit coupling is left out');
+    const text = await runInProcess(
+      words(
+        'levels --ion Cu2+ --shape elongated-octahedron --bond eq=6500,1000 --bond ax=3500,500 --zeta 600',
+      ),
+      dir,
+    );
+    expect(text.stdout).toContain('With spin–orbit coupling, ζ = 600 cm⁻¹');
+    const bad = await runInProcess(
+      words('levels --d 3 --B 700 --shape octahedron --bond 7000 --zeta -5'),
+      dir,
+    );
+    expect(bad.code).toBe(2);
+  });
+
   it('termsplit fit --tetragonal fits a d9 ion exactly and says so', async () => {
     const r = await runInProcess(
       words('fit --ion Cu2+ --tetragonal 1200,1500,400 --bands 9000,12500,15500 --assign 2A1g,2B2g,2Eg'),
