@@ -16,7 +16,6 @@ import { formatOfPath } from '../../charts/render.js';
 import { cubicCautions } from '../../src/analysis/cautions.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
-import { InputError } from '../../src/core/errors.js';
 import { elementOfIon, findIon } from '../../src/core/ions.js';
 import { ENERGY_LIMIT, LABEL_COUNT_LIMIT } from '../../src/core/limits.js';
 import { cmToEv, cmToNm } from '../../src/core/units.js';
