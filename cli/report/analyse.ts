@@ -102,6 +102,8 @@ export interface SampleFailure {
   readonly name: string;
   readonly slug: string;
   readonly error: string;
+  /** The fit with the sample's geometry, where the sheet gives one and it worked though the cubic analysis did not. */
+  readonly structure?: DistortedSampleReport;
 }
 
 /** The outcome of one sample. */
@@ -113,7 +115,42 @@ export function analyseSample(task: SampleTask): SampleOutcome {
     return analyse(task);
   } catch (e) {
     const message = e instanceof InputError ? e.message : `internal error: ${(e as Error).message}`;
-    return { ok: false, name: task.sample.name, slug: task.slug, error: message };
+    const structure = e instanceof InputError ? structureOnly(task) : undefined;
+    if (typeof structure === 'string') {
+      return { ok: false, name: task.sample.name, slug: task.slug, error: `${message}; ${structure}` };
+    }
+    return {
+      ok: false,
+      name: task.sample.name,
+      slug: task.slug,
+      error: message,
+      ...(structure ? { structure } : {}),
+    };
+  }
+}
+
+/**
+ * The fit with the geometry alone, for a sample whose cubic analysis failed: a distorted
+ * complex's bands often fit no cubic model. Only given band maxima are used (a spectrum's bands
+ * come from the cubic fit); undefined when there is no geometry, and the reason when it fails too.
+ */
+function structureOnly(task: SampleTask): DistortedSampleReport | string | undefined {
+  const { sample } = task;
+  if (!sample.structure || !sample.bands) return undefined;
+  try {
+    const ion = findIon(sample.ion);
+    const bands = sample.bands.map((b) =>
+      b.sigma === undefined ? { energy: b.value } : { energy: b.value, sigma: b.sigma },
+    );
+    return distortedSampleFit(sample.structure, task.sheetDir, {
+      n: ion.n,
+      ion,
+      cOverB: cOverBOf(sample, ion).cOverB,
+      bands,
+    });
+  } catch (e) {
+    if (e instanceof InputError) return `the fit with its geometry failed too: ${e.message}`;
+    throw e;
   }
 }
 

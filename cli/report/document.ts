@@ -11,7 +11,7 @@ import { fixed } from '../format.js';
 import { unicodeGroupLabel } from '../present/distortedPresent.js';
 import { withError } from '../present/fitPresent.js';
 import type { SampleResult } from './analyse.js';
-import type { ReportModel } from './model.js';
+import type { ReportModel, StructureOnlySample } from './model.js';
 
 /** A table with a file name for its CSV copy. */
 export interface TableBlock {
@@ -108,6 +108,7 @@ export function reportBlocks(model: ReportModel, trends?: { tenDq: string; beta:
   }
   blocks.push({ kind: 'heading', level: 2, text: 'Samples', id: 'samples' });
   for (const s of model.samples) blocks.push(...sampleBlocks(s));
+  for (const s of model.structureOnly) blocks.push(...structureOnlyBlocks(s));
   if (model.problems.length > 0) {
     blocks.push({ kind: 'heading', level: 2, text: 'Samples not reported', id: 'problems' });
     blocks.push({
@@ -277,7 +278,7 @@ function fitBlocks(s: SampleResult): Block[] {
 }
 
 /** The fit with the sample's geometry: the geometry used, the parameters, the bands, the warnings. */
-function structureBlocks(s: SampleResult): Block[] {
+function structureBlocks(s: Pick<SampleResult, 'slug' | 'structure'>): Block[] {
   const g = s.structure;
   if (!g) return [];
   const files = sampleFiles(s.slug);
@@ -310,6 +311,20 @@ function structureBlocks(s: SampleResult): Block[] {
       ]),
     },
     ...(g.warnings.length > 0 ? [{ kind: 'list' as const, items: g.warnings }] : []),
+  ];
+}
+
+/** A sample whose cubic analysis failed, shown with the fit of its geometry and a caution saying so. */
+function structureOnlyBlocks(s: StructureOnlySample): Block[] {
+  return [
+    { kind: 'heading', level: 3, text: s.name, id: `sample-${s.slug}` },
+    {
+      kind: 'list',
+      items: [
+        `The cubic fit failed (${s.error}); only the fit with the complex's geometry is shown, and the sample is left out of the series, the orders and the spin-state verdicts.`,
+      ],
+    },
+    ...structureBlocks(s),
   ];
 }
 

@@ -23,8 +23,13 @@ export const ANGULAR_OVERLAP_REFERENCE =
   'C. E. Schäffer and C. K. Jørgensen, The angular overlap model, an attempt to revive the ligand field approaches, Mol. Phys. 9, 401 (1965).';
 
 /** The references of a report on these samples. */
-export function referencesFor(samples: readonly SampleResult[]): string[] {
-  return samples.some((s) => s.structure) ? [...REFERENCES, ANGULAR_OVERLAP_REFERENCE] : [...REFERENCES];
+export function referencesFor(
+  samples: readonly SampleResult[],
+  structureOnly: readonly string[] = [],
+): string[] {
+  return samples.some((s) => s.structure) || structureOnly.length > 0
+    ? [...REFERENCES, ANGULAR_OVERLAP_REFERENCE]
+    : [...REFERENCES];
 }
 
 function list(items: readonly string[]): string {
@@ -43,9 +48,14 @@ function ratioText(origins: readonly string[]): string {
 /**
  * A paragraph a user can put in a methods section: the model, what was fixed and fitted, the
  * C/B used, the free-ion values and their source, and how the errors and the spin-state
- * verdicts were obtained — for the samples this report actually holds.
+ * verdicts were obtained — for the samples this report actually holds (`structureOnly`: the names
+ * of samples shown only with the fit of their geometry).
  */
-export function methodsParagraph(samples: readonly SampleResult[], version: string): string {
+export function methodsParagraph(
+  samples: readonly SampleResult[],
+  version: string,
+  structureOnly: readonly string[] = [],
+): string {
   const fromSpectra = samples.filter((s) => s.source === 'spectrum').map((s) => s.name);
   const fromBands = samples.filter((s) => s.source === 'bands').map((s) => s.name);
   const fittedC = samples.filter((s) => s.best.cFitted).map((s) => s.name);
@@ -87,15 +97,16 @@ export function methodsParagraph(samples: readonly SampleResult[], version: stri
       `squares (Levenberg 1944; Marquardt 1963)${ratioText(ratios)}` +
       `${fittedC.length > 0 ? `; C was fitted as well for ${list(fittedC)}` : ''}.`,
   );
-  parts.push(
-    `Standard errors were derived from the Jacobian at the optimum, ${bases.map((b) => (b === 'band-uncertainties' ? 'propagated from the band uncertainties' : 'scaled by the residual variance')).join(' or ')}.`,
-  );
+  if (bases.length > 0)
+    parts.push(
+      `Standard errors were derived from the Jacobian at the optimum, ${bases.map((b) => (b === 'band-uncertainties' ? 'propagated from the band uncertainties' : 'scaled by the residual variance')).join(' or ')}.`,
+    );
   if (freeB.length > 0) {
     parts.push(
       `The nephelauxetic ratio β = B/B₀ uses the free-ion values B₀ = ${list(freeB)} (${sources.join('; ')}).`,
     );
   }
-  const structured = samples.filter((s) => s.structure).map((s) => s.name);
+  const structured = [...samples.filter((s) => s.structure).map((s) => s.name), ...structureOnly];
   if (structured.length > 0) {
     parts.push(
       `For ${list(structured)} the bands were also fitted with the complex's own geometry: the one-electron ` +

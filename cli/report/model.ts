@@ -7,7 +7,13 @@
 import type { SampleSheet, SheetProblem } from '../../src/sheets/sampleSheet.js';
 import type { IonOrder } from '../../src/sheets/series.js';
 import { type SeriesEntry, seriesOrders, seriesTable } from '../../src/sheets/series.js';
-import type { SampleOutcome, SampleResult } from './analyse.js';
+import type { SampleFailure, SampleOutcome, SampleResult } from './analyse.js';
+
+/** A sample shown only with the fit of its geometry. */
+export type StructureOnlySample = SampleFailure & {
+  readonly structure: NonNullable<SampleFailure['structure']>;
+};
+
 import { methodsParagraph, referencesFor } from './methods.js';
 
 /** Everything a report shows, in the order it shows it. */
@@ -19,6 +25,8 @@ export interface ReportModel {
   readonly date: string;
   readonly sheet: string;
   readonly samples: readonly SampleResult[];
+  /** Samples whose cubic analysis failed but whose fit with their geometry worked (also among the problems). */
+  readonly structureOnly: readonly StructureOnlySample[];
   /** Samples that failed: in the sheet (per field) or in the analysis. */
   readonly problems: readonly SheetProblem[];
   readonly series: readonly SeriesEntry[];
@@ -48,7 +56,14 @@ export function reportModel(
   const samples = outcomes.filter((o): o is SampleResult => o.ok);
   const failures: SheetProblem[] = outcomes
     .filter((o) => !o.ok)
-    .map((o) => ({ sample: o.name, field: 'analysis', message: o.ok ? '' : o.error }));
+    .map((o) => ({
+      sample: o.name,
+      field: 'analysis',
+      message: o.ok
+        ? ''
+        : `${o.error}${o.structure ? ' (the fit with its geometry is shown under Samples)' : ''}`,
+    }));
+  const structureOnly = outcomes.filter((o): o is StructureOnlySample => !o.ok && o.structure !== undefined);
   const series = seriesTable(samples.map((s) => s.series));
   return {
     title: sheet.title,
@@ -58,11 +73,19 @@ export function reportModel(
     date,
     sheet: sheetPath,
     samples,
+    structureOnly,
     problems: [...sheet.problems, ...failures],
     series,
     orders: seriesOrders(series),
-    methods: methodsParagraph(samples, version),
-    references: referencesFor(samples),
+    methods: methodsParagraph(
+      samples,
+      version,
+      structureOnly.map((s) => s.name),
+    ),
+    references: referencesFor(
+      samples,
+      structureOnly.map((s) => s.name),
+    ),
     cautions: REPORT_CAUTIONS,
   };
 }

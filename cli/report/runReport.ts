@@ -119,7 +119,7 @@ export async function runReport(
   const folder = reserveReportFolder(dir);
   try {
     const model = await reportOf(sheet, problems, sheetDir, sheetLabel, jobs, io);
-    if (model.samples.length === 0) {
+    if (model.samples.length === 0 && model.structureOnly.length === 0) {
       throw new InputError(
         `no sample of ${sheetPath} could be reported (${model.problems.length} problem${model.problems.length === 1 ? '' : 's'}, listed above)`,
       );
@@ -203,6 +203,7 @@ export function reportJson(model: ReportModel) {
         ...(svg.spectrum ? { spectrum: sampleFiles(rest.slug).spectrum } : {}),
       },
     })),
+    ...(model.structureOnly.length > 0 ? { structureOnly: model.structureOnly } : {}),
     problems: model.problems,
     methods: model.methods,
     references: model.references,

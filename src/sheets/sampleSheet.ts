@@ -19,7 +19,12 @@ import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
 import type { Geometry } from '../field/labels.js';
 import { MAX_ZETA } from '../field/spinOrbit.js';
 import { splitCsvLine } from './csv.js';
-import { geometrySchema, type SheetGeometry } from './geometrySheet.js';
+import {
+  GEOMETRY_CSV_COLUMNS,
+  geometryCsvValue,
+  geometrySchema,
+  type SheetGeometry,
+} from './geometrySheet.js';
 
 /** Where a sample's spectrum is and how to read it (see the spectrum reader for each field). */
 export interface SpectrumSpec {
@@ -339,7 +344,8 @@ const CSV_COLUMNS: Readonly<Record<string, string>> = {
 
 /**
  * The simple form: a header row (name, ion, geometry, bands, spectrum, cb, fit_c, assign,
- * spin_forbidden, keep_bands, spin_state, zeta, notes; any order, only name and ion required), then one sample a
+ * spin_forbidden, keep_bands, spin_state, zeta, notes, and the geometry columns of
+ * GEOMETRY_CSV_COLUMNS; any order, only name and ion required), then one sample a
  * row. Bands in
  * one cell are separated by `;` (or commas inside double quotes). Lines starting with `#` are
  * comments.
@@ -356,10 +362,10 @@ function csvSheet(text: string): unknown {
       .trim()
       .toLowerCase()
       .replace(/[\s-]+/g, '_');
-    const field = CSV_COLUMNS[key];
+    const field = CSV_COLUMNS[key] ?? (GEOMETRY_CSV_COLUMNS[key] ? `structure.${key}` : undefined);
     if (!field) {
       throw new InputError(
-        `sample sheet: unknown column "${c.trim()}" on line ${header.line}: expected ${Object.keys(CSV_COLUMNS).join(', ')}`,
+        `sample sheet: unknown column "${c.trim()}" on line ${header.line}: expected ${[...Object.keys(CSV_COLUMNS), ...Object.keys(GEOMETRY_CSV_COLUMNS)].join(', ')}`,
       );
     }
     return field;
@@ -375,7 +381,12 @@ function csvSheet(text: string): unknown {
       fields.forEach((field, i) => {
         const cell = r.cells[i]?.trim() ?? '';
         if (cell === '') return;
-        sample[field] = csvValue(field, cell);
+        const column = field.startsWith('structure.') ? GEOMETRY_CSV_COLUMNS[field.slice(10)] : undefined;
+        if (column) {
+          const structure = (sample.structure ?? {}) as Record<string, unknown>;
+          structure[column] = geometryCsvValue(column, cell);
+          sample.structure = structure;
+        } else sample[field] = csvValue(field, cell);
       });
       return sample;
     }),

@@ -58,4 +58,56 @@ describe('report with a sample geometry', () => {
       readFileSync(join(dir, 'out', 'tables', 'invented-trans-chromium-structure-bands.csv'), 'utf8'),
     ).toContain('24500');
   });
+
+  it('parseSampleSheet reads the geometry columns of a CSV sheet into the structure field', () => {
+    const sheet = parseSampleSheet(
+      [
+        'name,ion,bands,shape,bonds,eds,free,levels,tetragonal',
+        'a,Cr3+,17200;19300,trans-MA4B2,"A=7000,1000; B=5500 800",,eSigma(A);B,4Eg;4B2g,',
+        'b,Cu2+,9000;12500;15500,,,,,2A1g 2B2g 2Eg,"1200,1500,400"',
+        'c,Cu2+,9000,square-plane,"6000,900",1200,,,',
+      ].join('\n'),
+      'csv',
+    );
+    expect(sheet.problems).toEqual([]);
+    expect(sheet.samples[0]?.structure).toEqual({
+      shape: 'trans-MA4B2',
+      bonds: { A: [7000, 1000], B: [5500, 800] },
+      free: ['eSigma(A)', 'B'],
+      assign: ['4Eg', '4B2g'],
+    });
+    expect(sheet.samples[1]?.structure).toEqual({
+      tetragonal: [1200, 1500, 400],
+      assign: ['2A1g', '2B2g', '2Eg'],
+    });
+    expect(sheet.samples[2]?.structure).toEqual({
+      shape: 'square-plane',
+      bonds: { '*': [6000, 900] },
+      eds: 1200,
+    });
+    const bad = parseSampleSheet('name,ion,bands,tetragonal\nx,Cu2+,9000,"1200,oops,400"', 'csv');
+    expect(bad.problems[0]?.field).toBe('structure.tetragonal.1');
+    expect(bad.problems[0]?.message).toContain('oops');
+  });
+
+  it('termsplit report shows the fit with the geometry, with a caution, when the cubic fit fails', async () => {
+    // Invented sheet: three kept components of a d9 ion, which no cubic model assigns.
+    const path = join(dir, 'planar.csv');
+    writeFileSync(
+      path,
+      [
+        '# invented test data',
+        'name,ion,bands,keep_bands,shape,bonds,eds,free,levels',
+        'invented planar copper,Cu2+,12500;14250;16900,yes,square-plane,"5000,1000",1000,eSigma(L);ePi(L);eDs,2B2g;2Eg;2A1g',
+      ].join('\n'),
+    );
+    const r = await runInProcess(['report', path, '-o', join(dir, 'planar'), '--jobs', '1', '--json'], dir);
+    expect(r.code).toBe(0);
+    const md = readFileSync(join(dir, 'planar', 'report.md'), 'utf8');
+    expect(md).toContain('The cubic fit failed');
+    expect(md).toContain('With its geometry: square-plane, D4h');
+    const json = JSON.parse(readFileSync(join(dir, 'planar', 'report.json'), 'utf8'));
+    expect(json.samples).toEqual([]);
+    expect(json.structureOnly[0].structure.parameters['ePi(L)']).toBeCloseTo(875, 3);
+  });
 });
