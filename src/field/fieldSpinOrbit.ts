@@ -1,10 +1,11 @@
 /**
  * Levels of dⁿ in a one-electron field of any symmetry with spin–orbit coupling ζ Σ l·s, over
  * all C(10, n) determinants of the complex |m_l⟩ spin-orbitals. There the repulsion and l·s are
- * real (Condon–Shortley phases) but a general field is complex Hermitian, H = A + iB; with no
- * symmetry left to block by, H is diagonalised as the real symmetric [[A, −B], [B, A]] of twice
- * the size, whose spectrum is H's with every eigenvalue twice (ml-matrix has no Hermitian
- * solver). The levels are named by what survives in low symmetry: their degeneracy (Kramers
+ * real (Condon–Shortley phases) but a general field is complex Hermitian, H = A + iB, and no
+ * point symmetry is left to block by. Time reversal is: for even n, H is real over a basis of
+ * time-reversal-even states, of the same size; for odd n (Kramers) it is diagonalised as the real
+ * symmetric [[A, −B], [B, A]] of twice the size, whose spectrum is H's with every eigenvalue twice
+ * (ml-matrix has no Hermitian solver). The levels are named by what survives in low symmetry: their degeneracy (Kramers
  * doublets for odd n), the spin–orbit-free level they come from, and, where the field is near
  * cubic, the double-group level of the nearest cubic field (weights of the eigenvectors).
  */
@@ -120,25 +121,33 @@ function complexFieldMatrices(
   return { re: oneBodyMatrix(block, re), im: oneBodyMatrix(block, im) };
 }
 
+/** H = A + iB = B·H_B + C·H_C + V + ζ·H_ζ over all N determinants of dⁿ (row-major N×N parts). */
+function complexHamiltonian(input: FieldSpinOrbitInput): {
+  size: number;
+  re: Float64Array;
+  im: Float64Array;
+} {
+  const { block, partZeta } = fullBasis(input.n);
+  const field = complexFieldMatrices(block, input.field);
+  const re = field.re.map(
+    (x, k) =>
+      x + input.B * (block.partB[k] ?? 0) + input.C * (block.partC[k] ?? 0) + input.zeta * (partZeta[k] ?? 0),
+  );
+  return { size: block.masks.length, re, im: field.im };
+}
+
 /**
- * The real symmetric [[A, −B], [B, A]] (row-major, size 2N) of H = A + iB = B·H_B + C·H_C + V +
- * ζ·H_ζ over all N determinants of dⁿ: the slow, obvious path with nothing blocked.
+ * The real symmetric [[A, −B], [B, A]] (row-major, size 2N) of H = A + iB over all N determinants
+ * of dⁿ: the slow, obvious path with nothing blocked (each eigenvalue of H twice).
  */
 export function embeddedHamiltonian(input: FieldSpinOrbitInput): { size: number; matrix: Float64Array } {
-  const { block, partZeta } = fullBasis(input.n);
-  const { re, im } = complexFieldMatrices(block, input.field);
-  const n = block.masks.length;
+  const { size: n, re, im } = complexHamiltonian(input);
   const size = 2 * n;
   const matrix = new Float64Array(size * size);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
-      const k = i * n + j;
-      const a =
-        input.B * (block.partB[k] ?? 0) +
-        input.C * (block.partC[k] ?? 0) +
-        (re[k] ?? 0) +
-        input.zeta * (partZeta[k] ?? 0);
-      const b = im[k] ?? 0;
+      const a = re[i * n + j] ?? 0;
+      const b = im[i * n + j] ?? 0;
       matrix[i * size + j] = a;
       matrix[(n + i) * size + n + j] = a;
       matrix[i * size + n + j] = -b;
@@ -148,25 +157,123 @@ export function embeddedHamiltonian(input: FieldSpinOrbitInput): { size: number;
   return { size, matrix };
 }
 
-/** A level of the embedded problem: energy and the real vectors (twice the complex dimension). */
+/** One vector of the time-reversal-even basis: a few determinants with complex coefficients. */
+type SparseVector = readonly { readonly index: number; readonly re: number; readonly im: number }[];
+
+/**
+ * Time reversal Θ = K·(−iσ_y) on one spin-orbital: |m α⟩ → (−1)^m |−m β⟩, |m β⟩ → −(−1)^m |−m α⟩
+ * (K turns Y_lm into (−1)^m Y_l,−m in the Condon–Shortley phase). Returns the image and its sign.
+ */
+function reversedSpinOrbital(p: number): { q: number; sign: number } {
+  const alpha = p < 5;
+  const m = alpha ? p - 2 : p - 7;
+  const even = m % 2 === 0 ? 1 : -1;
+  return { q: spinOrbital(2, -m, !alpha), sign: alpha ? even : -even };
+}
+
+/** Θ on a determinant (creators in ascending spin-orbital order): the image's mask and sign. */
+function reversedDeterminant(mask: number): { mask: number; sign: number } {
+  const qs: number[] = [];
+  let sign = 1;
+  for (let p = 0; p < 10; p++) {
+    if (!(mask & (1 << p))) continue;
+    const r = reversedSpinOrbital(p);
+    qs.push(r.q);
+    sign *= r.sign;
+  }
+  // Bring the creators back into ascending order: one sign per inversion.
+  for (let i = 0; i < qs.length; i++)
+    for (let j = i + 1; j < qs.length; j++) if ((qs[i] ?? 0) > (qs[j] ?? 0)) sign = -sign;
+  return { mask: qs.reduce((m, q) => m | (1 << q), 0), sign };
+}
+
+const evenBasisCache = new Map<number, SparseVector[]>();
+
+/**
+ * For even n, where Θ² = +1: an orthonormal basis of Θ-even states, (D + ΘD)/√2 and i(D − ΘD)/√2
+ * for each pair of determinants ΘD = ±D′, and D or iD for a determinant that is its own image.
+ * H commutes with Θ (no magnetic field), so its matrix there is real (Wigner's theorem).
+ */
+function timeEvenBasis(n: number): SparseVector[] {
+  const cached = evenBasisCache.get(n);
+  if (cached) return cached;
+  const { block } = fullBasis(n);
+  const out: SparseVector[] = [];
+  const s = Math.SQRT1_2;
+  block.masks.forEach((mask, i) => {
+    const r = reversedDeterminant(mask);
+    const j = block.index.get(r.mask);
+    if (j === undefined) throw new Error('time reversal leaves the determinants of dⁿ');
+    if (j === i) {
+      out.push([r.sign > 0 ? { index: i, re: 1, im: 0 } : { index: i, re: 0, im: 1 }]);
+    } else if (i < j) {
+      out.push([
+        { index: i, re: s, im: 0 },
+        { index: j, re: r.sign * s, im: 0 },
+      ]);
+      out.push([
+        { index: i, re: 0, im: s },
+        { index: j, re: 0, im: -r.sign * s },
+      ]);
+    }
+  });
+  evenBasisCache.set(n, out);
+  return out;
+}
+
+/** H over the Θ-even basis of even n: real symmetric, N×N (the imaginary part vanishes). */
+export function timeEvenHamiltonian(input: FieldSpinOrbitInput): { size: number; matrix: Float64Array } {
+  const { size, re, im } = complexHamiltonian(input);
+  const basis = timeEvenBasis(input.n);
+  const matrix = new Float64Array(size * size);
+  basis.forEach((u, k) => {
+    basis.forEach((v, l) => {
+      if (l < k) return;
+      let sum = 0;
+      for (const a of u) {
+        for (const b of v) {
+          const hr = re[a.index * size + b.index] ?? 0;
+          const hi = im[a.index * size + b.index] ?? 0;
+          // Re(conj(a)·h·b)
+          const tr = hr * b.re - hi * b.im;
+          const ti = hr * b.im + hi * b.re;
+          sum += a.re * tr + a.im * ti;
+        }
+      }
+      matrix[k * size + l] = sum;
+      matrix[l * size + k] = sum;
+    });
+  });
+  return { size, matrix };
+}
+
+/** A level: energy, degeneracy and an orthonormal real basis of it (for the weights). */
 interface EmbeddedLevel {
   readonly energy: number;
+  readonly degeneracy: number;
   readonly vectors: readonly Float64Array[];
 }
 
+/**
+ * The levels of H: for even n from the real N×N matrix over the Θ-even basis, for odd n (Θ² = −1,
+ * no real basis) from the embedded 2N×2N one, where every level's vectors come twice.
+ */
 function embeddedLevels(input: FieldSpinOrbitInput, withVectors: boolean): EmbeddedLevel[] {
-  const { size, matrix } = embeddedHamiltonian(input);
+  const even = input.n % 2 === 0;
+  const { size, matrix } = even ? timeEvenHamiltonian(input) : embeddedHamiltonian(input);
+  const copies = even ? 1 : 2;
   const eig = symmetricEigen(matrix, size);
   const values = [...eig.values];
   let scale = 1;
   for (const v of values) scale = Math.max(scale, Math.abs(v));
   return clusterSorted(values, DEGENERACY_TOLERANCE + DEGENERACY_RELATIVE * scale).map((run) => ({
     energy: run.reduce((s, i) => s + (values[i] ?? 0), 0) / run.length,
-    vectors: withVectors ? run.map((i) => column(eig.vectors, size, i)) : run.map(() => new Float64Array(0)),
+    degeneracy: run.length / copies,
+    vectors: withVectors ? run.map((i) => column(eig.vectors, size, i)) : [],
   }));
 }
 
-/** Fraction of `level` in the span of `ref` (real traces of the embedded projectors, whose ratio is the complex one). */
+/** Fraction of `level` in the span of `ref` (for odd n, real traces of the embedded projectors, whose ratio is the complex one). */
 function weightIn(level: EmbeddedLevel, ref: EmbeddedLevel): number {
   let w = 0;
   for (const v of level.vectors) {
@@ -237,7 +344,7 @@ export function solveFieldSpinOrbit(
       return {
         index: i + 1,
         energy: level.energy - ground,
-        degeneracy: level.vectors.length / 2,
+        degeneracy: level.degeneracy,
         ...(parent ? { parent } : {}),
         ...(cubicParent ? { cubicParent } : {}),
       };

@@ -1,11 +1,16 @@
 import { describe, expect, it } from 'vitest';
 import { aomField, type Ligand } from '../../src/field/angularOverlap.js';
 import { solveDistorted, solveDistortedSpinOrbit } from '../../src/field/distortedComplex.js';
-import { solveFieldSpinOrbit } from '../../src/field/fieldSpinOrbit.js';
+import {
+  embeddedHamiltonian,
+  solveFieldSpinOrbit,
+  timeEvenHamiltonian,
+} from '../../src/field/fieldSpinOrbit.js';
 import { presetLigands } from '../../src/field/geometries.js';
 import { solveField } from '../../src/field/lowSymmetrySolver.js';
 import { apply3, axisRotation } from '../../src/field/realOrbitals.js';
 import { solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
+import { symmetricEigen } from '../../src/numeric/eigen.js';
 import { expectClose } from '../helpers.js';
 
 /** A ligand set of no symmetry at all. */
@@ -118,5 +123,19 @@ describe('solveFieldSpinOrbit: invariants', () => {
     expect(r.spinOrbit.levels.map((l) => l.degeneracy)).toEqual([2, 2, 2, 2, 2]);
     expect(r.spinOrbit.levels[0]?.parent?.label).toBe(free.ground.label);
     expect(r.spinOrbit.levels[0]?.parent?.weight).toBeGreaterThan(0.99);
+  });
+});
+
+describe('solveFieldSpinOrbit: the real time-even path against the embedded one', () => {
+  it('timeEvenHamiltonian (N×N) has the spectrum of embeddedHamiltonian (2N×2N), each value once instead of twice', () => {
+    for (const n of [2, 8]) {
+      const input = { n, field: SKEW_FIELD, B: 700, C: 3000, zeta: 700 };
+      const fast = timeEvenHamiltonian(input);
+      const slow = embeddedHamiltonian(input);
+      expect(slow.size).toBe(2 * fast.size);
+      const a = [...symmetricEigen(fast.matrix, fast.size).values];
+      const b = [...symmetricEigen(slow.matrix, slow.size).values].filter((_, i) => i % 2 === 0);
+      expectSameSpectrum(a, b, 1e-7);
+    }
   });
 });
