@@ -105,6 +105,7 @@ describe('report with a sample geometry', () => {
     expect(r.code).toBe(0);
     const md = readFileSync(join(dir, 'planar', 'report.md'), 'utf8');
     expect(md).toContain('The cubic fit failed');
+    expect(md).toContain('1 of those shown with the fit of their geometry only');
     expect(md).toContain('With its geometry: square-plane, D4h');
     const json = JSON.parse(readFileSync(join(dir, 'planar', 'report.json'), 'utf8'));
     expect(json.samples).toEqual([]);
