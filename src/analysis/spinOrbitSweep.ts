@@ -107,11 +107,12 @@ export function sweepSpinOrbit(n: number, options: SpinOrbitSweepOptions): SpinO
   xs.forEach((x, i) => {
     const dqOct = (sign * x * B) / 10;
     const ends = i === 0 || i === xs.length - 1;
-    // Inside the sweep eigenvalues alone name the levels; the ends need eigenvectors for parentage.
+    // Inside the sweep eigenvalues alone name the levels; the ends need eigenvectors (Δ/B = 0 for
+    // the free-ion coincidences, the last point for the parentage that names the curves there).
     const fast = ends ? null : spinOrbitEnergies(n, dqOct, B, C, zeta);
     let levels: readonly LevelEnergy[] | null = fast;
     if (!levels) {
-      const r = spinOrbitLevels(n, dqOct, B, C, zeta, geometry, ends);
+      const r = spinOrbitLevels(n, dqOct, B, C, zeta, geometry, i === xs.length - 1);
       if (i === 0) first = r;
       if (ends) last = r;
       levels = r.levels;
