@@ -1,4 +1,6 @@
-import { pathToFileURL } from 'node:url';
+import { spawnSync } from 'node:child_process';
+import { existsSync, readFileSync } from 'node:fs';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { sweepSpinOrbit } from '../src/analysis/spinOrbitSweep.js';
 import { fullSpinOrbitHamiltonian } from '../src/field/spinOrbitBlocks.js';
 import { solveSpinOrbit } from '../src/field/spinOrbitSolver.js';
@@ -7,7 +9,9 @@ import { timeItCpu } from './timing.js';
 
 /**
  * Spin–orbit benchmark: the M_J-blocked solver against the full C(10, n) matrix in the same run
- * (every level labelled Γ1…Γ8; with and without parentage), and a 1000-point d⁵ diagram with ζ.
+ * (every level labelled Γ1…Γ8; with and without parentage), and a 1000-point d⁵ diagram with ζ —
+ * the sweep in this process, and the whole `termsplit diagram d5 --zeta … --points 1000 --json`
+ * command as a new process (start-up, sweep with the curves' parents, JSON).
  */
 export function benchSpinOrbit(): void {
   const point = { dq: 1500, B: 800, C: 3500, zeta: 400 };
@@ -29,6 +33,37 @@ export function benchSpinOrbit(): void {
   const sweep = timeItCpu(() => sweepSpinOrbit(5, { zetaOverB: 0.5, points: 1000 }), 1);
   console.log(
     `  d5 diagram with ζ/B = 0.5, 1000 Δ/B points (0…40): ${sweep.cpu.toFixed(0)} ms CPU (${sweep.wall.toFixed(0)} ms wall)`,
+  );
+  benchDiagramProcess();
+}
+
+/** The command timed as a whole process, with its arguments. */
+const D5_COMMAND = ['diagram', 'd5', '--ion', 'Mn2+', '--zeta', 'ion', '--points', '1000', '--json'];
+
+/** CPU seconds of this process's finished children (Linux /proc; null elsewhere). */
+function childrenCpu(): number | null {
+  if (!existsSync('/proc/self/stat')) return null;
+  const fields = readFileSync('/proc/self/stat', 'utf8')
+    .replace(/^.*\) /, '')
+    .split(' ');
+  // After the name: state is field 3, so cutime and cstime (16, 17) are at 13 and 14; clock ticks of 1/100 s.
+  return (Number(fields[13]) + Number(fields[14])) / 100;
+}
+
+/** The 1000-point d⁵ diagram with ζ as the user runs it: a new node process on the built command line. */
+function benchDiagramProcess(): void {
+  const main = fileURLToPath(new URL('../cli/main.js', import.meta.url));
+  if (!existsSync(main)) return;
+  const cpuBefore = childrenCpu();
+  const start = performance.now();
+  const run = spawnSync(process.execPath, [main, ...D5_COMMAND], { encoding: 'utf8', maxBuffer: 1 << 28 });
+  const wall = performance.now() - start;
+  const cpuAfter = childrenCpu();
+  const cpu =
+    cpuBefore === null || cpuAfter === null ? '' : `${((cpuAfter - cpuBefore) * 1000).toFixed(0)} ms CPU, `;
+  console.log(
+    `  termsplit ${D5_COMMAND.join(' ')} (whole process): ${cpu}${wall.toFixed(0)} ms wall` +
+      (run.status === 0 ? '' : ` — exit code ${run.status}`),
   );
 }
 

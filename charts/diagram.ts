@@ -16,6 +16,7 @@ import { type FigureOptions, renderChart } from './render.js';
 import { type SampleMark, samplePosition, withSample } from './sampleOverlay.js';
 import { axisTitle, STYLE, TICKS } from './style.js';
 import {
+  captionRuns,
   chartContext,
   drawFrame,
   drawRuns,
@@ -109,8 +110,21 @@ function regionColor(diagram: CorrelationDiagram, r: number): string {
   return diagram.regions[r]?.S === top ? STYLE.allowed : STYLE.allowedLowSpin;
 }
 
-function allowedIn(diagram: CorrelationDiagram, curve: DiagramCurve, r: number): boolean {
-  return diagram.regions[r]?.S === curve.S;
+/** Whether a curve is spin-allowed in region `r` (at Δ/B = x where its parent changes along it, as with ζ). */
+function allowedIn(diagram: CorrelationDiagram, curve: DiagramCurve, r: number, x?: number): boolean {
+  return diagram.regions[r]?.S === (x === undefined ? curve.S : spinAt(curve, x));
+}
+
+/** A curve's spin at Δ/B = x: its parent's there when it carries stretches (with ζ), else its own. */
+function spinAt(curve: DiagramCurve, x: number): number {
+  let S = curve.S;
+  for (const s of curve.stretches ?? []) if (s.fromDeltaOverB <= x) S = s.S;
+  return S;
+}
+
+/** The runs of a curve's label: its caption (`Γ5 3T1g(F)`) with ζ, else its state label. */
+function curveRuns(curve: DiagramCurve): TextRun[] {
+  return curve.caption === undefined ? stateRuns(curve.label) : captionRuns(curve.caption);
 }
 
 /** Whether a curve is spin-allowed on some side of the diagram (and so must be named). */
@@ -173,8 +187,8 @@ function diagramView(diagram: CorrelationDiagram, options: DiagramChartOptions):
 }
 
 /** Width a state label will take, px, estimated before any canvas exists (an upper bound for DejaVu Sans). */
-function estimatedWidth(label: string, style: TextStyle): number {
-  return stateRuns(label).reduce(
+function estimatedWidth(curve: DiagramCurve, style: TextStyle): number {
+  return curveRuns(curve).reduce(
     (w, r) => w + [...r.text].length * 0.64 * style.size * (r.shift === 'base' ? 1 : 0.7),
     0,
   );
@@ -199,7 +213,7 @@ function curveDatasets(diagram: CorrelationDiagram): ChartDataset[] {
   return curves.map((curve) => {
     const style = (i: number) => {
       const r = segmentRegion[i] ?? 0;
-      return allowedIn(diagram, curve, r)
+      return allowedIn(diagram, curve, r, ((xs[i] ?? 0) + (xs[i + 1] ?? 0)) / 2)
         ? { color: regionColor(diagram, r), width: STYLE.allowedWidth }
         : { color: STYLE.forbidden, width: STYLE.forbiddenWidth };
     };
@@ -244,7 +258,7 @@ export function diagramChart(
   const band =
     exits.length === 0
       ? 0
-      : EXIT_LEADER + 6 + Math.max(...exits.map((e) => estimatedWidth(e.curve.label, EXIT_LABEL)));
+      : EXIT_LEADER + 6 + Math.max(...exits.map((e) => estimatedWidth(e.curve, EXIT_LABEL)));
   const tick = TICKS;
   const config: ChartConfiguration = {
     type: 'scatter',
@@ -395,14 +409,14 @@ function diagramLabels(diagram: CorrelationDiagram, setting: LabelSetting): Plug
       const placed = layoutLabels(ctx, chart, diagram);
       for (const p of placed) drawLabel(ctx, p);
       const colors = diagram.regions.length > 1 ? [STYLE.allowed, STYLE.allowedLowSpin] : [STYLE.allowed];
-      const anyForbidden = diagram.curves.some((c) => diagram.regions.some((r) => r.S !== c.S));
-      const key = spinKey(
-        colors,
-        anyForbidden,
-        setting.allForbidden ? undefined : 'spin-forbidden, lowest only',
+      const anyForbidden = diagram.curves.some((c) =>
+        [c.S, ...(c.stretches ?? []).map((x) => x.S)].some((S) => diagram.regions.some((r) => r.S !== S)),
       );
-      // With spin–orbit coupling spin is no good label: every curve is drawn alike, with no key.
-      if (diagram.zetaOverB === undefined) drawKey(ctx, key, chart.width - 8, chart.height - 11);
+      // With spin–orbit coupling spin is no good label: lines are styled by their parent's spin.
+      const so = diagram.zetaOverB !== undefined;
+      const forbiddenText = `${so ? 'from spin-forbidden ²ˢ⁺¹Γ' : 'spin-forbidden'}${setting.allForbidden ? '' : ', lowest only'}`;
+      const key = spinKey(colors, anyForbidden, forbiddenText, so ? 'from spin-allowed ²ˢ⁺¹Γ' : undefined);
+      drawKey(ctx, key, chart.width - 8, chart.height - 11);
       setting.onLabels?.(placed.map((p) => ({ text: p.text, kind: p.kind, box: p.box })));
     },
   };
@@ -582,7 +596,7 @@ function labelAllowedEnds(layout: Layout, ends: readonly CurveEnd[]): void {
   const targets = ends.map((e) => layout.y.getPixelForValue(e.value));
   const spread = spreadLabels(targets, layout.h + 1, inside.top - 4, inside.bottom + 8);
   ends.forEach((e, i) => {
-    const runs = stateRuns(e.curve.label);
+    const runs = curveRuns(e.curve);
     const style = curveStyle(diagram, e.curve, diagram.regions.length - 1);
     const box = boxAt(layout, layout.columnLeft, spread[i] ?? 0, measureRuns(layout.ctx, runs, style));
     place(layout, { text: e.curve.label, kind: 'end', runs, style, box }, box, targets[i]);
@@ -614,7 +628,7 @@ function allowedExits(diagram: CorrelationDiagram, eMax: number, xMin: number, x
   return diagram.curves
     .map((curve) => ({ curve, x: topExit(diagram, curve, eMax, xMin, xMax) }))
     .filter((e): e is Exit => e.x !== undefined)
-    .filter((e) => allowedIn(diagram, e.curve, regionIndex(diagram, e.x)))
+    .filter((e) => allowedIn(diagram, e.curve, regionIndex(diagram, e.x), e.x))
     .sort((a, b) => a.x - b.x);
 }
 
@@ -631,7 +645,7 @@ function labelTopExits(layout: Layout): void {
   const spread = spreadLabels(targets, h + 1, inside.left + h / 2, layout.chart.width - h / 2 - 2);
   const bottom = inside.top - EXIT_LEADER;
   exits.forEach((e, i) => {
-    const runs = stateRuns(e.curve.label);
+    const runs = curveRuns(e.curve);
     const style = { ...curveStyle(diagram, e.curve, regionIndex(diagram, e.x)), size: EXIT_LABEL.size };
     const w = measureRuns(layout.ctx, runs, style);
     const cx = spread[i] ?? 0;
@@ -665,7 +679,7 @@ function labelBeside(layout: Layout): void {
     const strong = diagram.curves.filter((c) => allowedIn(diagram, c, r));
     for (const curve of strong) {
       if (layout.labelled.has(curve.label)) continue;
-      const runs = stateRuns(curve.label);
+      const runs = curveRuns(curve);
       const style = { ...curveStyle(diagram, curve, r), halo: true };
       const w = measureRuns(layout.ctx, runs, style);
       for (const f of fractions) {
@@ -700,7 +714,7 @@ function labelTerms(layout: Layout): void {
   const { diagram, inside, h } = layout;
   const terms = new Map<string, { S: number; value: number }>();
   for (const c of diagram.curves)
-    if (!terms.has(c.parent)) terms.set(c.parent, { S: c.S, value: c.values[0] ?? 0 });
+    if (!terms.has(c.parent)) terms.set(c.parent, { S: spinAt(c, 0), value: c.values[0] ?? 0 });
   const groundS = diagram.regions[0]?.S;
   const sorted = [...terms.entries()]
     .filter(([, t]) => t.value <= layout.eMax && t.value >= layout.eMin)
@@ -746,7 +760,7 @@ function labelOtherEnds(layout: Layout, ends: readonly CurveEnd[]): void {
     bottom: inside.bottom + 12,
   };
   for (const e of [...ends].sort((a, b) => a.value - b.value)) {
-    const runs = stateRuns(e.curve.label);
+    const runs = curveRuns(e.curve);
     const style = curveStyle(diagram, e.curve, diagram.regions.length - 1);
     const target = layout.y.getPixelForValue(e.value);
     const box = boxAt(layout, layout.columnLeft, target, measureRuns(layout.ctx, runs, style));

@@ -23,8 +23,9 @@ export function spinKey(
   allowedColors: readonly string[],
   anyForbidden = true,
   forbiddenText = 'spin-forbidden',
+  allowedText = 'spin-allowed',
 ): KeyItem[] {
-  const allowed = { colors: allowedColors, width: STYLE.allowedWidth, text: 'spin-allowed' };
+  const allowed = { colors: allowedColors, width: STYLE.allowedWidth, text: allowedText };
   const forbidden = { colors: [STYLE.forbidden], width: STYLE.forbiddenWidth + 0.3, text: forbiddenText };
   return anyForbidden ? [allowed, forbidden] : [allowed];
 }

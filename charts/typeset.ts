@@ -64,8 +64,25 @@ export function stateRuns(label: string): TextRun[] {
   return runs;
 }
 
+const SLASH: TextRun = { text: '/', shift: 'base' };
+
+/** Runs of a spin–orbit curve's caption `Γ5 3T1g(F)`: Γ with its index lowered, a thin space, then the parent as {@link stateRuns}. */
+export function captionRuns(caption: string): TextRun[] {
+  const m = /^Γ(\d)\s+(.+)$/.exec(caption);
+  if (!m) return stateRuns(caption);
+  return [
+    { text: 'Γ', shift: 'base' },
+    { text: m[1] ?? '', shift: 'sub' },
+    { text: '\u2009', shift: 'base' },
+    ...stateRuns(m[2] ?? ''),
+  ];
+}
+
 /** Runs of a free-ion term name such as `4F` or `a2D` (prefix a, b for repeated terms), or a level such as `4F3/2`. */
 export function termRuns(name: string): TextRun[] {
+  // A level of mixed parentage (intermediate coupling) names its terms joined by a slash: 2P/2H3/2.
+  const mixed = name.split(/\/(?=[a-z]?\d[A-Z])/);
+  if (mixed.length > 1) return mixed.flatMap((part, i) => [...(i > 0 ? [SLASH] : []), ...termRuns(part)]);
   // A free-ion level (spin–orbit diagrams) carries J after the letter: 4F3/2.
   const m = /^([a-z]?)(\d+)([A-Z])(\d+(?:\/2)?)?$/.exec(name);
   if (!m) return [{ text: name, shift: 'base' }];

@@ -161,6 +161,7 @@ export {
   type SpinOrbitRefineInput,
   type SpinOrbitRefinement,
 } from './fit/spinOrbitRefinement.js';
+export { refineFitWithZeta, type ZetaBand, type ZetaFit, type ZetaFitOptions } from './fit/zetaFit.js';
 /** Sample sheets and series of samples. */
 export { parseSampleSheet, type SampleSheet, type SampleSpec } from './sheets/sampleSheet.js';
 export { type SeriesEntry, seriesOrders, seriesTable } from './sheets/series.js';

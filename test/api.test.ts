@@ -56,6 +56,7 @@ it('the public API exports exactly the reviewed names (update this list on purpo
       "pointGroup",
       "presetLigands",
       "readSpectrum",
+      "refineFitWithZeta",
       "refineWithSpinOrbit",
       "sampleVerdict",
       "seriesOrders",

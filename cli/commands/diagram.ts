@@ -366,17 +366,18 @@ export function diagramCommand(configText: string | undefined, opts: DiagramOpti
       cautions,
     });
   }
-  if (spinOrbit && job.spinOrbit) return spinOrbitSummary(spinOrbit, job, figurePath, dataPath, cautions);
+  if (spinOrbit && job.spinOrbit)
+    return spinOrbitSummary(spinOrbit, job, diagram.crossings, { figurePath, dataPath, cautions });
   return summaryText(diagram, { ion: ion?.ion, cOrigin, sample, figurePath, dataPath, cautions });
 }
 
 function spinOrbitSummary(
   d: SpinOrbitDiagram,
   job: DiagramJob,
-  figurePath: string | undefined,
-  dataPath: string | undefined,
-  cautions: readonly string[],
+  crossings: CorrelationDiagram['crossings'],
+  files: { figurePath?: string | undefined; dataPath?: string | undefined; cautions: readonly string[] },
 ): string {
+  const { figurePath, dataPath, cautions } = files;
   const geometryName = d.geometry === 'oct' ? 'octahedral' : 'tetrahedral';
   const groundAt = (i: number) => d.curves.find((c) => c.values[i] === 0);
   const first = groundAt(0);
@@ -388,6 +389,12 @@ function spinOrbitSummary(
     `Labels in ${DOUBLE_GROUP_NOTATION}; levels of one irrep do not cross.`,
     `Ground level: ${first?.irrep ?? '?'} from ${unicodeTerm(first?.freeIon ?? '')} at Δ/B = 0; ` +
       `${last?.irrep ?? '?'} (mainly ${unicodeLabel(last?.strongField ?? '')}) at Δ/B = ${d.maxDeltaOverB}.`,
+    ...crossings.map(
+      (c) =>
+        `The ground level's parent changes spin near Δ/B = ${fixed(c.deltaOverB, 2)}: ${unicodeLabel(c.from)} ` +
+        `(S = ${halfIntegerText(c.fromS)}) below, ${unicodeLabel(c.to)} (S = ${halfIntegerText(c.toS)}) above.`,
+    ),
+    'The figure draws curves of spin-allowed parentage (from a ²ˢ⁺¹Γ of the ground level’s spin) strong, the others light.',
   ];
   if (figurePath) lines.push(`Figure written to ${figurePath}`);
   if (dataPath) lines.push(`Curve data written to ${dataPath}`);

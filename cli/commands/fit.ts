@@ -14,7 +14,7 @@ import { COMPLEX_B_LIMIT } from '../../src/core/limits.js';
 import { parseEnergyList, parseUnit } from '../../src/core/units.js';
 import { fitBands } from '../../src/fit/fitBands.js';
 import type { FitResult } from '../../src/fit/fitTypes.js';
-import { refineWithSpinOrbit, type SpinOrbitRefinement } from '../../src/fit/spinOrbitRefinement.js';
+import { refineFitWithZeta, type ZetaFit } from '../../src/fit/zetaFit.js';
 import { type DistortedFitOptions, distortedFitCommand } from '../distorted.js';
 import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
@@ -35,7 +35,7 @@ import {
 } from '../options.js';
 import { fitJson, fitText } from '../present/fitPresent.js';
 import { fittedDiagram } from '../present/fittedDiagram.js';
-import { refinementJson, refinementText } from '../present/spinOrbitPresent.js';
+import { zetaFitJson, zetaFitText } from '../present/spinOrbitPresent.js';
 import { ZETA_FACTOR_HELP, zetaOption } from '../zetaOption.js';
 
 /** Options of `termsplit fit`. */
@@ -57,6 +57,7 @@ export interface FitOptions {
   dpi?: string;
   zeta?: string;
   zetaFactor?: string;
+  fitZeta?: boolean;
   json?: boolean;
 }
 
@@ -111,6 +112,10 @@ export function registerFit(program: Command, io: Io): void {
       'then refine the best solution with spin–orbit coupling, ζ held (cm⁻¹, or "ion" for the free-ion value)',
     )
     .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
+    .option(
+      '--fit-zeta',
+      'fit ζ too, from the resolved components of a split band (give each component; ζ starts at --zeta, else the free-ion value of --ion); held, with a warning, where the bands do not determine it',
+    )
     .option(...SIZE_OPTION)
     .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout');
@@ -122,6 +127,7 @@ export function registerFit(program: Command, io: Io): void {
         ['--spin-state', opts.spinState],
         ['--diagram', opts.diagram],
         ['--zeta', opts.zeta],
+        ['--fit-zeta', opts.fitZeta],
       ] as const) {
         if (given !== undefined)
           throw new InputError(`${flag} is for cubic fits: leave it out with a geometry`);
@@ -197,8 +203,7 @@ function fitCommand(opts: FitOptions, io: Io): string {
   }
   const { result, ion, cOrigin } = fitted;
   const best = result.solutions[0];
-  const zeta = zetaOption(opts.zeta, opts.zetaFactor, opts.ion === undefined ? undefined : findIon(opts.ion));
-  const spinOrbit = zeta === undefined || !best ? undefined : refineBest(result, best, zeta);
+  const spinOrbit = best ? spinOrbitRefinement(opts, result, best) : undefined;
   if (diagramPath !== undefined && diagramFormat !== undefined && best) {
     writeFileAtomic(diagramPath, fittedDiagram(result, best, diagramFormat, ion, size));
   }
@@ -207,32 +212,38 @@ function fitCommand(opts: FitOptions, io: Io): string {
       ? `Correlation diagram with the sample written to ${opts.diagram}\n`
       : '';
   if (!opts.json) {
-    return fitText(result, ion, cOrigin) + (spinOrbit ? `\n${refinementText(spinOrbit)}` : '') + figureNote;
+    return fitText(result, ion, cOrigin) + (spinOrbit ? `\n${zetaFitText(spinOrbit)}` : '') + figureNote;
   }
   return jsonText({
     ...(diagramPath !== undefined ? { diagram: best ? opts.diagram : null } : {}),
     ...fitJson(result, ion, cOrigin),
-    ...(spinOrbit ? { spinOrbit: refinementJson(spinOrbit) } : {}),
+    ...(spinOrbit ? { spinOrbit: zetaFitJson(spinOrbit) } : {}),
   });
 }
 
-/** The best solution refined with spin–orbit coupling, each band on the centroid of its assigned level's components. */
-function refineBest(
+/**
+ * With `--zeta` or `--fit-zeta`: the best solution refined with spin–orbit coupling, ζ held (each
+ * band on the centroid of its level's components) or fitted from resolved components.
+ */
+function spinOrbitRefinement(
+  opts: FitOptions,
   result: FitResult,
   best: FitResult['solutions'][number],
-  zeta: number,
-): SpinOrbitRefinement {
-  return refineWithSpinOrbit({
-    n: result.n,
-    geometry: result.geometry,
-    start: { dq: best.dq, B: best.B, C: best.C },
+): ZetaFit | undefined {
+  const ion = opts.ion === undefined ? undefined : findIon(opts.ion);
+  const fitZeta = Boolean(opts.fitZeta);
+  // With --fit-zeta alone, ζ starts at the ion's free-ion value.
+  const zetaText = opts.zeta ?? (fitZeta && ion?.zeta !== undefined ? 'ion' : undefined);
+  if (fitZeta && zetaText === undefined) {
+    throw new InputError(
+      '--fit-zeta needs a starting ζ: give --zeta (cm⁻¹), or an --ion with a tabulated free-ion ζ',
+    );
+  }
+  const zeta = zetaOption(zetaText, opts.zetaFactor, ion);
+  if (zeta === undefined) return undefined;
+  return refineFitWithZeta(result, best, {
     zeta,
-    fitC: best.cFitted,
-    holdB: best.bHeld || result.n === 1 || result.n === 9,
-    bands: best.assignments.map((a) => ({
-      energy: a.observed,
-      level: a.label,
-      ...(a.sigma !== null ? { sigma: a.sigma } : {}),
-    })),
+    fitZeta,
+    ...(ion?.zeta !== undefined ? { freeIonZeta: ion.zeta } : {}),
   });
 }

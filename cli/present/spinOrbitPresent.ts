@@ -1,6 +1,6 @@
 /**
  * Text and JSON of spin–orbit results for the commands: double-group levels with parentage,
- * free-ion J levels, and the magnetism table.
+ * free-ion J levels, the magnetism table, and a band fit refined with ζ held or fitted.
  */
 import type { MomentPoint } from '../../src/analysis/susceptibility.js';
 import type { FreeIonLevel } from '../../src/atom/jLevels.js';
@@ -9,7 +9,8 @@ import { DOUBLE_GROUP_NOTATION } from '../../src/field/doubleGroup.js';
 import { unicodeLabel, unicodeTerm } from '../../src/field/labels.js';
 import type { ParentWeight, SpinOrbitResult } from '../../src/field/spinOrbitSolver.js';
 import type { SpinOrbitRefinement } from '../../src/fit/spinOrbitRefinement.js';
-import { fixed, table } from '../format.js';
+import type { ZetaFit } from '../../src/fit/zetaFit.js';
+import { fixed, listSection, table } from '../format.js';
 
 /** Parents shown per level in text; JSON has them all. */
 export const PARENTS_SHOWN = 3;
@@ -99,30 +100,48 @@ function valueWithError(x: number, error: number | null | undefined): string {
   return error === null || error === undefined ? fixed(x) : `${fixed(x)} ± ${fixed(error)}`;
 }
 
-/** The fit refined with spin–orbit coupling, as text. */
-export function refinementText(r: SpinOrbitRefinement): string {
+/** A band's level: the cubic level, or the spin–orbit level of a resolved component with its parentage. */
+function bandLevelText(r: SpinOrbitRefinement, band: SpinOrbitRefinement['bands'][number]): string {
+  const cubic = band.level.startsWith('Γ') ? band.level : unicodeLabel(band.level);
+  const component = band.components?.[0];
+  if (component === undefined) return `${cubic} (centroid)`;
+  const level = r.levels.levels.find((l) => l.label === component);
+  return `${component}, ${level ? parentageText(level.parentage, 2) : cubic}`;
+}
+
+/** The fit refined with spin–orbit coupling, as text: ζ held or fitted, each band's level, the warnings. */
+export function zetaFitText(z: ZetaFit): string {
+  const r = z.refinement;
   const e = r.errors;
+  const ratio = z.zetaRatio === null ? '' : `, ${fixed(z.zetaRatio, 2)} × the free ion`;
+  const how = z.zetaFitted
+    ? `fitted${ratio}; band centroids on their cubic level, resolved components on one spin–orbit level each`
+    : `held${z.zetaAsked ? ' (not determined by these bands)' : ''}; each band at the centroid of its level’s spin–orbit components`;
   const rows = r.bands.map((b) => [
-    b.level.startsWith('Γ') ? b.level : unicodeLabel(b.level),
+    bandLevelText(r, b),
     fixed(b.observed),
     fixed(b.calculated),
     fixed(b.observed - b.calculated),
   ]);
-  return [
-    `With spin–orbit coupling (ζ = ${valueWithError(r.zeta, e?.zeta)} cm⁻¹${r.fitZeta ? ', fitted' : ', held'}; each band at the ` +
-      'centroid of its level’s spin–orbit components):',
+  const lines = [
+    `With spin–orbit coupling (ζ = ${valueWithError(r.zeta, e?.zeta)} cm⁻¹, ${how}):`,
     `  Dq = ${valueWithError(r.dq, e?.dq)} cm⁻¹ (10Dq = ${fixed(10 * r.dq)}), B = ${valueWithError(r.B, e?.B)} cm⁻¹, ` +
       `C = ${valueWithError(r.C, e?.C)} cm⁻¹, rms ${fixed(r.rms, 1)} cm⁻¹${r.converged ? '' : ` (not converged: ${r.reason})`}`,
-    table(['level', 'observed', 'calculated', 'obs − calc'], rows),
-    '',
-  ].join('\n');
+    table(['band → level (parentage)', 'observed', 'calculated', 'obs − calc'], rows),
+  ];
+  if (z.zetaFitted) lines.push(`Spin–orbit labels in ${DOUBLE_GROUP_NOTATION}.`);
+  lines.push(...listSection('Spin–orbit warnings:', z.warnings));
+  return `${lines.join('\n')}\n`;
 }
 
 /** The fit refined with spin–orbit coupling, as JSON. */
-export function refinementJson(r: SpinOrbitRefinement) {
+export function zetaFitJson(z: ZetaFit) {
+  const r = z.refinement;
   return {
     zeta: r.zeta,
-    fitZeta: r.fitZeta,
+    fitZeta: z.zetaAsked,
+    zetaFitted: z.zetaFitted,
+    zetaOverFreeIon: z.zetaRatio,
     dq: r.dq,
     tenDq: 10 * r.dq,
     B: r.B,
@@ -131,7 +150,13 @@ export function refinementJson(r: SpinOrbitRefinement) {
     rms: r.rms,
     converged: r.converged,
     reason: r.reason,
-    bands: r.bands,
+    bands: r.bands.map((b) => {
+      const component = b.components?.[0];
+      const level = component === undefined ? undefined : r.levels.levels.find((l) => l.label === component);
+      return { ...b, ...(level ? { parentage: level.parentage } : {}) };
+    }),
+    warnings: z.warnings,
+    notation: DOUBLE_GROUP_NOTATION,
     levels: spinOrbitJson(r.levels).levels,
   };
 }

@@ -19,6 +19,7 @@ import { solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
 import { fitBands } from '../../src/fit/fitBands.js';
 import type { FitResult, FitSolution } from '../../src/fit/fitTypes.js';
 import { fitSpinVerdict } from '../../src/fit/fitVerdict.js';
+import { refineFitWithZeta } from '../../src/fit/zetaFit.js';
 import type { SampleSpec } from '../../src/sheets/sampleSheet.js';
 import type { SeriesEntry } from '../../src/sheets/series.js';
 import { DEFAULT_BASELINE } from '../../src/spectra/bandFinding.js';
@@ -57,6 +58,21 @@ export interface MagnetismReport {
   readonly muEff: readonly number[];
 }
 
+/** ζ fitted from the resolved components of a split band (sheet field `fitZeta`), or held and why. */
+export interface ZetaReport {
+  readonly zeta: number;
+  readonly error: number | null;
+  readonly fitted: boolean;
+  readonly zetaOverFreeIon: number | null;
+  /** Each resolved component and its spin–orbit level, with the level's largest parents. */
+  readonly components: readonly {
+    readonly observed: number;
+    readonly level: string;
+    readonly parentage: readonly { readonly state: string; readonly weight: number }[];
+  }[];
+  readonly warnings: readonly string[];
+}
+
 /** The spin-state verdict of a sample, as reported: the crossings, the sample's side and margin, cautions. */
 export type SpinReport = ReturnType<typeof verdictJson> & {
   readonly statement: string;
@@ -89,6 +105,8 @@ export interface SampleResult {
   readonly spin?: SpinReport;
   /** μ_eff with spin–orbit coupling beside spin-only, when the sheet gives the sample a ζ. */
   readonly magnetism?: MagnetismReport;
+  /** ζ fitted (or held, and why), when the sheet asks for it. */
+  readonly zetaFit?: ZetaReport;
   readonly cautions: readonly string[];
   /** The fit with the sample's geometry, when the sheet gives one (`structure`). */
   readonly structure?: DistortedSampleReport;
@@ -188,8 +206,11 @@ function analyse(task: SampleTask): SampleResult {
     : undefined;
   const spin = spinReport(ion.n, sample.geometry, best);
   const structure = structureFit(task, ion, ratio, result.bands, cautions);
-  const magnetism =
-    sample.zeta === undefined ? undefined : magnetismReport(ion.n, sample.geometry, best, sample.zeta);
+  const zetaFit =
+    sample.fitZeta && sample.zeta !== undefined ? zetaReport(result, best, sample.zeta, ion) : undefined;
+  // The moments use the fitted ζ where there is one.
+  const zeta = zetaFit?.zeta ?? sample.zeta;
+  const magnetism = zeta === undefined ? undefined : magnetismReport(ion.n, sample.geometry, best, zeta);
   return {
     ok: true,
     name: sample.name,
@@ -206,6 +227,7 @@ function analyse(task: SampleTask): SampleResult {
     series: seriesEntry(sample, ion.ion, best, spin),
     ...(spin ? { spin } : {}),
     ...(magnetism ? { magnetism } : {}),
+    ...(zetaFit ? { zetaFit } : {}),
     cautions: [...new Set(cautions)],
     ...(structure ? { structure } : {}),
     svg: { ...(diagram ? { diagram } : {}), ...(spectrumSvg ? { spectrum: spectrumSvg } : {}) },
@@ -332,6 +354,28 @@ function spectrumBands(spectrum: SpectrumAnalysis): SampleResult['spectrumBands'
     fwhm: b.fwhm,
     flags: b.flags,
   }));
+}
+
+function zetaReport(result: FitResult, best: FitSolution, zeta: number, ion: FreeIon): ZetaReport {
+  const z = refineFitWithZeta(result, best, {
+    zeta,
+    fitZeta: true,
+    ...(ion.zeta !== undefined ? { freeIonZeta: ion.zeta } : {}),
+  });
+  const r = z.refinement;
+  return {
+    zeta: r.zeta,
+    error: r.errors?.zeta ?? null,
+    fitted: z.zetaFitted,
+    zetaOverFreeIon: z.zetaRatio,
+    components: r.bands.flatMap((b) => {
+      const label = b.components?.[0];
+      if (label === undefined) return [];
+      const level = r.levels.levels.find((l) => l.label === label);
+      return [{ observed: b.observed, level: label, parentage: level?.parentage.slice(0, 2) ?? [] }];
+    }),
+    warnings: z.warnings,
+  };
 }
 
 function magnetismReport(n: number, geometry: Geometry, best: FitSolution, zeta: number): MagnetismReport {

@@ -10,7 +10,7 @@ import { unicodeIon, unicodeLabel } from '../../src/field/labels.js';
 import { fixed } from '../format.js';
 import { unicodeGroupLabel } from '../present/distortedPresent.js';
 import { withError } from '../present/fitPresent.js';
-import type { SampleResult } from './analyse.js';
+import type { SampleResult, ZetaReport } from './analyse.js';
 import type { ReportModel, StructureOnlySample } from './model.js';
 
 /** A table with a file name for its CSV copy. */
@@ -375,6 +375,21 @@ function spinBlocks(s: SampleResult): Block[] {
         `${s.spin.near ? '; close to the crossover — a spin-crossover candidate at most' : ''}` +
         `${s.spin.settled === false ? '; the side is not settled within two standard errors' : ''}. ` +
         'The model places the crossover; magnetic or Mössbauer measurement decides.',
+    });
+  }
+  const zf = s.zetaFit;
+  if (zf) {
+    const parents = (c: ZetaReport['components'][number]) =>
+      c.parentage.map((p) => `${fixed(100 * p.weight)} % ${unicodeLabel(p.state)}`).join(' + ');
+    out.push({
+      kind: 'paragraph',
+      text:
+        (zf.fitted
+          ? `Spin–orbit ζ fitted: ${fixed(zf.zeta)}${zf.error === null ? '' : ` ± ${fixed(zf.error)}`} cm⁻¹` +
+            `${zf.zetaOverFreeIon === null ? '' : ` (${fixed(zf.zetaOverFreeIon, 2)} × the free ion)`}, from ` +
+            zf.components.map((c) => `${fixed(c.observed)} cm⁻¹ → ${c.level} (${parents(c)})`).join(', ') +
+            '. '
+          : '') + zf.warnings.map((w) => `${w.charAt(0).toUpperCase()}${w.slice(1)}.`).join(' '),
     });
   }
   const mag = s.magnetism;

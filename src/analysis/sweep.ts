@@ -66,6 +66,17 @@ export interface DiagramCurve {
   readonly strongField: string;
   /** E/B above the ground state at each {@link CorrelationDiagram.deltaOverB}. */
   readonly values: readonly number[];
+  /**
+   * With spin–orbit coupling: the curve's parent ²ˢ⁺¹Γ and its spin along the sweep, one entry
+   * where it changes (the figure styles each stretch by it); absent otherwise.
+   */
+  readonly stretches?: readonly {
+    readonly fromDeltaOverB: number;
+    readonly parent: string;
+    readonly S: number;
+  }[];
+  /** A label for the figure in place of `label`, e.g. `Γ5 3T1g(F)`. @default label */
+  readonly caption?: string;
 }
 
 /** A change of ground-state spin along the sweep. */

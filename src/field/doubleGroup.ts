@@ -175,3 +175,79 @@ export function namingRotations(): { c3: readonly number[]; c2p: readonly number
   if (!c3 || !c2p) throw new Error('the cube has no C3 or C2′ rotation');
   return { c3: c3.matrix, c2p: c2p.matrix };
 }
+
+/** The double-group irreps of the spin functions of S (D^S restricted to O*), with multiplicity. */
+const SPIN_IRREPS: Readonly<Record<number, readonly DoubleIrrep[]>> = {
+  0: ['Γ1'],
+  0.5: ['Γ6'],
+  1: ['Γ4'],
+  1.5: ['Γ8'],
+  2: ['Γ3', 'Γ5'],
+  2.5: ['Γ7', 'Γ8'],
+};
+
+/**
+ * Products of a single-valued irrep (row) with any irrep (column) of O*, from the multiplication
+ * table of Koster, Dimmock, Wheeler & Statz, Properties of the Thirty-Two Point Groups (1963).
+ */
+const PRODUCTS: Readonly<Record<string, Readonly<Record<string, readonly DoubleIrrep[]>>>> = {
+  Γ2: {
+    Γ1: ['Γ2'],
+    Γ3: ['Γ3'],
+    Γ4: ['Γ5'],
+    Γ5: ['Γ4'],
+    Γ6: ['Γ7'],
+    Γ7: ['Γ6'],
+    Γ8: ['Γ8'],
+  },
+  Γ3: {
+    Γ1: ['Γ3'],
+    Γ3: ['Γ1', 'Γ2', 'Γ3'],
+    Γ4: ['Γ4', 'Γ5'],
+    Γ5: ['Γ4', 'Γ5'],
+    Γ6: ['Γ8'],
+    Γ7: ['Γ8'],
+    Γ8: ['Γ6', 'Γ7', 'Γ8'],
+  },
+  Γ4: {
+    Γ1: ['Γ4'],
+    Γ3: ['Γ4', 'Γ5'],
+    Γ4: ['Γ1', 'Γ3', 'Γ4', 'Γ5'],
+    Γ5: ['Γ2', 'Γ3', 'Γ4', 'Γ5'],
+    Γ6: ['Γ6', 'Γ8'],
+    Γ7: ['Γ7', 'Γ8'],
+    Γ8: ['Γ6', 'Γ7', 'Γ8', 'Γ8'],
+  },
+  Γ5: {
+    Γ1: ['Γ5'],
+    Γ3: ['Γ4', 'Γ5'],
+    Γ4: ['Γ2', 'Γ3', 'Γ4', 'Γ5'],
+    Γ5: ['Γ1', 'Γ3', 'Γ4', 'Γ5'],
+    Γ6: ['Γ7', 'Γ8'],
+    Γ7: ['Γ6', 'Γ8'],
+    Γ8: ['Γ6', 'Γ7', 'Γ8', 'Γ8'],
+  },
+};
+
+/** The cubic irrep (`T1g`, `E`, …; g and u dropped, the same in Td) as Γ1…Γ5. */
+const SPACE_IRREP: Readonly<Record<string, DoubleIrrep>> = {
+  A1: 'Γ1',
+  A2: 'Γ2',
+  E: 'Γ3',
+  T1: 'Γ4',
+  T2: 'Γ5',
+};
+
+/**
+ * The double-group levels a spin–orbit-free cubic level ²ˢ⁺¹Γ splits into: Γ ⊗ D^S, each irrep
+ * as often as it occurs (e.g. ⁴T₁ → Γ6, Γ7, Γ8, Γ8).
+ * @throws Error for an irrep or spin that dⁿ does not have.
+ */
+export function spinOrbitSplitting(irrep: string, S: number): DoubleIrrep[] {
+  const space = SPACE_IRREP[irrep.replace(/[gu]$/, '')];
+  const spin = SPIN_IRREPS[S];
+  if (!space || !spin) throw new Error(`no double-group splitting for ${irrep}, S = ${S}`);
+  if (space === 'Γ1') return [...spin];
+  const row = PRODUCTS[space] ?? {};
+  return spin.flatMap((s) => row[s] ?? []);
+}

@@ -5,7 +5,10 @@
  * that level's spin–orbit components: Σ dᵢwᵢEᵢ / Σ dᵢwᵢ over all levels i, with dᵢ the degeneracy
  * and wᵢ the level's weight of that cubic parent (the first moment of the split band, common
  * practice, no source). A band assigned to one spin–orbit level (`Γ8(3)`, a resolved component)
- * is calculated at that level's energy; such bands are what can fix ζ.
+ * is calculated at that level's energy; such bands are what can fix ζ. A resolved component that
+ * holds several unresolved spin–orbit levels (`components`) is calculated at their centroid
+ * weighted by degeneracy × weight of the cubic level it belongs to (the part of each that carries
+ * the spin-allowed parent's intensity; common practice, no source).
  */
 import { inverse, Matrix } from 'ml-matrix';
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
@@ -22,6 +25,12 @@ export interface AssignedBand {
   readonly sigma?: number;
   /** A cubic level label such as `3T1g(F)`, or a spin–orbit level label such as `Γ8(3)`. */
   readonly level: string;
+  /**
+   * The spin–orbit levels (e.g. `Γ1(1)`, `Γ4(2)`) of the cubic `level` that make up this
+   * resolved component; the band is at their centroid weighted by degeneracy × weight of `level`.
+   * @default the whole level (its centroid), or the one spin–orbit level `level` names
+   */
+  readonly components?: readonly string[];
 }
 
 /** Input of {@link refineWithSpinOrbit}. */
@@ -45,6 +54,8 @@ export interface SpinOrbitRefineInput {
 /** One band after the fit. */
 export interface RefinedBand {
   readonly level: string;
+  /** The spin–orbit levels the band was calculated from, when it is a resolved component. */
+  readonly components?: readonly string[];
   readonly observed: number;
   readonly calculated: number;
 }
@@ -91,6 +102,31 @@ export function bandEnergy(result: SpinOrbitResult, level: string): number {
 }
 
 /**
+ * Calculated energy of a band: a resolved component at the centroid of its spin–orbit levels
+ * (degeneracy × weight of the cubic parent), else as {@link bandEnergy}.
+ * @throws InputError for a label that names no level.
+ */
+export function assignedBandEnergy(result: SpinOrbitResult, band: Omit<AssignedBand, 'energy'>): number {
+  if (!band.components || band.components.length === 0) return bandEnergy(result, band.level);
+  let weighted = 0;
+  let total = 0;
+  let plain = 0;
+  for (const label of band.components) {
+    const l = result.levels.find((x) => x.label === label);
+    ensure(
+      l !== undefined,
+      `band component "${label}": expected a spin–orbit level such as Γ8(3) of this ion`,
+    );
+    // A small floor keeps a component defined where its parent weight vanishes along the fit.
+    const w = l.degeneracy * Math.max(l.parentage.find((p) => p.state === band.level)?.weight ?? 0, 1e-3);
+    weighted += w * l.energy;
+    total += w;
+    plain += l.energy;
+  }
+  return total > 0 ? weighted / total : plain / band.components.length;
+}
+
+/**
  * Refines Dq, B (and C, ζ where asked) against assigned bands with spin–orbit coupling.
  * @throws InputError for bad parameters, a bad ζ, too few bands or an unknown level label.
  */
@@ -123,7 +159,7 @@ export function refineWithSpinOrbit(input: SpinOrbitRefineInput): SpinOrbitRefin
   const solve = (p: readonly number[]) => solveSpinOrbit({ n, geometry, ...unpack(p) });
   const residuals = (p: readonly number[]) => {
     const r = solve(p);
-    return bands.map((b) => (bandEnergy(r, b.level) - b.energy) / (b.sigma ?? 1));
+    return bands.map((b) => (assignedBandEnergy(r, b) - b.energy) / (b.sigma ?? 1));
   };
   const startVector = [
     start.dq,
@@ -144,8 +180,9 @@ export function refineWithSpinOrbit(input: SpinOrbitRefineInput): SpinOrbitRefin
   const levels = solve(fit.parameters);
   const calculated = bands.map((b) => ({
     level: b.level,
+    ...(b.components ? { components: b.components } : {}),
     observed: b.energy,
-    calculated: bandEnergy(levels, b.level),
+    calculated: assignedBandEnergy(levels, b),
   }));
   const rms = Math.sqrt(calculated.reduce((s, b) => s + (b.calculated - b.observed) ** 2, 0) / bands.length);
   return {

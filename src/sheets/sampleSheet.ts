@@ -69,6 +69,11 @@ export interface SampleSpec {
   readonly structure?: SheetGeometry;
   /** Spin–orbit ζ, cm⁻¹ (the sheet's number, or the ion's free-ion value for "ion"): the report then adds μ_eff with it. */
   readonly zeta?: number;
+  /**
+   * Fit ζ from the resolved components of a split band (ζ starts at `zeta`, else the free-ion
+   * value); the report then gives ζ with its standard error, or says why it was held. @default false
+   */
+  readonly fitZeta?: boolean;
   readonly notes?: string;
 }
 
@@ -119,6 +124,7 @@ const optionsShape = {
   spinForbidden: z.boolean().optional(),
   keepBands: z.boolean().optional(),
   zeta: z.union([z.number().min(0).max(MAX_ZETA), z.literal('ion')]).optional(),
+  fitZeta: z.boolean().optional(),
 };
 
 const sampleSchema = z
@@ -214,6 +220,7 @@ const EXPECTED: Readonly<Record<string, string>> = {
   keepBands: 'true or false',
   spinState: '"high" or "low"',
   zeta: `a spin–orbit ζ in cm⁻¹ from 0 to ${MAX_ZETA}, or "ion" for the free-ion value`,
+  fitZeta: 'true or false',
   assign: 'level labels as text ("3T2g,3T1g(F)") or a list of them',
   structure:
     'an object with one of shape, xyz, tetragonal, trigonal, and optionally angle, metal, cutoff, bonds, eds, tolerance, free, assign',
@@ -254,12 +261,19 @@ function checkSample(
   const fail = (field: string, message: string) => ({ problem: { sample: s.name, field, message } });
   let ion: string;
   let zeta: number | undefined;
+  const fitZeta = s.fitZeta ?? defaults.fitZeta ?? false;
   try {
     const found = findIon(s.ion);
     ion = found.ion;
-    const z = s.zeta ?? defaults.zeta;
+    // Fitting ζ starts it at the free-ion value unless the sheet gives one.
+    const z = s.zeta ?? defaults.zeta ?? (fitZeta ? 'ion' : undefined);
     zeta = z === 'ion' ? found.zeta : z;
-    if (z === 'ion' && zeta === undefined) return fail('zeta', `no free-ion ζ is tabulated for ${ion}`);
+    if (z === 'ion' && zeta === undefined) {
+      return fail(
+        fitZeta ? 'fitZeta' : 'zeta',
+        `no free-ion ζ is tabulated for ${ion}${fitZeta ? ': give a starting zeta' : ''}`,
+      );
+    }
   } catch (e) {
     return fail('ion', (e as Error).message);
   }
@@ -312,6 +326,7 @@ function checkSample(
       ...(s.spinState ? { spinState: s.spinState } : {}),
       ...(s.structure ? { structure: s.structure } : {}),
       ...(zeta !== undefined ? { zeta } : {}),
+      ...(fitZeta ? { fitZeta } : {}),
       ...(s.notes ? { notes: s.notes } : {}),
     },
   };
@@ -339,12 +354,13 @@ const CSV_COLUMNS: Readonly<Record<string, string>> = {
   keep_bands: 'keepBands',
   spin_state: 'spinState',
   zeta: 'zeta',
+  fit_zeta: 'fitZeta',
   notes: 'notes',
 };
 
 /**
  * The simple form: a header row (name, ion, geometry, bands, spectrum, cb, fit_c, assign,
- * spin_forbidden, keep_bands, spin_state, zeta, notes, and the geometry columns of
+ * spin_forbidden, keep_bands, spin_state, zeta, fit_zeta, notes, and the geometry columns of
  * GEOMETRY_CSV_COLUMNS; any order, only name and ion required), then one sample a
  * row. Bands in
  * one cell are separated by `;` (or commas inside double quotes). Lines starting with `#` are
@@ -399,7 +415,7 @@ function csvValue(field: string, cell: string): unknown {
     const x = Number(cell);
     return Number.isFinite(x) ? x : cell;
   }
-  if (field === 'fitC' || field === 'spinForbidden' || field === 'keepBands') {
+  if (field === 'fitC' || field === 'spinForbidden' || field === 'keepBands' || field === 'fitZeta') {
     const v = cell.toLowerCase();
     if (['yes', 'true', '1', 'y'].includes(v)) return true;
     if (['no', 'false', '0', 'n'].includes(v)) return false;

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { sweepSpinOrbit } from '../../src/analysis/spinOrbitSweep.js';
+import { SWEEP_B } from '../../src/analysis/sweep.js';
 import { InputError } from '../../src/core/errors.js';
-import { spinOrbitEnergies, spinOrbitLevels } from '../../src/field/spinOrbitSolver.js';
+import { solveSpinOrbit, spinOrbitEnergies, spinOrbitLevels } from '../../src/field/spinOrbitSolver.js';
 import { expectClose } from '../helpers.js';
 
 describe('spinOrbitEnergies', () => {
@@ -35,5 +36,25 @@ describe('sweepSpinOrbit', () => {
 
   it('sweepSpinOrbit refuses a negative ζ/B with InputError', () => {
     expect(() => sweepSpinOrbit(3, { zetaOverB: -0.1 })).toThrow(InputError);
+  });
+});
+
+describe('sweepSpinOrbit: parents along the curves', () => {
+  it('sweepSpinOrbit names each curve at the right edge by the parent that holds most of its weight there (d⁷ tetrahedral, d⁸)', () => {
+    for (const [n, geometry] of [
+      [7, 'tet'],
+      [8, 'oct'],
+    ] as const) {
+      const d = sweepSpinOrbit(n, { geometry, cOverB: 4.5, zetaOverB: 0.4, maxDeltaOverB: 30, points: 20 });
+      const B = SWEEP_B;
+      const exact = solveSpinOrbit({ n, geometry, dq: 3 * B, B, C: 4.5 * B, zeta: 0.4 * B });
+      let agree = 0;
+      for (const c of d.curves) {
+        const level = exact.levels.find((l) => l.label === c.label);
+        if (c.parents.at(-1)?.parent === level?.parent) agree++;
+      }
+      // Away from near-degeneracies the adiabatic parent is the largest one; allow a few mixed levels.
+      expect(agree / d.curves.length).toBeGreaterThan(0.9);
+    }
   });
 });

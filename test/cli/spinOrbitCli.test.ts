@@ -85,6 +85,38 @@ describe('--zeta on levels, terms and diagram (in process)', () => {
     expect(json.spinOrbit.dq).toBeLessThan(880);
   });
 
+  it('fit --fit-zeta fits ζ from the Ni²⁺ pair 13 800 / 15 400 cm⁻¹ and shows each component on its Γ level with parentage', async () => {
+    const argv = ['fit', '--ion', 'Ni2+', '--bands', '8500,13800,15400,25300', '--cb', '4.2', '--fit-zeta'];
+    const text = await runInProcess(argv);
+    expect(text.code).toBe(0);
+    expect(text.stdout).toMatch(
+      /With spin–orbit coupling \(ζ = \d+ ± \d+ cm⁻¹, fitted, 0\.\d\d × the free ion/,
+    );
+    expect(text.stdout).toMatch(/Γ3\(3\), \d+ % ¹Eg\(D\) \+ \d+ % ³T₁g\(F\) +15400/);
+    const json = JSON.parse((await runInProcess([...argv, '--json'])).stdout);
+    expect(json.spinOrbit.zetaFitted).toBe(true);
+    expect(json.spinOrbit.errors.zeta).toBeGreaterThan(0);
+    expect(json.spinOrbit.bands.map((b: { components?: string[] }) => b.components?.[0] ?? null)).toEqual([
+      null,
+      'Γ4(2)',
+      'Γ3(3)',
+      null,
+    ]);
+  });
+
+  it('fit --fit-zeta without resolved components holds ζ and says so; without a starting ζ it is refused', async () => {
+    const held = JSON.parse(
+      (await runInProcess(['fit', '--ion', 'Ni2+', '--bands', '8500,13800,25300', '--fit-zeta', '--json']))
+        .stdout,
+    );
+    expect(held.spinOrbit.zetaFitted).toBe(false);
+    expect(held.spinOrbit.zeta).toBe(649);
+    expect(held.spinOrbit.warnings[0]).toMatch(/^ζ held at 649 cm⁻¹/);
+    const refused = await runInProcess(['fit', '--d', '8', '--bands', '8500,13800,25300', '--fit-zeta']);
+    expect(refused.code).toBe(2);
+    expect(refused.stderr).toMatch(/--fit-zeta needs a starting ζ/);
+  });
+
   it('crossover --zeta ion puts μ_eff with spin–orbit coupling at the sample beside the spin-only moments', async () => {
     const argv = ['crossover', '--ion', 'Fe2+', '--B', '800', '--dq', '1150', '--zeta', 'ion'];
     const text = await runInProcess(argv);

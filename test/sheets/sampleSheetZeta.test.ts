@@ -63,3 +63,38 @@ describe('termsplit report with ζ in the sheet', () => {
     );
   });
 });
+
+describe('the fitZeta field', () => {
+  it('parseSampleSheet reads fitZeta (JSON) and fit_zeta (CSV), starting ζ at the free-ion value', () => {
+    const json = parseSampleSheet(
+      JSON.stringify({
+        samples: [{ name: 'a', ion: 'Ni2+', bands: '8500,13800,15400,25300', fitZeta: true }],
+      }),
+      'json',
+    );
+    expect(json.samples[0]).toMatchObject({ fitZeta: true, zeta: 649 });
+    const csv = parseSampleSheet('name,ion,bands,fit_zeta\nb,Ni2+,8500;13800;15400;25300,yes\n', 'csv');
+    expect(csv.samples[0]).toMatchObject({ fitZeta: true, zeta: 649 });
+  });
+
+  it('report with fitZeta gives ζ with its error and each component on its Γ level (invented sample)', async () => {
+    const sheet = join(dir, 'fit-zeta.json');
+    writeFileSync(
+      sheet,
+      JSON.stringify({
+        title: 'ζ fit check (invented example)',
+        invented: true,
+        samples: [{ name: 'ni-fit', ion: 'Ni2+', bands: '8500,13800,15400,25300', cb: 4.2, fitZeta: true }],
+      }),
+    );
+    const r = await runInProcess(['report', sheet, '-o', join(dir, 'fit-out')], dir);
+    expect(r.code).toBe(0);
+    const sample = JSON.parse(readFileSync(join(dir, 'fit-out/report.json'), 'utf8')).samples[0];
+    expect(sample.zetaFit.fitted).toBe(true);
+    expect(sample.zetaFit.components.map((c: { level: string }) => c.level)).toEqual(['Γ4(2)', 'Γ3(3)']);
+    expect(sample.magnetism.zeta).toBe(sample.zetaFit.zeta);
+    expect(readFileSync(join(dir, 'fit-out/report.md'), 'utf8')).toMatch(
+      /Spin–orbit ζ fitted: \d+ ± \d+ cm⁻¹/,
+    );
+  });
+});
