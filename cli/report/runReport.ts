@@ -88,6 +88,26 @@ function isInside(path: string, dir: string): boolean {
   return r !== '' && !r.startsWith('..') && !isAbsolute(r);
 }
 
+/** A sample sheet read and checked: its valid samples, the problems, and the folder its paths are relative to. */
+export interface CheckedSheet {
+  readonly sheet: SampleSheet;
+  readonly problems: SheetProblem[];
+  readonly sheetDir: string;
+}
+
+/**
+ * Reads a sample sheet (JSON or CSV) and sets aside samples whose spectrum file is missing or,
+ * unless `allowOutside`, lies outside the sheet's folder and `cwd`.
+ * @throws InputError when the sheet cannot be read or parsed.
+ */
+export function readSheet(sheetPath: string, cwd: string, allowOutside: boolean): CheckedSheet {
+  const full = resolve(cwd, sheetPath);
+  const text = readTextFile(full);
+  const parsed = parseSampleSheet(text, sheetFormat(full, text));
+  const sheetDir = dirname(full);
+  return { ...checkSpectra(parsed, sheetDir, cwd, allowOutside), sheetDir };
+}
+
 /** The report's outcome: the model, where it was written, and the exit code. */
 export interface ReportRun {
   readonly model: ReportModel;
@@ -109,11 +129,7 @@ export async function runReport(
   sheetLabel: string = sheetPath,
 ): Promise<ReportRun> {
   const { jobs } = job;
-  const full = resolve(io.cwd, sheetPath);
-  const text = readTextFile(full);
-  const parsed = parseSampleSheet(text, sheetFormat(full, text));
-  const sheetDir = dirname(full);
-  const { sheet, problems } = checkSpectra(parsed, sheetDir, io.cwd, job.allowOutside === true);
+  const { sheet, problems, sheetDir } = readSheet(sheetPath, io.cwd, job.allowOutside === true);
   const dir = resolve(io.cwd, job.output);
   // Reserved before the work, so a folder that cannot take the report is refused at once.
   const folder = reserveReportFolder(dir);
