@@ -122,7 +122,10 @@ describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
         (v) => new URLSearchParams(window.location.hash.slice(1)).get('cb') === v,
         String(4 + n / 10),
       );
-      times.push(`d${n} ${cold} / ${await tab.locator('#explorer').getAttribute('data-update-ms')}`);
+      const main = tab.locator('#explorer');
+      times.push(
+        `d${n} ${cold} / ${await main.getAttribute('data-update-ms')} (library ${await main.getAttribute('data-compute-ms')})`,
+      );
     }
     console.log(`explorer update, ms (first for the dⁿ / next, new C/B): ${times.join(', ')}`);
     expect(errors).toEqual([]);
