@@ -116,6 +116,9 @@ tbody tr:hover, tbody tr:focus { background: #f1f4f8; }
 @media (max-width: 760px) {
   #explorer { grid-template-columns: minmax(0, 1fr); }
   body { padding: 0.5rem; }
+  .figure { overflow-x: auto; }
+  .figure svg { min-width: 560px; }
+  th, td { padding: 0.2rem 0.35rem; }
 }
 `;
 

@@ -10,6 +10,8 @@ import { renderTrend } from '../../charts/series.js';
 import { InputError } from '../../src/core/errors.js';
 import type { SheetFormat, SheetProblem } from '../../src/sheets/sampleSheet.js';
 import { parseSampleSheet, type SampleSheet } from '../../src/sheets/sampleSheet.js';
+import { explorerHtml } from '../explorerPage.js';
+import { sampleOfResult, spectrumOfFile } from '../explorerSamples.js';
 import { readTextFile } from '../files.js';
 import { jsonText, messageLine } from '../format.js';
 import type { Io } from '../io.js';
@@ -140,7 +142,7 @@ export async function runReport(
         `no sample of ${sheetPath} could be reported (${model.problems.length} problem${model.problems.length === 1 ? '' : 's'}, listed above)`,
       );
     }
-    const files = reportFiles(model);
+    const files = reportFiles(model, sheetDir);
     commitReportFolder(folder, files);
     return { model, dir, files: [...files.keys()] };
   } finally {
@@ -180,7 +182,7 @@ async function reportOf(
 }
 
 /** Every file of the report folder, by relative path. */
-function reportFiles(model: ReportModel): Map<string, string> {
+function reportFiles(model: ReportModel, sheetDir: string): Map<string, string> {
   const trends =
     model.series.length >= 2
       ? {
@@ -197,6 +199,11 @@ function reportFiles(model: ReportModel): Map<string, string> {
     if (b.kind === 'figure') files.set(b.path, b.svg);
   }
   files.set('report.json', jsonText(reportJson(model)));
+  for (const s of model.samples) {
+    const spectrum = s.spectrumFile === undefined ? undefined : spectrumOfFile(resolve(sheetDir, s.spectrumFile));
+    const title = `termsplit explorer — ${s.name}`;
+    files.set(sampleFiles(s.slug).explorer, explorerHtml({ title, samples: [sampleOfResult(s, spectrum)] }));
+  }
   return files;
 }
 
