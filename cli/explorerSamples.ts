@@ -42,6 +42,8 @@ export interface OptionSample {
   readonly dq?: number;
   readonly B?: number;
   readonly cOverB: number;
+  /** C/B was given (held in a fit), not the ion's or the default ratio (fitted where the bands fix it). */
+  readonly cOverBGiven: boolean;
   readonly zeta?: number;
   readonly bands: readonly number[];
   readonly spectrum?: ExplorerSpectrum;
@@ -52,6 +54,7 @@ export function sampleOfOptions(o: OptionSample): ExplorerSample {
   const name = o.ion ? `${o.ion.ion}, ${o.geometry}` : `d${o.n}, ${o.geometry}`;
   let dq = o.dq;
   let B = o.B;
+  let cOverB = o.cOverB;
   let origin = 'Dq and B as given';
   if ((dq === undefined || B === undefined) && o.bands.length > 0) {
     const best = fitBands({
@@ -60,11 +63,12 @@ export function sampleOfOptions(o: OptionSample): ExplorerSample {
       bands: o.bands.map((energy) => ({ energy })),
       ...(o.ion ? { freeIon: o.ion } : {}),
       cOverB: o.cOverB,
-      fitC: false,
+      ...(o.cOverBGiven ? { fitC: false } : {}),
     }).solutions[0];
     if (best) {
       dq ??= best.dq;
       B ??= best.bDetermined ? best.B : undefined;
+      if (best.cFitted && best.cOverB !== null) cOverB = best.cOverB;
       origin = 'the best fit of the bands';
     }
   }
@@ -76,7 +80,7 @@ export function sampleOfOptions(o: OptionSample): ExplorerSample {
     geometry: o.geometry,
     dq: round(dq ?? START_DQ),
     B: round(B ?? START_B),
-    cOverB: o.cOverB,
+    cOverB: Math.round(cOverB * 1e4) / 1e4,
     zeta: o.zeta ?? 0,
     bands: o.bands,
     ...(o.spectrum ? { spectrum: o.spectrum } : {}),

@@ -136,6 +136,7 @@ function optionSample(opts: ExploreOptions, cwd: string): ExplorerSample {
     ...(dq !== undefined ? { dq } : {}),
     ...(B !== undefined ? { B } : {}),
     cOverB: ratio.cOverB,
+    cOverBGiven: opts.cb !== undefined,
     ...(zeta !== undefined ? { zeta } : {}),
     bands,
     ...(spectrum ? { spectrum } : {}),

@@ -200,7 +200,8 @@ function reportFiles(model: ReportModel, sheetDir: string): Map<string, string> 
   }
   files.set('report.json', jsonText(reportJson(model)));
   for (const s of model.samples) {
-    const spectrum = s.spectrumFile === undefined ? undefined : spectrumOfFile(resolve(sheetDir, s.spectrumFile));
+    const spectrum =
+      s.spectrumFile === undefined ? undefined : spectrumOfFile(resolve(sheetDir, s.spectrumFile));
     const title = `termsplit explorer — ${s.name}`;
     files.set(sampleFiles(s.slug).explorer, explorerHtml({ title, samples: [sampleOfResult(s, spectrum)] }));
   }

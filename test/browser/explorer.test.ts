@@ -23,15 +23,23 @@ async function cliLevels(ion: string, dq: string, B: string, cb: string) {
 
 /** The level table's rows: label and exact energy. */
 function pageLevels(tab: Page) {
-  return tab
-    .locator('#level-table tbody tr')
-    .evaluateAll((rows) =>
-      rows.map((r) => ({ label: r.getAttribute('data-label') ?? '', energy: Number(r.getAttribute('data-energy')) })),
-    );
+  return tab.locator('#level-table tbody tr').evaluateAll((rows) =>
+    rows.map((r) => ({
+      label: r.getAttribute('data-label') ?? '',
+      energy: Number(r.getAttribute('data-energy')),
+    })),
+  );
 }
 
 function fragment(tab: Page): Promise<URLSearchParams> {
-  return tab.evaluate(() => window.location.hash).then((h) => new URLSearchParams(h.slice(1)));
+  return tab.evaluate<string>('location.hash').then((h) => new URLSearchParams(h.slice(1)));
+}
+
+/** Waits until the page's permalink holds this value (the page has then redrawn). */
+function waitForParam(tab: Page, key: string, value: string) {
+  return tab.waitForFunction(
+    `new URLSearchParams(location.hash.slice(1)).get(${JSON.stringify(key)}) === ${JSON.stringify(value)}`,
+  );
 }
 
 describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
@@ -45,13 +53,31 @@ describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
     // Band maxima of [Ni(H2O)6]2+: 8500, 13800, 25300 cm⁻¹ (Lever, Inorganic Electronic
     // Spectroscopy, 2nd ed., 1984) — here only as points to draw.
     const r = await runInProcess(
-      ['explore', '--ion', 'Ni2+', '--dq', '850', '--B', '900', '--bands', '8500,13800,25300', '-o', 'page.html'],
+      [
+        'explore',
+        '--ion',
+        'Ni2+',
+        '--dq',
+        '850',
+        '--B',
+        '900',
+        '--bands',
+        '8500,13800,25300',
+        '-o',
+        'page.html',
+      ],
       dir,
     );
     expect(r.code, r.stderr).toBe(0);
     browser = await chromium.launch({
       executablePath: CHROMIUM,
-      args: ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking'],
+      args: [
+        '--headless',
+        '--no-sandbox',
+        '--disable-gpu',
+        '--no-first-run',
+        '--disable-background-networking',
+      ],
     });
     tab = await browser.newPage({ viewport: { width: 1200, height: 900 } });
     tab.on('console', (m) => {
@@ -82,7 +108,7 @@ describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
     const x0 = await line.getAttribute('x1');
     await tab.locator('#dq').focus();
     for (let i = 0; i < 15; i++) await tab.keyboard.press('ArrowRight');
-    await tab.waitForFunction(() => new URLSearchParams(window.location.hash.slice(1)).get('dq') === '1000');
+    await waitForParam(tab, 'dq', '1000');
     expect(await tab.locator('#dq-value').inputValue()).toBe('1000');
     const after = await pageLevels(tab);
     expect(after[1]?.energy).not.toBe(before[1]?.energy);
@@ -96,7 +122,9 @@ describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
   it('shows the observed bands on the diagram and a curve’s parent and make-up on hover', async () => {
     expect(await tab.locator('#diagram [data-observed]').count()).toBe(3);
     await tab.locator('#level-table tbody tr').nth(1).hover();
-    await expect.poll(() => tab.locator('#hover-info').textContent()).toMatch(/parent term .*strong field t₂g/);
+    await expect
+      .poll(() => tab.locator('#hover-info').textContent())
+      .toMatch(/parent term .*strong field t₂g/);
   });
 
   it('overlays a spectrum loaded from a file, with the predicted transitions as sticks', async () => {
@@ -113,15 +141,12 @@ describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
     const times: string[] = [];
     for (let n = 1; n <= 9; n++) {
       await tab.locator('#n').selectOption(String(n));
-      await tab.waitForFunction((k) => new URLSearchParams(window.location.hash.slice(1)).get('n') === k, String(n));
+      await waitForParam(tab, 'n', String(n));
       const cold = await tab.locator('#explorer').getAttribute('data-update-ms');
       // A new C/B: the whole diagram is solved again, now with the dⁿ's tables cached.
       await tab.locator('#cOverB-value').fill(String(4 + n / 10));
       await tab.locator('#cOverB-value').dispatchEvent('change');
-      await tab.waitForFunction(
-        (v) => new URLSearchParams(window.location.hash.slice(1)).get('cb') === v,
-        String(4 + n / 10),
-      );
+      await waitForParam(tab, 'cb', String(4 + n / 10));
       const main = tab.locator('#explorer');
       times.push(
         `d${n} ${cold} / ${await main.getAttribute('data-update-ms')} (library ${await main.getAttribute('data-compute-ms')})`,
