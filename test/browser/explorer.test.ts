@@ -14,11 +14,22 @@ const CHROMIUM = process.env.CHROMIUM ?? '/usr/bin/chromium';
 const haveChromium = existsSync(CHROMIUM);
 if (!haveChromium) console.log(`no Chromium at ${CHROMIUM}: the explorer's browser test is skipped`);
 
+interface Level {
+  label: string;
+  energy: number;
+}
+
 /** The levels of `termsplit levels --json` for these parameters. */
 async function cliLevels(ion: string, dq: string, B: string, cb: string) {
   const r = await runInProcess(['levels', '--ion', ion, '--dq', dq, '--B', B, '--cb', cb, '--json']);
   expect(r.code).toBe(0);
-  return (JSON.parse(r.stdout) as { levels: { label: string; energy: number }[] }).levels;
+  return (JSON.parse(r.stdout) as { levels: Level[] }).levels;
+}
+
+/** The same labels in the same order, and energies equal to 0.01 cm⁻¹. */
+function expectSameLevels(shown: Level[], expected: Level[]): void {
+  expect(shown.map((l) => l.label)).toEqual(expected.map((l) => l.label));
+  for (const [i, l] of shown.entries()) expectClose(l.energy, expected[i]?.energy ?? Number.NaN, 0, 0.01);
 }
 
 /** The level table's rows: label and exact energy. */
@@ -98,8 +109,7 @@ describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
     const cb = (await fragment(tab)).get('cb') ?? '';
     const expected = await cliLevels('Ni2+', '850', '900', cb);
     const shown = await pageLevels(tab);
-    expect(shown.map((l) => l.label)).toEqual(expected.map((l) => l.label));
-    shown.forEach((l, i) => expectClose(l.energy, expected[i]?.energy ?? Number.NaN, 0, 0.01));
+    expectSameLevels(shown, expected);
   });
 
   it('moving the Dq slider by keyboard changes the table and the diagram, still equal to levels --json', async () => {
@@ -115,8 +125,7 @@ describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
     expect(await line.getAttribute('x1')).not.toBe(x0);
     const cb = (await fragment(tab)).get('cb') ?? '';
     const expected = await cliLevels('Ni2+', '1000', '900', cb);
-    expect(after.map((l) => l.label)).toEqual(expected.map((l) => l.label));
-    after.forEach((l, i) => expectClose(l.energy, expected[i]?.energy ?? Number.NaN, 0, 0.01));
+    expectSameLevels(after, expected);
   });
 
   it('shows the observed bands on the diagram and a curve’s parent and make-up on hover', async () => {
