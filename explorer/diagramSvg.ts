@@ -110,8 +110,9 @@ function currentPoint(view: ExplorerView, x: Axis, y: Axis, observed: readonly n
     `<line x1="${p}" x2="${p}" y1="${PLOT.top}" y2="${PLOT.bottom}" stroke="${STYLE.sample}" stroke-width="${STYLE.markWidth}" stroke-dasharray="${STYLE.sampleDash.join(' ')}" data-current="${view.deltaOverB}"/>`,
   ];
   if (B > 0) {
+    const allowed = isLowSpin(view, view.levels.ground.S) ? STYLE.allowedLowSpin : STYLE.allowed;
     for (const l of view.levels.levels) {
-      const colour = l.spinAllowed ? STYLE.allowed : STYLE.forbidden;
+      const colour = l.spinAllowed ? allowed : STYLE.forbidden;
       parts.push(
         `<circle cx="${p}" cy="${px(at(y, l.energy / B))}" r="3" fill="${colour}" data-level="${esc(l.label)}"/>`,
       );
