@@ -14,6 +14,9 @@ import { esc } from './svg.js';
 /** Configurations below this weight are left out of the make-up text. */
 const MAKEUP_FLOOR = 0.02;
 
+/** Parents below this weight are left out of a spin–orbit level's list (they would show as 0 %). */
+const PARENT_FLOOR = 0.005;
+
 /** The strong-field make-up of a level, e.g. `t₂g⁵ eg¹ 97 %, t₂g⁴ eg² 3 %`. */
 export function makeUp(level: CubicLevel): string {
   return level.configurations
@@ -51,6 +54,7 @@ export function spinOrbitTable(result: SpinOrbitResult): string {
       `<tr data-energy="${l.energy}"><th scope="row">${esc(l.label)}</th><td class="num">${l.degeneracy}</td>${energyCells(l.energy)}` +
       `<td>${esc(
         l.parentage
+          .filter((p) => p.weight >= PARENT_FLOOR)
           .slice(0, 3)
           .map((p) => `${unicodeLabel(p.state)} ${Math.round(100 * p.weight)} %`)
           .join(', '),
