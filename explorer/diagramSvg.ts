@@ -17,6 +17,9 @@ const PLOT: Plot = { width: 760, height: 540, left: 64, right: 650, top: 16, bot
 /** The E/B shown at most, unless an observed band or the current point needs more. */
 const DEFAULT_TOP = 80;
 
+/** Width kept for a label at the top of the plot, px (a label that does not fit is left out). */
+const EXIT_LABEL_ROOM = 80;
+
 /** Least vertical distance between two curve labels, px. */
 const LABEL_GAP = 14;
 
@@ -35,7 +38,7 @@ export function diagramSvg(view: ExplorerView, bands: readonly number[]): string
     curves(view, x, y),
     currentPoint(view, x, y, observed),
     `</g>`,
-    curveLabels(view, y),
+    curveLabels(view, x, y),
     frame(PLOT, x, y, 'Δ/B', 'E/B'),
     `</svg>`,
   ].join('');
@@ -129,7 +132,7 @@ function currentPoint(view: ExplorerView, x: Axis, y: Axis, observed: readonly n
 }
 
 /** Labels of the spin-allowed curves (at the right end), pushed apart, beside the frame. */
-function curveLabels(view: ExplorerView, y: Axis): string {
+function curveLabels(view: ExplorerView, x: Axis, y: Axis): string {
   const { curves: all, regions } = view.diagram;
   const last = regions[regions.length - 1];
   if (!last) return '';
@@ -143,13 +146,40 @@ function curveLabels(view: ExplorerView, y: Axis): string {
     PLOT.bottom - 4,
   );
   const colour = isLowSpin(view, last.S) ? STYLE.allowedLowSpin : STYLE.allowed;
-  return shown
-    .map(({ c, v }, i) => {
-      const ly = ys[i] ?? 0;
-      return (
-        `<line x1="${PLOT.right}" y1="${px(at(y, v))}" x2="${PLOT.right + 8}" y2="${px(ly)}" stroke="${colour}" stroke-width="${STYLE.leaderWidth}"/>` +
-        `<text x="${PLOT.right + 11}" y="${px(ly)}" dy="0.35em" font-size="${STYLE.labelSize}" fill="${colour}">${esc(unicodeLabel(c.label))}</text>`
-      );
-    })
-    .join('');
+  return (
+    shown
+      .map(({ c, v }, i) => {
+        const ly = ys[i] ?? 0;
+        return (
+          `<line x1="${PLOT.right}" y1="${px(at(y, v))}" x2="${PLOT.right + 8}" y2="${px(ly)}" stroke="${colour}" stroke-width="${STYLE.leaderWidth}"/>` +
+          `<text x="${PLOT.right + 11}" y="${px(ly)}" dy="0.35em" font-size="${STYLE.labelSize}" fill="${colour}">${esc(unicodeLabel(c.label))}</text>`
+        );
+      })
+      .join('') + exitLabels(view, x, y, last.fromDeltaOverB, last.S, colour)
+  );
+}
+
+/** Labels of the spin-allowed curves that leave through the top of the plot, just below where they leave. */
+function exitLabels(view: ExplorerView, x: Axis, y: Axis, from: number, S: number, colour: string): string {
+  const { curves: all, deltaOverB: xs } = view.diagram;
+  const exits: { at: number; label: string }[] = [];
+  for (const c of all) {
+    if (c.S !== S || (c.values[c.values.length - 1] ?? 0) <= y.max) continue;
+    const exit = xs[c.values.findIndex((v) => v > y.max)];
+    // Only where the curve is spin-allowed (the last region), and with room for the text.
+    if (exit === undefined || exit < from) continue;
+    const p = at(x, exit) + 5;
+    if (p <= PLOT.right - EXIT_LABEL_ROOM) exits.push({ at: p, label: c.label });
+  }
+  exits.sort((a, b) => a.at - b.at);
+  let next = Number.NEGATIVE_INFINITY;
+  const parts: string[] = [];
+  for (const e of exits) {
+    if (e.at < next) continue;
+    next = e.at + EXIT_LABEL_ROOM;
+    parts.push(
+      `<text x="${px(e.at)}" y="${PLOT.top + 14}" font-size="${STYLE.labelSize}" fill="${colour}">${esc(unicodeLabel(e.label))}</text>`,
+    );
+  }
+  return parts.join('');
 }
