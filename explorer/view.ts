@@ -13,6 +13,13 @@ import type { ExplorerParams } from './data.js';
 /** Points of the diagram's Δ/B grid (the crossings are added exactly). */
 export const DIAGRAM_POINTS = 200;
 
+/**
+ * Scan points of the diagram's search for spin crossovers: a spacing of Δ/B 0.4 over the default
+ * range (the library's diagrams use 240). Two changes of spin closer than that would be missed;
+ * each change found is then pinned down exactly.
+ */
+export const CROSSING_SCAN_POINTS = 100;
+
 /** Steps in which the diagram's Δ/B range grows to keep the current point inside. */
 const RANGE_STEP = 10;
 
@@ -42,7 +49,13 @@ export function viewComputer(): (p: ExplorerParams) => ExplorerView {
     const maxDeltaOverB = diagramRange(deltaOverB);
     const k = `${n}:${geometry}:${cOverB}:${maxDeltaOverB}`;
     if (k !== key || !diagram) {
-      diagram = sweepDiagram(n, { geometry, cOverB, maxDeltaOverB, points: DIAGRAM_POINTS });
+      diagram = sweepDiagram(n, {
+        geometry,
+        cOverB,
+        maxDeltaOverB,
+        points: DIAGRAM_POINTS,
+        crossingScanPoints: CROSSING_SCAN_POINTS,
+      });
       key = k;
     }
     const C = cOverB * B;

@@ -3,7 +3,9 @@ import { diagramSvg } from '../../explorer/diagramSvg.js';
 import { spectrumSvg } from '../../explorer/spectrumSvg.js';
 import { levelTable } from '../../explorer/tables.js';
 import { DIAGRAM_POINTS, diagramRange, viewComputer } from '../../explorer/view.js';
+import { sweepDiagram } from '../../src/analysis/sweep.js';
 import { solveCubic } from '../../src/field/cubic.js';
+import { expectClose } from '../helpers.js';
 
 const params = { sample: 0, n: 3, geometry: 'oct', dq: 1740, B: 725, cOverB: 4, zeta: 0 } as const;
 
@@ -15,6 +17,22 @@ describe('the explorer view', () => {
     expect(a.diagram.points).toBe(DIAGRAM_POINTS);
     expect(compute({ ...params, dq: 1800 }).diagram).toBe(a.diagram);
     expect(compute({ ...params, cOverB: 4.5 }).diagram).not.toBe(a.diagram);
+  });
+
+  it('the coarser crossover search finds the crossings of the library’s default diagram (d4–d7)', () => {
+    const compute = viewComputer();
+    for (const n of [4, 5, 6, 7]) {
+      const view = compute({ ...params, n, cOverB: 4.5 });
+      const reference = sweepDiagram(n, {
+        cOverB: 4.5,
+        maxDeltaOverB: view.diagram.maxDeltaOverB,
+        points: 2,
+      });
+      expect(view.diagram.crossings.length).toBe(reference.crossings.length);
+      for (const [i, c] of view.diagram.crossings.entries()) {
+        expectClose(c.deltaOverB, reference.crossings[i]?.deltaOverB ?? Number.NaN, 0, 1e-6);
+      }
+    }
   });
 
   it('diagramRange widens the Δ/B range in steps of 10 to hold the current point', () => {
