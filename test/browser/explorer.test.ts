@@ -1,5 +1,5 @@
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { type Browser, chromium, type Page } from 'playwright-core';
@@ -58,6 +58,8 @@ describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
   let dir: string;
   let tab: Page;
   const errors: string[] = [];
+  /** The time of the last update after the Dq slider moved, ms. */
+  let dqMove = '';
 
   beforeAll(async () => {
     dir = mkdtempSync(join(tmpdir(), 'termsplit-explore-'));
@@ -120,6 +122,7 @@ describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
     for (let i = 0; i < 15; i++) await tab.keyboard.press('ArrowRight');
     await waitForParam(tab, 'dq', '1000');
     expect(await tab.locator('#dq-value').inputValue()).toBe('1000');
+    dqMove = (await tab.locator('#explorer').getAttribute('data-update-ms')) ?? '';
     const after = await pageLevels(tab);
     expect(after[1]?.energy).not.toBe(before[1]?.energy);
     expect(await line.getAttribute('x1')).not.toBe(x0);
@@ -161,7 +164,12 @@ describe.skipIf(!haveChromium)('the explorer page in headless Chromium', () => {
         `d${n} ${cold} / ${await main.getAttribute('data-update-ms')} (library ${await main.getAttribute('data-compute-ms')})`,
       );
     }
-    console.log(`explorer update, ms (first for the dⁿ / next, new C/B): ${times.join(', ')}`);
+    const load = loadavg()
+      .map((l) => l.toFixed(1))
+      .join(' ');
+    console.log(
+      `explorer update, ms: Dq moved (d8) ${dqMove}; new dⁿ / then a new C/B (whole diagram): ${times.join(', ')}; load average ${load} on ${availableParallelism()} cores`,
+    );
     expect(errors).toEqual([]);
   });
 });
