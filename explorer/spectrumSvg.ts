@@ -12,6 +12,13 @@ import type { ExplorerView } from './view.js';
 
 const PLOT: Plot = { width: 760, height: 330, left: 64, right: 736, top: 40, bottom: 268 };
 
+/** The y-axis title of each quantity of the library's absorption spectra. */
+const QUANTITY_TITLES: Readonly<Record<string, string>> = {
+  absorbance: 'absorbance',
+  epsilon: 'ε / L mol⁻¹ cm⁻¹',
+  arbitrary: 'intensity (arbitrary units)',
+};
+
 /** Most points drawn: a long scan is thinned evenly (the figure is a few hundred px wide). */
 const MAX_POINTS = 1500;
 
@@ -33,7 +40,7 @@ export function spectrumSvg(
     silhouette(spectrum, x, y),
     sticks(view, x),
     diamonds(bands, x),
-    frame(PLOT, x, y, 'wavenumber / cm⁻¹', spectrum.quantity),
+    frame(PLOT, x, y, 'wavenumber / cm⁻¹', QUANTITY_TITLES[spectrum.quantity] ?? spectrum.quantity),
     `</svg>`,
   ].join('');
 }
