@@ -8,7 +8,13 @@
 import { InputError } from '../src/core/errors.js';
 import { absorptionSpectrum } from '../src/spectra/absorptionSpectrum.js';
 import { readSpectrum } from '../src/spectra/spectrumAnalysis.js';
-import { DATA_ELEMENT_ID, type ExplorerData, type ExplorerParams, type ExplorerSpectrum } from './data.js';
+import {
+  DATA_ELEMENT_ID,
+  type ExplorerData,
+  type ExplorerParams,
+  type ExplorerSpectrum,
+  PARAM_RANGES,
+} from './data.js';
 import { diagramSvg } from './diagramSvg.js';
 import { exportPng, exportSvg } from './exportFigure.js';
 import { describeCurve, describeLevel } from './hoverText.js';
@@ -109,9 +115,13 @@ function schedule(): void {
 
 for (const k of NUMERIC) {
   const take = (from: HTMLInputElement, to: HTMLInputElement) => {
-    const v = Number(from.value);
-    if (from.value === '' || !Number.isFinite(v)) return;
-    to.value = from.value;
+    const typed = Number(from.value);
+    if (from.value === '' || !Number.isFinite(typed)) return;
+    // A typed value outside the slider's range is brought inside it (the permalink keeps only those).
+    const { min, max } = PARAM_RANGES[k];
+    const v = Math.min(max, Math.max(min, typed));
+    from.value = String(v);
+    to.value = String(v);
     params = { ...params, [k]: v };
     schedule();
   };
