@@ -9,6 +9,7 @@ import { InputError } from '../src/core/errors.js';
 import { registerCrossover } from './commands/crossover.js';
 import { registerDemo } from './commands/demo.js';
 import { registerDiagram } from './commands/diagram.js';
+import { registerExplore } from './commands/explore.js';
 import { registerFit } from './commands/fit.js';
 import { registerIons } from './commands/ions.js';
 import { registerLevels } from './commands/levels.js';
@@ -45,6 +46,7 @@ export function buildProgram(io: Io): Command {
     registerSpectrum,
     registerReport,
     registerDemo,
+    registerExplore,
   ])
     register(program, io);
   for (const c of program.commands) c.exitOverride().configureOutput(output(io));

@@ -36,8 +36,11 @@ function newestSource(dir: string): number {
 
 /** Builds dist/ once if it is missing or older than the sources. */
 export function ensureBuilt(): void {
-  const sources = Math.max(...['src', 'cli', 'charts'].map((d) => newestSource(resolve(ROOT, d))));
-  const stale = !existsSync(BIN) || statSync(BIN).mtimeMs < sources;
+  const sources = Math.max(
+    ...['src', 'cli', 'charts', 'explorer'].map((d) => newestSource(resolve(ROOT, d))),
+  );
+  const bundle = resolve(ROOT, 'dist/explorer/bundle.js');
+  const stale = [BIN, bundle].some((f) => !existsSync(f) || statSync(f).mtimeMs < sources);
   if (stale) {
     const r = spawnSync('npm', ['run', 'build'], { cwd: ROOT, encoding: 'utf8' });
     if (r.status !== 0) throw new Error(`build failed: ${r.stdout}${r.stderr}`);

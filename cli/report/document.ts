@@ -28,6 +28,7 @@ export type Block =
   | { readonly kind: 'note'; readonly text: string }
   | { readonly kind: 'list'; readonly items: readonly string[] }
   | TableBlock
+  | { readonly kind: 'link'; readonly text: string; readonly href: string }
   | {
       readonly kind: 'figure';
       /** Path of the figure file, relative to the report folder. */
@@ -43,6 +44,7 @@ const GEOMETRY = { oct: 'octahedral', tet: 'tetrahedral' } as const;
 export function sampleFiles(slug: string) {
   return {
     diagram: `figures/${slug}-diagram.svg`,
+    explorer: `explore/${slug}.html`,
     spectrum: `figures/${slug}-spectrum.svg`,
     assignments: `tables/${slug}-assignments.csv`,
     alternatives: `tables/${slug}-alternatives.csv`,
@@ -184,7 +186,11 @@ function orderItems(model: ReportModel): string[] {
 function sampleBlocks(s: SampleResult): Block[] {
   const files = sampleFiles(s.slug);
   const b = s.best;
-  const out: Block[] = [{ kind: 'heading', level: 3, text: s.name, id: `sample-${s.slug}` }, ...fitBlocks(s)];
+  const out: Block[] = [
+    { kind: 'heading', level: 3, text: s.name, id: `sample-${s.slug}` },
+    { kind: 'link', text: 'Explore this sample (Dq, B, C/B and ζ on sliders)', href: files.explorer },
+    ...fitBlocks(s),
+  ];
   out.push(...spinBlocks(s));
   out.push(...structureBlocks(s));
   const cautions = [...s.cautions, ...(s.spin?.cautions ?? [])];

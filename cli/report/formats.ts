@@ -52,6 +52,9 @@ export function toMarkdown(blocks: readonly Block[]): string {
           ].join('\n'),
         );
         break;
+      case 'link':
+        out.push(`[${mdEscape(b.text)}](${encodeURI(b.href)})`);
+        break;
       case 'figure':
         out.push(`![${mdEscape(b.caption)}](${encodeURI(b.path)})\n\n*${mdEscape(b.caption)}*`);
         break;
@@ -127,6 +130,9 @@ export function toHtml(blocks: readonly Block[], title: string): string {
               .join('') +
             '</tbody></table>',
         );
+        break;
+      case 'link':
+        body.push(`<p><a href="${htmlEscape(encodeURI(b.href))}">${htmlEscape(b.text)}</a></p>`);
         break;
       case 'figure':
         body.push(

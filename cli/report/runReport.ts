@@ -10,6 +10,8 @@ import { renderTrend } from '../../charts/series.js';
 import { InputError } from '../../src/core/errors.js';
 import type { SheetFormat, SheetProblem } from '../../src/sheets/sampleSheet.js';
 import { parseSampleSheet, type SampleSheet } from '../../src/sheets/sampleSheet.js';
+import { explorerHtml } from '../explorerPage.js';
+import { sampleOfResult, spectrumOfFile } from '../explorerSamples.js';
 import { readTextFile } from '../files.js';
 import { jsonText, messageLine } from '../format.js';
 import type { Io } from '../io.js';
@@ -88,6 +90,26 @@ function isInside(path: string, dir: string): boolean {
   return r !== '' && !r.startsWith('..') && !isAbsolute(r);
 }
 
+/** A sample sheet read and checked: its valid samples, the problems, and the folder its paths are relative to. */
+export interface CheckedSheet {
+  readonly sheet: SampleSheet;
+  readonly problems: SheetProblem[];
+  readonly sheetDir: string;
+}
+
+/**
+ * Reads a sample sheet (JSON or CSV) and sets aside samples whose spectrum file is missing or,
+ * unless `allowOutside`, lies outside the sheet's folder and `cwd`.
+ * @throws InputError when the sheet cannot be read or parsed.
+ */
+export function readSheet(sheetPath: string, cwd: string, allowOutside: boolean): CheckedSheet {
+  const full = resolve(cwd, sheetPath);
+  const text = readTextFile(full);
+  const parsed = parseSampleSheet(text, sheetFormat(full, text));
+  const sheetDir = dirname(full);
+  return { ...checkSpectra(parsed, sheetDir, cwd, allowOutside), sheetDir };
+}
+
 /** The report's outcome: the model, where it was written, and the exit code. */
 export interface ReportRun {
   readonly model: ReportModel;
@@ -109,11 +131,7 @@ export async function runReport(
   sheetLabel: string = sheetPath,
 ): Promise<ReportRun> {
   const { jobs } = job;
-  const full = resolve(io.cwd, sheetPath);
-  const text = readTextFile(full);
-  const parsed = parseSampleSheet(text, sheetFormat(full, text));
-  const sheetDir = dirname(full);
-  const { sheet, problems } = checkSpectra(parsed, sheetDir, io.cwd, job.allowOutside === true);
+  const { sheet, problems, sheetDir } = readSheet(sheetPath, io.cwd, job.allowOutside === true);
   const dir = resolve(io.cwd, job.output);
   // Reserved before the work, so a folder that cannot take the report is refused at once.
   const folder = reserveReportFolder(dir);
@@ -124,7 +142,7 @@ export async function runReport(
         `no sample of ${sheetPath} could be reported (${model.problems.length} problem${model.problems.length === 1 ? '' : 's'}, listed above)`,
       );
     }
-    const files = reportFiles(model);
+    const files = reportFiles(model, sheetDir);
     commitReportFolder(folder, files);
     return { model, dir, files: [...files.keys()] };
   } finally {
@@ -164,7 +182,7 @@ async function reportOf(
 }
 
 /** Every file of the report folder, by relative path. */
-function reportFiles(model: ReportModel): Map<string, string> {
+function reportFiles(model: ReportModel, sheetDir: string): Map<string, string> {
   const trends =
     model.series.length >= 2
       ? {
@@ -181,6 +199,12 @@ function reportFiles(model: ReportModel): Map<string, string> {
     if (b.kind === 'figure') files.set(b.path, b.svg);
   }
   files.set('report.json', jsonText(reportJson(model)));
+  for (const s of model.samples) {
+    const spectrum =
+      s.spectrumFile === undefined ? undefined : spectrumOfFile(resolve(sheetDir, s.spectrumFile));
+    const title = `termsplit explorer — ${s.name}`;
+    files.set(sampleFiles(s.slug).explorer, explorerHtml({ title, samples: [sampleOfResult(s, spectrum)] }));
+  }
   return files;
 }
 

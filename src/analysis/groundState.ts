@@ -1,12 +1,12 @@
 /**
  * Where the ground state of dⁿ changes its spin as Dq grows (high-spin → low-spin): each change
- * found on a scan and then pinned down as a root of E(lowest of one spin) − E(lowest of the
- * other), with the full solver at every step.
+ * found on a scan of the ground spin (eigenvalues alone) and then pinned down as a root of
+ * E(lowest of one spin) − E(lowest of the other), with the full solver at every step.
  */
 
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
-import { type CubicResult, cubicLevels } from '../field/cubic.js';
+import { type CubicResult, cubicLevels, groundSpin } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
 import { brentRoot } from '../numeric/roots.js';
 
@@ -76,11 +76,14 @@ export function groundStateCrossings(input: CrossingInput): GroundCrossing[] {
   const maxDq = (maxDeltaOverB * B) / 10;
   const out: GroundCrossing[] = [];
   let prevDq = 0;
-  let prev = solve(prevDq);
+  let prevS = groundSpin(n, 0, B, C);
   for (let i = 1; i <= scanPoints; i++) {
     const dq = (maxDq * i) / scanPoints;
-    const cur = solve(dq);
-    if (cur.ground.S !== prev.ground.S) {
+    // The scan watches the ground spin only (eigenvalues alone); the full solver labels the ends.
+    const curS = groundSpin(n, sign * dq, B, C);
+    if (curS !== prevS) {
+      const prev = solve(prevDq);
+      const cur = solve(dq);
       const sLow = prev.ground.S;
       const sHigh = cur.ground.S;
       const root = brentRoot(
@@ -104,7 +107,7 @@ export function groundStateCrossings(input: CrossingInput): GroundCrossing[] {
       });
     }
     prevDq = dq;
-    prev = cur;
+    prevS = curS;
   }
   return out;
 }

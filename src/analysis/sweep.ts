@@ -17,7 +17,7 @@ import { cubicLevels } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
 import { csvText } from '../sheets/csv.js';
 import type { Caution } from './cautions.js';
-import { groundStateCrossings } from './groundState.js';
+import { CROSSING_DEFAULTS, groundStateCrossings } from './groundState.js';
 
 /** Racah B (cm⁻¹) the sweep solves at before dividing by it; see the module notes. */
 export const SWEEP_B = 1000;
@@ -47,6 +47,12 @@ export interface SweepOptions {
   readonly maxDeltaOverB?: number;
   /** Evenly spaced Δ/B values from 0 to the maximum, both ends included. @default DEFAULT_SWEEP_POINTS (400) */
   readonly points?: number;
+  /**
+   * Scan points of the search for changes of ground-state spin (a change is found unless two
+   * fall between neighbouring points); fewer is faster for an interactive view.
+   * @default CROSSING_DEFAULTS.scanPoints (240)
+   */
+  readonly crossingScanPoints?: number;
   /** Called after each solved point, for progress display. */
   readonly onProgress?: (done: number, total: number) => void;
 }
@@ -169,9 +175,15 @@ export function sweepDiagram(n: number, options: SweepOptions = {}): Correlation
   const { geometry, cOverB, maxDeltaOverB, points } = sweepSettings(n, options);
   const B = SWEEP_B;
   const C = cOverB * B;
-  const crossings: DiagramCrossing[] = groundStateCrossings({ n, geometry, B, C, maxDeltaOverB }).map(
-    (c) => ({ deltaOverB: c.deltaOverB, from: c.from, to: c.to, fromS: c.fromS, toS: c.toS }),
-  );
+  const scanPoints = options.crossingScanPoints ?? CROSSING_DEFAULTS.scanPoints;
+  const crossings: DiagramCrossing[] = groundStateCrossings({
+    n,
+    geometry,
+    B,
+    C,
+    maxDeltaOverB,
+    scanPoints,
+  }).map((c) => ({ deltaOverB: c.deltaOverB, from: c.from, to: c.to, fromS: c.fromS, toS: c.toS }));
   const xs = gridWithCrossings(maxDeltaOverB, points, crossings);
   const sign = geometry === 'oct' ? 1 : -1;
   const index = new Map<string, number>();

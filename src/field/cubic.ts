@@ -9,7 +9,8 @@ import { freeIonTerms } from '../atom/freeIon.js';
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { bilinear, clusterSorted, column, symmetricEigen } from '../numeric/eigen.js';
-import { adaptedBlocks } from './cubicBasis.js';
+import { symmetricEigenvalues } from '../numeric/eigenvalues.js';
+import { type AdaptedBlock, adaptedBlocks } from './cubicBasis.js';
 import { configurationText, type Geometry, irrepName, stateSymbol } from './labels.js';
 import { branchTerm, CUBIC_IRREPS, type CubicIrrep, decomposeCubic, IRREP_DIMENSION } from './symmetry.js';
 
@@ -148,14 +149,7 @@ export function cubicLevels(n: number, dqOct: number, B: number, C: number, geom
   const blocks = adaptedBlocks(n);
   const pool: { block: number; j: number; value: number }[] = [];
   const eigs = blocks.map((block, bi) => {
-    const m = block.size;
-    const h = new Float64Array(m * m);
-    const { partB, partC, fieldDiagonal } = block;
-    // Hot loop: typed-array reads are in range by construction.
-    for (let i = 0; i < h.length; i++) h[i] = B * (partB[i] as number) + C * (partC[i] as number);
-    for (let i = 0; i < m; i++)
-      h[i * m + i] = (h[i * m + i] as number) + dqOct * (fieldDiagonal[i] as number);
-    const eig = symmetricEigen(h, m);
+    const eig = symmetricEigen(blockMatrix(block, dqOct, B, C), block.size);
     eig.values.forEach((value, j) => {
       pool.push({ block: bi, j, value });
     });
@@ -218,6 +212,35 @@ export function cubicLevels(n: number, dqOct: number, B: number, C: number, geom
     }
   }
   return finish(n, dqOct, B, C, geometry, raw);
+}
+
+/** H of one symmetry-adapted block, row-major. */
+function blockMatrix(block: AdaptedBlock, dqOct: number, B: number, C: number): Float64Array {
+  const m = block.size;
+  const h = new Float64Array(m * m);
+  const { partB, partC, fieldDiagonal } = block;
+  // Hot loop: typed-array reads are in range by construction.
+  for (let i = 0; i < h.length; i++) h[i] = B * (partB[i] as number) + C * (partC[i] as number);
+  for (let i = 0; i < m; i++) h[i * m + i] = (h[i * m + i] as number) + dqOct * (fieldDiagonal[i] as number);
+  return h;
+}
+
+/**
+ * The total spin S of the ground state for a signed, octahedral-convention Dq, from the
+ * eigenvalues alone (no vectors, no labels): for scans that only watch the ground spin change.
+ */
+export function groundSpin(n: number, dqOct: number, B: number, C: number): number {
+  checkMagnitudes(dqOct, B, C);
+  let lowest = Number.POSITIVE_INFINITY;
+  let S = 0;
+  for (const block of adaptedBlocks(n)) {
+    const v = symmetricEigenvalues(blockMatrix(block, dqOct, B, C), block.size)[0];
+    if (v !== undefined && v < lowest) {
+      lowest = v;
+      S = block.S;
+    }
+  }
+  return S;
 }
 
 /** The label, symbol and parent of the i-th lowest level of one (S, irrep). */
