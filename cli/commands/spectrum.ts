@@ -33,7 +33,13 @@ import {
   type SpectrumFitRequest,
 } from '../../src/spectra/spectrumAnalysis.js';
 import { DEFAULT_X_COLUMN, DEFAULT_Y_COLUMN } from '../../src/spectra/spectrumText.js';
-import { parseXUnit, parseYUnit, X_UNIT_NAMES, Y_UNIT_NAMES } from '../../src/spectra/spectrumUnits.js';
+import {
+  parseXUnit,
+  parseYUnit,
+  X_UNIT_NAMES,
+  Y_UNIT_CHOICES,
+  Y_UNIT_NAMES,
+} from '../../src/spectra/spectrumUnits.js';
 import { readTextFile, writeFileAtomic } from '../files.js';
 import { fixed, ionText, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
@@ -97,7 +103,7 @@ export function registerSpectrum(program: Command, io: Io): void {
     .option(...GEOMETRY_OPTION)
     .option('--range <from-to>', 'window, e.g. 330-1300nm, 8000-30000 (cm⁻¹) or 1.2-3.6eV')
     .option('--x-unit <unit>', 'x unit when the file does not say: nm, cm-1 or eV')
-    .option('--y-unit <unit>', 'y quantity when the file does not say: A, epsilon, %T, T or arb')
+    .option('--y-unit <unit>', `y quantity when the file does not say: ${Y_UNIT_CHOICES}`)
     .option('--x-col <column>', 'x column, by number (from 1) or header name', String(DEFAULT_X_COLUMN))
     .option('--y-col <column>', 'y column, by number (from 1) or header name', String(DEFAULT_Y_COLUMN))
     .option('--conc <mol/L>', 'concentration of the metal complex; with --path turns absorbance into ε')
@@ -327,12 +333,19 @@ function readingLines(r: SpectrumReport): string[] {
   return lines;
 }
 
+const UNIT_SYMBOLS: Readonly<Record<SpectrumAnalysis['spectrum']['quantity'], string>> = {
+  epsilon: 'ε',
+  absorbance: 'A',
+  'kubelka-munk': 'F(R)',
+  arbitrary: 'y',
+};
+
 /** The table of the bands found. */
 function bandLines(r: SpectrumReport): string[] {
   const { spectrum, analysis } = r;
   const lines: string[] = [];
   lines.push('');
-  const unit = spectrum.quantity === 'epsilon' ? 'ε' : spectrum.quantity === 'absorbance' ? 'A' : 'y';
+  const unit = UNIT_SYMBOLS[spectrum.quantity];
   lines.push(`Bands (Gaussian components; ${quantityTitle(spectrum.quantity)}):`);
   const fitNotes = narrowBandNotes(r);
   const rows = analysis.bands.map((band) => {

@@ -376,6 +376,16 @@ function spectrumFit(
   }
 }
 
+/**
+ * What a reflectance spectrum can and cannot say (Kubelka and Munk 1931 for F(R) = K/S; the
+ * limits of the model are common practice, no source).
+ */
+export const KUBELKA_MUNK_CAUTION =
+  'diffuse reflectance converted to F(R) = (1 − R)²/2R (Kubelka & Munk 1931): the band maxima of F(R) are what is fitted, ' +
+  'and ε is not known (F(R) is absorption over scattering, K/S), so bands are told apart by their relative heights only, ' +
+  'never by the usual ε ranges; F(R) follows absorption only for an optically thick, diluted powder — strong bands ' +
+  'saturate (R near 0) and flatten, and specular reflection or a changing particle size distorts heights';
+
 /** Sentences about where the result could mislead. */
 function spectrumCautions(
   analysis: BandAnalysis,
@@ -386,7 +396,8 @@ function spectrumCautions(
   element?: string,
 ): string[] {
   const out = [...signCautions(spectrum), ...windowCautions(analysis), ...bandCautions(analysis, geometry)];
-  if (spectrum.quantity !== 'epsilon') {
+  if (spectrum.quantity === 'kubelka-munk') out.push(KUBELKA_MUNK_CAUTION);
+  else if (spectrum.quantity !== 'epsilon') {
     out.push(
       spectrum.quantity === 'absorbance'
         ? `intensities are absorbances: give ${names.concentrationAndPath} to compare ε with the usual ranges`
@@ -407,7 +418,8 @@ function spectrumCautions(
  * fitted to it mean nothing.
  */
 function signCautions(spectrum: AbsorptionSpectrum): string[] {
-  if (spectrum.quantity === 'arbitrary' || spectrum.value.some((v) => v > 0)) return [];
+  if (spectrum.quantity === 'arbitrary' || spectrum.quantity === 'kubelka-munk') return [];
+  if (spectrum.value.some((v) => v > 0)) return [];
   const what = spectrum.quantity === 'epsilon' ? 'ε' : 'absorbance';
   return [
     `every ${what} value is zero or negative: the blank may have been subtracted the wrong way round, or the y column is not ${what}; the bands below are not to be trusted`,

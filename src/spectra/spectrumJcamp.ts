@@ -38,7 +38,11 @@ const Y_UNITS: Readonly<Record<string, SpectrumYUnit>> = {
   'MOLAR ABSORPTIVITY': 'epsilon',
   'L MOL-1 CM-1': 'epsilon',
   'M-1 CM-1': 'epsilon',
-  'KUBELKA-MUNK': 'arbitrary',
+  'KUBELKA-MUNK': 'kubelka-munk',
+  REFLECTANCE: 'reflectance',
+  '%REFLECTANCE': 'reflectance-percent',
+  '% REFLECTANCE': 'reflectance-percent',
+  'PERCENT REFLECTANCE': 'reflectance-percent',
 };
 
 /**
