@@ -16,6 +16,9 @@ import { InputError } from '../src/core/errors.js';
  */
 export const INPUT_FILE_MAX_BYTES = 256 * 1024 * 1024;
 
+/** The size cap in words, for help texts. */
+export const INPUT_FILE_MAX_TEXT = `${INPUT_FILE_MAX_BYTES / 1024 / 1024} MB`;
+
 /** Temporary files and folders in use, with what an interrupt leaves undone if they go. */
 const temporaries = new Map<string, string>();
 

@@ -17,6 +17,7 @@ import {
   COMPLEX_B_LIMIT,
   CONCENTRATION_LIMIT,
   PATH_LENGTH_LIMIT,
+  SPECTRUM_ROWS_LIMIT,
 } from '../../src/core/limits.js';
 import { cmToNm } from '../../src/core/units.js';
 import { unicodeLabel } from '../../src/field/labels.js';
@@ -44,9 +45,9 @@ import {
   Y_UNIT_CHOICES,
   Y_UNIT_NAMES,
 } from '../../src/spectra/spectrumUnits.js';
-import { readTextFile, writeFilesAtomic } from '../files.js';
-import { fixed, ionText, jsonText, table } from '../format.js';
-import type { Io } from '../io.js';
+import { INPUT_FILE_MAX_TEXT, readTextFile, writeFilesAtomic } from '../files.js';
+import { fixed, ionText, jsonText, messageLine, table } from '../format.js';
+import { type Io, progress } from '../io.js';
 import {
   DPI_OPTION,
   figureSizeOptions,
@@ -102,7 +103,10 @@ export function registerSpectrum(program: Command, io: Io): void {
     .description(
       'find the d–d bands of a measured UV-vis-NIR spectrum (CSV/TSV/text or JCAMP-DX) and draw them',
     )
-    .argument('<file>', 'the spectrum: delimited text (x and y columns) or JCAMP-DX (.jdx, .dx)')
+    .argument(
+      '<file>',
+      `the spectrum: delimited text (x and y columns) or JCAMP-DX (.jdx, .dx); at most ${SPECTRUM_ROWS_LIMIT} rows and ${INPUT_FILE_MAX_TEXT}`,
+    )
     .option('--ion <name>', 'the metal ion, e.g. Cr3+ (with --dq and --B: predicted transitions)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
     .option(...GEOMETRY_OPTION)
@@ -154,8 +158,26 @@ export interface SpectrumReport extends SpectrumAnalysis {
 export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): string {
   if (opts.listColumns) return columnsCommand(file, opts, io);
   const job = spectrumJob(opts);
-  const text = readTextFile(resolve(io.cwd, file));
-  if (isAllColumns(opts.yCol)) return everyColumnCommand(file, text, job, opts, io);
+  const bar = progress(io, `spectrum: ${messageLine(file)}`);
+  bar.update(0, 1);
+  try {
+    const text = readTextFile(resolve(io.cwd, file));
+    return isAllColumns(opts.yCol)
+      ? everyColumnCommand(file, text, job, opts, io, bar)
+      : oneSpectrumCommand(file, text, job, opts, io);
+  } finally {
+    bar.end();
+  }
+}
+
+/** One spectrum: its analysis, figure, and text or JSON. */
+function oneSpectrumCommand(
+  file: string,
+  text: string,
+  job: ReturnType<typeof spectrumJob>,
+  opts: SpectrumOptions,
+  io: Io,
+): string {
   const report: SpectrumReport = {
     file,
     ...inFile(file, () => analyseSpectrum(text, { ...job.options, fileName: file })),
@@ -203,8 +225,11 @@ function everyColumnCommand(
   job: ReturnType<typeof spectrumJob>,
   opts: SpectrumOptions,
   io: Io,
+  bar: ReturnType<typeof progress>,
 ): string {
-  const results = inFile(file, () => analyseEveryColumn(text, { ...job.options, fileName: file }));
+  const results = inFile(file, () =>
+    analyseEveryColumn(text, { ...job.options, fileName: file }, (done, total) => bar.update(done, total)),
+  );
   const reports = results.map((c): SpectrumReport | Extract<ColumnAnalysis, { failure: string }> =>
     'failure' in c
       ? c

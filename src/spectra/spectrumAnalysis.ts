@@ -243,11 +243,15 @@ export type ColumnAnalysis =
 /**
  * Analyses every y column of a delimited-text file against its x column, each as a spectrum of
  * its own ({@link analyseSpectrum}); a column whose analysis fails is reported with its reason
- * and the others go on.
+ * and the others go on. `onColumn` hears of each column before its analysis (for progress).
  * @throws InputError when the file cannot be read as delimited text, has no column besides x,
  *   or no column could be analysed.
  */
-export function analyseEveryColumn(text: string, options: SpectrumAnalysisOptions): ColumnAnalysis[] {
+export function analyseEveryColumn(
+  text: string,
+  options: SpectrumAnalysisOptions,
+  onColumn: (done: number, total: number) => void = () => {},
+): ColumnAnalysis[] {
   if (isJcamp(text) || /\.(jdx|dx|jcamp)$/i.test(options.fileName ?? '')) {
     throw new InputError(
       `y column "${ALL_COLUMNS}" applies to delimited text; a JCAMP-DX file is read as one spectrum`,
@@ -256,7 +260,8 @@ export function analyseEveryColumn(text: string, options: SpectrumAnalysisOption
   const layout = spectrumColumns(text, options.xColumn);
   const ys = layout.columns.filter((c) => c.number !== layout.x);
   if (ys.length === 0) throw new InputError('the file has no column besides x to read as a spectrum');
-  const out: ColumnAnalysis[] = ys.map((c) => {
+  const out: ColumnAnalysis[] = ys.map((c, i) => {
+    onColumn(i, ys.length);
     try {
       const analysis = analyseSpectrum(text, { ...options, xColumn: layout.x, yColumn: c.number });
       return { column: c.number, label: c.label, analysis };

@@ -5,6 +5,7 @@
  */
 
 import { InputError } from '../core/errors.js';
+import { SPECTRUM_ROWS_LIMIT } from '../core/limits.js';
 import { splitCsvLine } from '../sheets/csv.js';
 import type { RawMetadata, RawSpectrum } from './rawSpectrum.js';
 import { xUnitFromLabel, yUnitFromLabel } from './spectrumUnits.js';
@@ -18,6 +19,8 @@ export interface SpectrumTextOptions {
   readonly xColumn?: ColumnChoice;
   /** The y column. @default 2 */
   readonly yColumn?: ColumnChoice;
+  /** Most rows of numbers read. @default SPECTRUM_ROWS_LIMIT */
+  readonly maxRows?: number;
 }
 
 /** Default x column of {@link parseSpectrumText} (1-based). */
@@ -156,6 +159,7 @@ export function parseSpectrumText(text: string, options: SpectrumTextOptions = {
   const xi = columnIndex('x', options.xColumn ?? DEFAULT_X_COLUMN, names, width);
   const yi = columnIndex('y', options.yColumn ?? DEFAULT_Y_COLUMN, names, width);
   if (xi === yi) throw new InputError(`x and y are the same column (${xi + 1})`);
+  const maxRows = options.maxRows ?? SPECTRUM_ROWS_LIMIT;
 
   const x: number[] = [];
   const y: number[] = [];
@@ -179,6 +183,11 @@ export function parseSpectrumText(text: string, options: SpectrumTextOptions = {
     const need = Math.max(xi, yi) + 1;
     if (fields.length < need) {
       throw new InputError(`line ${i + 1}: expected at least ${need} columns, found ${fields.length}`);
+    }
+    if (x.length === maxRows) {
+      throw new InputError(
+        `line ${i + 1}: more than ${maxRows} rows of numbers: expected at most ${maxRows} (bin the data first)`,
+      );
     }
     x.push(fieldNumber(fields[xi] as string, format, i, 'x', xi));
     y.push(fieldNumber(fields[yi] as string, format, i, 'y', yi));
