@@ -18,7 +18,7 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 /** A short spectrum (every 4th row of the invented Cr(III) demo file), so each run is quick. */
 const SPECTRUM = readFileSync(resolve(ROOT, 'fixtures/spectra/cr-mz6-absorbance-nm.csv'), 'utf8')
   .split('\n')
-  .filter((line, i) => i < 3 || i % 4 === 0)
+  .filter((_line, i) => i < 3 || i % 4 === 0)
   .join('\n');
 
 const SHEET = JSON.stringify({
