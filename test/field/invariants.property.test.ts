@@ -42,7 +42,9 @@ function fullEigenvalues(n: number, dq: number, B: number, C: number): number[] 
 
 function expectSameStates(a: readonly number[], b: readonly number[], scale: number): void {
   expect(a).toHaveLength(b.length);
-  a.forEach((e, i) => expectClose(e, b[i] as number, 1e-8, 1e-7 * scale));
+  a.forEach((e, i) => {
+    expectClose(e, b[i] as number, 1e-8, 1e-7 * scale);
+  });
 }
 
 describe('cubic dⁿ levels (property)', () => {

@@ -120,8 +120,12 @@ describe('parseJcampSpectrum (property)', () => {
       fc.property(spectrum, (s) => {
         const raw = parseJcampSpectrum(jcamp(s));
         expect(raw.x.length).toBe(s.x.length);
-        raw.x.forEach((v, i) => expect(v).toBeCloseTo(s.x[i] as number, 6));
-        raw.y.forEach((v, i) => expect(v).toBeCloseTo(s.y[i] as number, 6));
+        raw.x.forEach((v, i) => {
+          expect(v).toBeCloseTo(s.x[i] as number, 6);
+        });
+        raw.y.forEach((v, i) => {
+          expect(v).toBeCloseTo(s.y[i] as number, 6);
+        });
       }),
       60,
     );
