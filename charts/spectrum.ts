@@ -57,6 +57,7 @@ const KEY_ROOM = 62;
 export function quantityTitle(quantity: AbsorptionQuantity): string {
   if (quantity === 'epsilon') return 'ε / L mol⁻¹ cm⁻¹';
   if (quantity === 'absorbance') return 'Absorbance';
+  if (quantity === 'kubelka-munk') return 'F(R) (Kubelka–Munk)';
   return 'Absorption / arb. units';
 }
 

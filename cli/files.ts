@@ -16,12 +16,15 @@ import { InputError } from '../src/core/errors.js';
  */
 export const INPUT_FILE_MAX_BYTES = 256 * 1024 * 1024;
 
+/** The size cap in words, for help texts. */
+export const INPUT_FILE_MAX_TEXT = `${INPUT_FILE_MAX_BYTES / 1024 / 1024} MB`;
+
 /** Temporary files and folders in use, with what an interrupt leaves undone if they go. */
 const temporaries = new Map<string, string>();
 
 /**
  * Registers a temporary file or folder that an interrupt must remove; `undone` says what is then
- * not written. Returns the function that forgets it once it is renamed into place or removed.
+ * not written (empty for a file, such as a lock, whose removal leaves nothing undone). Returns the function that forgets it once it is renamed into place or removed.
  */
 export function trackTemporary(path: string, undone: string): () => void {
   temporaries.set(path, undone);
@@ -36,7 +39,7 @@ export function removeTemporaries(): string[] {
   const undone: string[] = [];
   for (const [path, what] of temporaries) {
     rmSync(path, { recursive: true, force: true });
-    undone.push(what);
+    if (what !== '') undone.push(what);
   }
   temporaries.clear();
   return undone;

@@ -28,18 +28,8 @@ function width(s: string): number {
   return [...s.normalize('NFC')].filter((c) => !/\p{M}/u.test(c)).length;
 }
 
-/**
- * One line of a message, safe for a terminal: control characters (escape codes, NUL, line
- * breaks, tabs; C0, DEL and C1) are shown as `\u001b`-style text, so a file name or sample name
- * can neither break the one-line form nor move the cursor, change colours or retitle the window.
- */
-export function messageLine(text: string): string {
-  return text.replace(
-    // biome-ignore lint/suspicious/noControlCharactersInRegex: the control characters are the point
-    /[\u0000-\u001f\u007f-\u009f]/g,
-    (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`,
-  );
-}
+/** One line of a message, safe for a terminal (see {@link oneLine}): file and sample names quoted as text. */
+export { oneLine as messageLine } from '../src/core/errors.js';
 
 /** A number with a fixed number of decimals (the library's own form, shared). */
 export { fixed } from '../src/core/numberText.js';

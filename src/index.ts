@@ -167,11 +167,13 @@ export { parseSampleSheet, type SampleSheet, type SampleSpec } from './sheets/sa
 export { type SeriesEntry, seriesOrders, seriesTable } from './sheets/series.js';
 export { type CoordinationSphere, coordinationSphere, parseXyz, type XyzStructure } from './sheets/xyz.js';
 /** Measured spectra: reading, band finding, and the whole spectrum analysis. */
-export { type AbsorptionSpectrum, absorptionSpectrum } from './spectra/absorptionSpectrum.js';
+export { type AbsorptionSpectrum, absorptionSpectrum, kubelkaMunk } from './spectra/absorptionSpectrum.js';
 export { type BandAnalysis, type FoundBand, findBands } from './spectra/bandFinding.js';
 export type { RawSpectrum } from './spectra/rawSpectrum.js';
 export {
+  analyseEveryColumn,
   analyseSpectrum,
+  type ColumnAnalysis,
   type MarkedTransition,
   readSpectrum,
   type SettingNames,
@@ -182,4 +184,4 @@ export {
 } from './spectra/spectrumAnalysis.js';
 export { fitFoundBands } from './spectra/spectrumFit.js';
 export { parseJcampSpectrum } from './spectra/spectrumJcamp.js';
-export { parseSpectrumText } from './spectra/spectrumText.js';
+export { parseSpectrumText, type SpectrumLayout, spectrumColumns } from './spectra/spectrumText.js';

@@ -4,7 +4,8 @@
  */
 
 import type { Command } from 'commander';
-import { JOBS_LIMIT } from '../../src/core/limits.js';
+import { JOBS_LIMIT, SHEET_SAMPLES_LIMIT } from '../../src/core/limits.js';
+import { INPUT_FILE_MAX_TEXT } from '../files.js';
 import { jsonText } from '../format.js';
 import type { Io } from '../io.js';
 import { numberOption } from '../options.js';
@@ -29,7 +30,10 @@ export function registerReport(program: Command, io: Io): void {
     .description(
       'fit every sample of a sample sheet and write a report folder (HTML, Markdown, CSV, JSON, figures)',
     )
-    .argument('<sheet>', 'sample sheet: .json (full form) or .csv (one sample a row)')
+    .argument(
+      '<sheet>',
+      `sample sheet: .json (full form) or .csv (one sample a row); at most ${SHEET_SAMPLES_LIMIT} samples and ${INPUT_FILE_MAX_TEXT} per file`,
+    )
     .option('-o, --output <dir>', `report folder (default: ./${DEFAULT_REPORT_DIR})`)
     .option(
       '--jobs <n>',

@@ -4,7 +4,7 @@
  * transitions, cautions), prints the bands and fit as text or JSON and draws the overlay figure.
  */
 
-import { resolve } from 'node:path';
+import { extname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { formatOfPath } from '../../charts/render.js';
 import { quantityTitle } from '../../charts/spectrum.js';
@@ -17,6 +17,7 @@ import {
   COMPLEX_B_LIMIT,
   CONCENTRATION_LIMIT,
   PATH_LENGTH_LIMIT,
+  SPECTRUM_ROWS_LIMIT,
 } from '../../src/core/limits.js';
 import { cmToNm } from '../../src/core/units.js';
 import { unicodeLabel } from '../../src/field/labels.js';
@@ -27,16 +28,26 @@ import { POSITION_WIDTH_FRACTION } from '../../src/spectra/bandObservations.js';
 import { parseRange } from '../../src/spectra/energyRange.js';
 import type { SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
 import {
+  ALL_COLUMNS,
+  analyseEveryColumn,
   analyseSpectrum,
+  type ColumnAnalysis,
+  isAllColumns,
   type SettingNames,
   type SpectrumAnalysisOptions,
   type SpectrumFitRequest,
 } from '../../src/spectra/spectrumAnalysis.js';
-import { DEFAULT_X_COLUMN, DEFAULT_Y_COLUMN } from '../../src/spectra/spectrumText.js';
-import { parseXUnit, parseYUnit, X_UNIT_NAMES, Y_UNIT_NAMES } from '../../src/spectra/spectrumUnits.js';
-import { readTextFile, writeFileAtomic } from '../files.js';
-import { fixed, ionText, jsonText, table } from '../format.js';
-import type { Io } from '../io.js';
+import { DEFAULT_X_COLUMN, DEFAULT_Y_COLUMN, spectrumColumns } from '../../src/spectra/spectrumText.js';
+import {
+  parseXUnit,
+  parseYUnit,
+  X_UNIT_NAMES,
+  Y_UNIT_CHOICES,
+  Y_UNIT_NAMES,
+} from '../../src/spectra/spectrumUnits.js';
+import { INPUT_FILE_MAX_TEXT, readTextFile, writeFilesAtomic } from '../files.js';
+import { fixed, ionText, jsonText, messageLine, table } from '../format.js';
+import { type Io, progress } from '../io.js';
 import {
   DPI_OPTION,
   figureSizeOptions,
@@ -78,6 +89,7 @@ export interface SpectrumOptions {
   maxBands?: string;
   minWidth?: string;
   baseline?: string;
+  listColumns?: boolean;
   output?: string;
   size?: string;
   dpi?: string;
@@ -91,15 +103,22 @@ export function registerSpectrum(program: Command, io: Io): void {
     .description(
       'find the d–d bands of a measured UV-vis-NIR spectrum (CSV/TSV/text or JCAMP-DX) and draw them',
     )
-    .argument('<file>', 'the spectrum: delimited text (x and y columns) or JCAMP-DX (.jdx, .dx)')
+    .argument(
+      '<file>',
+      `the spectrum: delimited text (x and y columns) or JCAMP-DX (.jdx, .dx); at most ${SPECTRUM_ROWS_LIMIT} rows and ${INPUT_FILE_MAX_TEXT}`,
+    )
     .option('--ion <name>', 'the metal ion, e.g. Cr3+ (with --dq and --B: predicted transitions)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
     .option(...GEOMETRY_OPTION)
     .option('--range <from-to>', 'window, e.g. 330-1300nm, 8000-30000 (cm⁻¹) or 1.2-3.6eV')
     .option('--x-unit <unit>', 'x unit when the file does not say: nm, cm-1 or eV')
-    .option('--y-unit <unit>', 'y quantity when the file does not say: A, epsilon, %T, T or arb')
-    .option('--x-col <column>', 'x column, by number (from 1) or header name', String(DEFAULT_X_COLUMN))
-    .option('--y-col <column>', 'y column, by number (from 1) or header name', String(DEFAULT_Y_COLUMN))
+    .option('--y-unit <unit>', `y quantity when the file does not say: ${Y_UNIT_CHOICES}`)
+    .option('--x-col <column>', `x column, by number (from 1) or header name (default: ${DEFAULT_X_COLUMN})`)
+    .option(
+      '--y-col <column>',
+      `y column, by number (from 1) or header name, or "${ALL_COLUMNS}": every column but x, each a spectrum of its own (default: ${DEFAULT_Y_COLUMN})`,
+    )
+    .option('--list-columns', 'list the columns and metadata lines of the file, and stop')
     .option('--conc <mol/L>', 'concentration of the metal complex; with --path turns absorbance into ε')
     .option('--path <cm>', 'optical path length; with --conc turns absorbance into ε')
     .option('--dq <cm-1>', 'Dq for predicted transitions (10Dq = Δ)')
@@ -129,27 +148,142 @@ export function registerSpectrum(program: Command, io: Io): void {
 /** Everything the command works out, before it is written as text or JSON. */
 export interface SpectrumReport extends SpectrumAnalysis {
   readonly file: string;
+  /** The column, when the file's columns were read one by one (`--y-col all`). */
+  readonly column?: { readonly number: number; readonly label: string };
   readonly predicted?: SolvedLevels;
   readonly figure?: string;
 }
 
 /** Runs the command and returns its stdout text; the figure, if asked for, is written first. */
 export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): string {
+  if (opts.listColumns) return columnsCommand(file, opts, io);
   const job = spectrumJob(opts);
-  const outPath = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
-  const format = outPath === undefined ? undefined : formatOfPath(outPath);
-  const size = figureSizeOptions(opts);
-  const text = readTextFile(resolve(io.cwd, file));
+  const bar = progress(io, `spectrum: ${messageLine(file)}`);
+  bar.update(0, 1);
+  try {
+    const text = readTextFile(resolve(io.cwd, file));
+    return isAllColumns(opts.yCol)
+      ? everyColumnCommand(file, text, job, opts, io, bar)
+      : oneSpectrumCommand(file, text, job, opts, io);
+  } finally {
+    bar.end();
+  }
+}
+
+/** One spectrum: its analysis, figure, and text or JSON. */
+function oneSpectrumCommand(
+  file: string,
+  text: string,
+  job: ReturnType<typeof spectrumJob>,
+  opts: SpectrumOptions,
+  io: Io,
+): string {
   const report: SpectrumReport = {
     file,
     ...inFile(file, () => analyseSpectrum(text, { ...job.options, fileName: file })),
     ...(job.predicted ? { predicted: job.predicted } : {}),
     ...(opts.output !== undefined ? { figure: opts.output } : {}),
   };
-  if (outPath !== undefined && format !== undefined) {
-    writeFileAtomic(outPath, spectrumFigure(report, `termsplit spectrum ${file}`, format, size));
-  }
+  writeFigures([report], file, opts, io);
   return opts.json ? jsonText(reportJson(report)) : reportText(report, opts);
+}
+
+/** Writes the overlay figure of each report that names one, all or none. */
+function writeFigures(reports: readonly SpectrumReport[], file: string, opts: SpectrumOptions, io: Io): void {
+  if (opts.output === undefined) return;
+  const format = formatOfPath(resolve(io.cwd, opts.output));
+  const size = figureSizeOptions(opts);
+  writeFilesAtomic(
+    reports.flatMap((r) =>
+      r.figure === undefined
+        ? []
+        : [
+            {
+              path: resolve(io.cwd, r.figure),
+              data: spectrumFigure(
+                r,
+                `termsplit spectrum ${file}${r.column ? ` (${r.column.label})` : ''}`,
+                format,
+                size,
+              ),
+            },
+          ],
+    ),
+  );
+}
+
+/** The figure path of one column of several: `out.png` → `out-col3.png`. */
+function columnFigure(output: string, column: number): string {
+  const ext = extname(output);
+  return `${output.slice(0, output.length - ext.length)}-col${column}${ext}`;
+}
+
+/** `--y-col all`: one analysis per y column, each with its own text, JSON entry and figure. */
+function everyColumnCommand(
+  file: string,
+  text: string,
+  job: ReturnType<typeof spectrumJob>,
+  opts: SpectrumOptions,
+  io: Io,
+  bar: ReturnType<typeof progress>,
+): string {
+  const results = inFile(file, () =>
+    analyseEveryColumn(text, { ...job.options, fileName: file }, (done, total) => bar.update(done, total)),
+  );
+  const reports = results.map((c): SpectrumReport | Extract<ColumnAnalysis, { failure: string }> =>
+    'failure' in c
+      ? c
+      : ({
+          file,
+          ...c.analysis,
+          column: { number: c.column, label: c.label },
+          ...(job.predicted ? { predicted: job.predicted } : {}),
+          ...(opts.output !== undefined ? { figure: columnFigure(opts.output, c.column) } : {}),
+        } satisfies SpectrumReport),
+  );
+  writeFigures(
+    reports.filter((r): r is SpectrumReport => 'raw' in r),
+    file,
+    opts,
+    io,
+  );
+  if (opts.json) {
+    return jsonText({
+      file,
+      spectra: reports.map((r) =>
+        'raw' in r
+          ? { column: r.column?.number, label: r.column?.label, ...reportJson(r) }
+          : { column: r.column, label: r.label, failure: r.failure },
+      ),
+    });
+  }
+  return reports
+    .map((r) =>
+      'raw' in r
+        ? `── column ${r.column?.number} ("${r.column?.label}") ──\n${reportText(r, opts)}`
+        : `── column ${r.column} ("${r.label}") ──\nnot analysed: ${r.failure}\n`,
+    )
+    .join('\n');
+}
+
+/** `--list-columns`: the file's columns and metadata lines, nothing analysed. */
+function columnsCommand(file: string, opts: SpectrumOptions, io: Io): string {
+  const text = readTextFile(resolve(io.cwd, file));
+  const layout = inFile(file, () => spectrumColumns(text, opts.xCol));
+  if (opts.json) return jsonText({ file, ...layout });
+  const lines = [
+    `termsplit spectrum — ${file}: ${layout.rows} rows of numbers (${layout.format}), ${layout.columns.length} columns`,
+    table(
+      ['column', 'header', 'read as'],
+      layout.columns.map((c) => [String(c.number), c.label, c.number === layout.x ? 'x' : 'y (a spectrum)']),
+    ),
+  ];
+  if (layout.metadata.length > 0) {
+    lines.push('Metadata lines:');
+    for (const m of layout.metadata) lines.push(`  line ${m.line}: ${m.key} = ${m.value}`);
+  }
+  lines.push(`--y-col picks a column by number or header; --y-col ${ALL_COLUMNS} analyses each.`);
+  return `${lines.join('\n')}\n`;
 }
 
 /** Runs library work on a file's text, naming the file in any input error. */
@@ -215,6 +349,7 @@ function spectrumJob(opts: SpectrumOptions): {
 const OPTION_NAMES: SettingNames = {
   concentrationAndPath: '--conc and --path',
   includeChargeTransfer: '--include-ct',
+  yColumn: '--y-col (--list-columns lists them)',
 };
 
 /** Refuses fit options that would be silently ignored: with --dq (predicted levels) or without an ion. */
@@ -306,7 +441,10 @@ function readingLines(r: SpectrumReport): string[] {
   const lines: string[] = [];
   const { from, to } = analysis.window;
   lines.push(`termsplit spectrum — ${r.file}`);
-  lines.push(`Read ${raw.x.length} points (${raw.format}).`);
+  lines.push(
+    `Read ${raw.x.length} points (${raw.format})${raw.columns ? `: columns ${raw.columns.x} (x) and ${raw.columns.y} (y) of ${raw.columns.count}` : ''}.`,
+  );
+  for (const m of raw.metadata ?? []) lines.push(`  metadata (line ${m.line}): ${m.key} = ${m.value}`);
   lines.push(
     `  x: "${raw.xLabel}" in ${X_UNIT_NAMES[spectrum.xUnit.unit]} (${originText(spectrum.xUnit.origin)})`,
   );
@@ -327,12 +465,19 @@ function readingLines(r: SpectrumReport): string[] {
   return lines;
 }
 
+const UNIT_SYMBOLS: Readonly<Record<SpectrumAnalysis['spectrum']['quantity'], string>> = {
+  epsilon: 'ε',
+  absorbance: 'A',
+  'kubelka-munk': 'F(R)',
+  arbitrary: 'y',
+};
+
 /** The table of the bands found. */
 function bandLines(r: SpectrumReport): string[] {
   const { spectrum, analysis } = r;
   const lines: string[] = [];
   lines.push('');
-  const unit = spectrum.quantity === 'epsilon' ? 'ε' : spectrum.quantity === 'absorbance' ? 'A' : 'y';
+  const unit = UNIT_SYMBOLS[spectrum.quantity];
   lines.push(`Bands (Gaussian components; ${quantityTitle(spectrum.quantity)}):`);
   const fitNotes = narrowBandNotes(r);
   const rows = analysis.bands.map((band) => {
@@ -497,8 +642,20 @@ function reportJson(r: SpectrumReport) {
     file: r.file,
     format: raw.format,
     points: raw.x.length,
-    x: { label: raw.xLabel, unit: spectrum.xUnit.unit, origin: spectrum.xUnit.origin },
-    y: { label: raw.yLabel, unit: spectrum.yUnit.unit, origin: spectrum.yUnit.origin },
+    x: {
+      label: raw.xLabel,
+      ...(raw.columns ? { column: raw.columns.x } : {}),
+      unit: spectrum.xUnit.unit,
+      origin: spectrum.xUnit.origin,
+    },
+    y: {
+      label: raw.yLabel,
+      ...(raw.columns ? { column: raw.columns.y } : {}),
+      unit: spectrum.yUnit.unit,
+      origin: spectrum.yUnit.origin,
+    },
+    ...(raw.columns ? { columns: raw.columns.count } : {}),
+    ...(raw.metadata ? { metadata: raw.metadata } : {}),
     conversions: spectrum.conversions,
     quantity: analysis.quantity,
     window: { from: analysis.window.from, to: analysis.window.to, clipped: analysis.clipped },

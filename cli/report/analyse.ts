@@ -327,7 +327,10 @@ function sampleSpectrum(
       ...(range ? { range } : {}),
       baseline: DEFAULT_BASELINE,
       includeChargeTransfer: false,
-      names: { concentrationAndPath: 'the spectrum fields conc and path in the sample sheet' },
+      names: {
+        concentrationAndPath: 'the spectrum fields conc and path in the sample sheet',
+        yColumn: 'the spectrum field yColumn in the sample sheet (a number, a header, or "all")',
+      },
       ...(elementOfIon(ion.ion) ? { element: elementOfIon(ion.ion) } : {}),
       fit: {
         n: ion.n,

@@ -8,8 +8,10 @@ import { existsSync } from 'node:fs';
 import { dirname, extname, isAbsolute, relative, resolve } from 'node:path';
 import { renderTrend } from '../../charts/series.js';
 import { InputError } from '../../src/core/errors.js';
-import type { SheetFormat, SheetProblem } from '../../src/sheets/sampleSheet.js';
+import type { SampleSpec, SheetFormat, SheetProblem } from '../../src/sheets/sampleSheet.js';
 import { parseSampleSheet, type SampleSheet } from '../../src/sheets/sampleSheet.js';
+import { isAllColumns } from '../../src/spectra/spectrumAnalysis.js';
+import { spectrumColumns } from '../../src/spectra/spectrumText.js';
 import { explorerHtml } from '../explorerPage.js';
 import { sampleOfResult, spectrumOfFile } from '../explorerSamples.js';
 import { readTextFile } from '../files.js';
@@ -81,7 +83,30 @@ function checkSpectra(
     }
     return existsSync(path) ? true : fail(`no such file: ${s.spectrum.file}`);
   });
-  return { sheet: { ...sheet, samples }, problems };
+  return { sheet: { ...sheet, samples: samples.flatMap((s) => everyColumn(s, dir, problems)) }, problems };
+}
+
+/**
+ * A sample whose spectrum's yColumn is "all" becomes one sample per y column of its file, named
+ * `name (column header)`, each read from its column; other samples stay as they are.
+ */
+function everyColumn(sample: SampleSpec, dir: string, problems: SheetProblem[]): SampleSpec[] {
+  const spec = sample.spectrum;
+  if (!spec || !isAllColumns(spec.yColumn)) return [sample];
+  try {
+    const layout = spectrumColumns(readTextFile(resolve(dir, spec.file)), spec.xColumn);
+    const ys = layout.columns.filter((c) => c.number !== layout.x);
+    const repeated = (label: string) => ys.filter((c) => c.label === label).length > 1;
+    return ys.map((c) => ({
+      ...sample,
+      name: `${sample.name} (${repeated(c.label) ? `${c.label}, column ${c.number}` : c.label})`,
+      spectrum: { ...spec, xColumn: String(layout.x), yColumn: String(c.number) },
+    }));
+  } catch (e) {
+    if (!(e instanceof InputError)) throw e;
+    problems.push({ sample: sample.name, field: 'spectrum.yColumn', message: `${spec.file}: ${e.message}` });
+    return [];
+  }
 }
 
 /** Whether `path` lies inside `dir` (both absolute, compared after resolving `..`). */

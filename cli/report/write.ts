@@ -4,6 +4,9 @@
  * finished report is written there with a manifest listing its files; then the files of the
  * earlier report — only those its manifest lists — are moved aside, the new files renamed into
  * place, and the old ones removed. Other files in the folder (notes, spectra, the sheet) stay.
+ * One run at a time writes a folder: a lock file holding the run's process id is made (with an
+ * exclusive create) before anything else, and another run finding it refuses at once unless that
+ * process is gone.
  */
 
 import { randomBytes } from 'node:crypto';
@@ -32,12 +35,22 @@ export const MANIFEST = '.termsplit-manifest.json';
 const STAGING_MARK = '.termsplit-partial-';
 const ASIDE_MARK = '.termsplit-old-';
 
+/**
+ * The lock file: inside the folder, or, while the folder does not exist yet, beside it as
+ * `.<name>.termsplit-lock`. It holds the process id of the run writing the folder.
+ */
+export const LOCK = '.termsplit-lock';
+
 /** A report folder reserved before the work: where it goes and where it is being assembled. */
 export interface ReportFolder {
   readonly dir: string;
   readonly staging: string;
+  /** The lock file this run holds. */
+  readonly lock: string;
   /** Forgets the staging folder for interrupt clean-up (after it is renamed or removed). */
   readonly forget: () => void;
+  /** Removes the lock file. */
+  readonly releaseLock: () => void;
 }
 
 /**
@@ -51,14 +64,28 @@ export function reserveReportFolder(dir: string): ReportFolder {
     throw new InputError(`cannot write the report to ${dir}: directory ${parent} does not exist`);
   }
   const exists = existsSync(dir);
-  if (exists) {
-    if (!statSync(dir).isDirectory()) throw new InputError(`cannot write the report to ${dir}: it is a file`);
-    const entries = readdirSync(dir).filter((e) => !isStale(e));
-    if (entries.length > 0 && readManifest(dir) === undefined && !isMarkedReport(dir)) {
-      throw new InputError(`${dir} exists and is not a termsplit report; choose another -o or empty it`);
-    }
-    removeStale(dir);
+  if (exists && !statSync(dir).isDirectory()) {
+    throw new InputError(`cannot write the report to ${dir}: it is a file`);
   }
+  const lock = takeLock(dir, exists);
+  try {
+    if (exists) {
+      const entries = readdirSync(dir).filter((e) => !isStale(e) && e !== LOCK);
+      if (entries.length > 0 && readManifest(dir) === undefined && !isMarkedReport(dir)) {
+        throw new InputError(`${dir} exists and is not a termsplit report; choose another -o or empty it`);
+      }
+      removeStale(dir);
+    }
+    return { ...staged(dir, exists), lock: lock.path, releaseLock: lock.release };
+  } catch (e) {
+    lock.release();
+    throw e;
+  }
+}
+
+/** Creates the staging folder and registers it for interrupt clean-up. */
+function staged(dir: string, exists: boolean): { staging: string; dir: string; forget: () => void } {
+  const parent = dirname(dir);
   const tag = `${process.pid}-${randomBytes(4).toString('hex')}`;
   // Inside an existing folder, so the final renames stay on one file system and need no write
   // access to its parent (`-o .`); beside a new one, which it then becomes whole.
@@ -77,10 +104,67 @@ export function reserveReportFolder(dir: string): ReportFolder {
   return { dir, staging, forget };
 }
 
-/** Removes the staging folder of a report that will not be written. */
+/**
+ * Takes the folder's lock: creates the lock file exclusively with this process's id. A lock
+ * whose process is gone (killed outright, no clean-up) is stale and taken over; a live one is
+ * refused in one line.
+ * @throws InputError naming the folder and the process that holds it.
+ */
+function takeLock(dir: string, exists: boolean): { path: string; release: () => void } {
+  const path = exists ? join(dir, LOCK) : join(dirname(dir), `.${basename(dir)}${LOCK}`);
+  for (let attempt = 0; attempt < 2; attempt++) {
+    try {
+      writeFileSync(path, `${process.pid}\n`, { flag: 'wx' });
+      const forget = trackTemporary(path, '');
+      return {
+        path,
+        release: () => {
+          rmSync(path, { force: true });
+          forget();
+        },
+      };
+    } catch (e) {
+      if ((e as { code?: string }).code !== 'EEXIST') {
+        throw new InputError(`cannot write the report to ${dir}: ${(e as Error).message}`);
+      }
+    }
+    const holder = lockHolder(path);
+    if (holder !== undefined) {
+      throw new InputError(
+        `${dir} is being written by another termsplit report (process ${holder}); wait for it to finish or choose another -o`,
+      );
+    }
+    rmSync(path, { force: true });
+  }
+  throw new InputError(`cannot write the report to ${dir}: its lock ${path} could not be taken`);
+}
+
+/** The live process that holds a lock file, or undefined when the lock is stale (gone or unreadable). */
+function lockHolder(path: string): number | undefined {
+  let pid: number;
+  try {
+    pid = Number(readFileSync(path, 'utf8').trim());
+  } catch {
+    return undefined;
+  }
+  return Number.isInteger(pid) && pid > 0 && isAlive(pid) ? pid : undefined;
+}
+
+/** Whether a process exists (a process of another user counts: signal 0 is then refused with EPERM). */
+function isAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (e) {
+    return (e as { code?: string }).code !== 'ESRCH';
+  }
+}
+
+/** Removes the staging folder of a report that will not be written, and gives up the lock. */
 export function abandonReportFolder(folder: ReportFolder): void {
   rmSync(folder.staging, { recursive: true, force: true });
   folder.forget();
+  folder.releaseLock();
 }
 
 /**
@@ -209,13 +293,7 @@ function isMarkedReport(dir: string): boolean {
 function isStale(entry: string, marks = [STAGING_MARK, ASIDE_MARK]): boolean {
   const mark = marks.find((m) => entry.startsWith(m));
   const pid = mark === undefined ? undefined : /^(\d+)-[0-9a-f]+$/.exec(entry.slice(mark.length))?.[1];
-  if (pid === undefined) return false;
-  try {
-    process.kill(Number(pid), 0);
-    return false;
-  } catch (e) {
-    return (e as { code?: string }).code === 'ESRCH';
-  }
+  return pid !== undefined && !isAlive(Number(pid));
 }
 
 function removeStale(dir: string): void {

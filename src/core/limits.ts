@@ -114,6 +114,17 @@ export const LABEL_COUNT_LIMIT: Limit = { what: 'a whole number', min: 0, max: 1
 /** Resolution of a PNG figure, dots per inch. */
 export const DPI_LIMIT: Limit = { what: 'a number of dots per inch', min: 30, max: 2_400 };
 
+/**
+ * Rows of numbers in one spectrum file. A 10⁶-row file is read and analysed in about 7 s with a
+ * peak of about 340 MB (DEVELOPERS.md, big inputs); twice that is the most accepted, so memory
+ * stays bounded. Finer data can be binned first: bands are found on a grid of about a tenth of
+ * the narrowest band anyway.
+ */
+export const SPECTRUM_ROWS_LIMIT = 2_000_000;
+
+/** Samples in one sample sheet: a report of 500 samples takes minutes; more is refused at once. */
+export const SHEET_SAMPLES_LIMIT = 2_000;
+
 /** A plain decimal number: optional sign, digits with an optional point, optional exponent. */
 const DECIMAL = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 

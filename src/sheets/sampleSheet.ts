@@ -14,6 +14,7 @@ import {
   type Limit,
   limitText,
   PATH_LENGTH_LIMIT,
+  SHEET_SAMPLES_LIMIT,
 } from '../core/limits.js';
 import { type ParsedEnergy, parseEnergyList } from '../core/units.js';
 import type { Geometry } from '../field/labels.js';
@@ -156,10 +157,22 @@ export type SheetFormat = 'json' | 'csv';
 
 /**
  * Parses and checks a sample sheet.
- * @throws InputError when the sheet as a whole is unreadable (not JSON, no samples, no header).
+ * @param maxSamples most samples accepted. @default SHEET_SAMPLES_LIMIT
+ * @throws InputError when the sheet as a whole is unreadable (not JSON, no samples, no header)
+ *   or holds more than `maxSamples` samples.
  */
-export function parseSampleSheet(text: string, format: SheetFormat): SampleSheet {
+export function parseSampleSheet(
+  text: string,
+  format: SheetFormat,
+  maxSamples: number = SHEET_SAMPLES_LIMIT,
+): SampleSheet {
   const raw = format === 'json' ? jsonSheet(text) : csvSheet(text);
+  const count = (raw as { samples?: unknown })?.samples;
+  if (Array.isArray(count) && count.length > maxSamples) {
+    throw new InputError(
+      `sample sheet: ${count.length} samples: expected at most ${maxSamples} (split the sheet)`,
+    );
+  }
   const head = sheetSchema.safeParse(raw);
   if (!head.success) {
     const issue = head.error.issues[0];

@@ -1,6 +1,12 @@
 /**
  * An absorption spectrum on a rising wavenumber axis, with y as absorbance, molar
- * absorptivity ε, or an arbitrary quantity proportional to absorption.
+ * absorptivity ε, the Kubelka–Munk function of a diffuse reflectance, or an arbitrary quantity
+ * proportional to absorption.
+ *
+ * Diffuse reflectance R of an optically thick powder is turned into the Kubelka–Munk function
+ * F(R) = (1 − R)²/(2R) = K/S (P. Kubelka and F. Munk, "Ein Beitrag zur Optik der
+ * Farbanstriche", Z. Tech. Phys. 1931, 12, 593), the ratio of the absorption to the scattering
+ * coefficient: proportional to absorption where S varies slowly, but with no ε.
  *
  * No Jacobian is applied when x was a wavelength. Absorbance is −log₁₀ of a ratio of two
  * intensities measured at the same wavelength, a value at a point and not a density per unit
@@ -15,7 +21,17 @@ import { ensureMonotonicX, pointPlace, type RawSpectrum } from './rawSpectrum.js
 import { chooseUnit, type SpectrumXUnit, type SpectrumYUnit, type UnitChoice } from './spectrumUnits.js';
 
 /** What y holds after conversion. */
-export type AbsorptionQuantity = 'absorbance' | 'epsilon' | 'arbitrary';
+export type AbsorptionQuantity = 'absorbance' | 'epsilon' | 'kubelka-munk' | 'arbitrary';
+
+/** The Kubelka–Munk function F(R) = (1 − R)²/(2R) of a diffuse reflectance R (a fraction, 0 < R ≤ 1). */
+export function kubelkaMunk(r: number): number {
+  return (1 - r) ** 2 / (2 * r);
+}
+
+/** The reflectance R (0 < R ≤ 1) whose Kubelka–Munk function is F ≥ 0: R = 1 + F − √(F² + 2F). */
+export function reflectanceOfKubelkaMunk(f: number): number {
+  return 1 + f - Math.sqrt(f * f + 2 * f);
+}
 
 /** An absorption spectrum in cm⁻¹, x rising. */
 export interface AbsorptionSpectrum {
@@ -67,8 +83,13 @@ export function absorptionSpectrum(raw: RawSpectrum, options: AbsorptionOptions 
   }
   const conversions: string[] = [];
   const y = Float64Array.from(raw.y);
-  let quantity: AbsorptionQuantity =
-    yUnit.unit === 'epsilon' ? 'epsilon' : yUnit.unit === 'arbitrary' ? 'arbitrary' : 'absorbance';
+  let quantity = quantityOf(yUnit.unit);
+  if (yUnit.unit === 'reflectance' || yUnit.unit === 'reflectance-percent') {
+    toKubelkaMunk(raw, y, yUnit.unit === 'reflectance-percent');
+    conversions.push(
+      `F(R) = (1 − R)²/(2R)${yUnit.unit === 'reflectance-percent' ? ', R = %R/100' : ''} (Kubelka–Munk)`,
+    );
+  }
   if (yUnit.unit === 'transmittance' || yUnit.unit === 'transmittance-percent') {
     const percent = yUnit.unit === 'transmittance-percent';
     for (let i = 0; i < n; i++) {
@@ -92,7 +113,7 @@ export function absorptionSpectrum(raw: RawSpectrum, options: AbsorptionOptions 
     ensure(l > 0 && Number.isFinite(l), `path length ${l} cm: expected a positive number`);
     ensure(
       quantity === 'absorbance',
-      `y is already ${quantity === 'epsilon' ? 'ε' : 'in arbitrary units'}: concentration and path length apply to absorbance only`,
+      `y is already ${quantity === 'epsilon' ? 'ε' : quantity === 'kubelka-munk' ? 'the Kubelka–Munk F(R) of a reflectance' : 'in arbitrary units'}: concentration and path length apply to absorbance only`,
     );
     for (let i = 0; i < n; i++) y[i] = (y[i] as number) / (c * l);
     conversions.push(`ε = A / (c·l), c = ${c} mol L⁻¹, l = ${l} cm`);
@@ -105,4 +126,29 @@ export function absorptionSpectrum(raw: RawSpectrum, options: AbsorptionOptions 
     y.reverse();
   }
   return { wavenumber, value: y, quantity, xUnit, yUnit, conversions };
+}
+
+function quantityOf(unit: SpectrumYUnit): AbsorptionQuantity {
+  if (unit === 'epsilon' || unit === 'arbitrary' || unit === 'kubelka-munk') return unit;
+  if (unit === 'reflectance' || unit === 'reflectance-percent') return 'kubelka-munk';
+  return 'absorbance';
+}
+
+/**
+ * Diffuse reflectance (fraction or per cent) → F(R), in place. R must lie in (0, 1]: at 0 F(R)
+ * is infinite, and above a perfect white (the reference) the formula has no meaning.
+ */
+function toKubelkaMunk(raw: RawSpectrum, y: Float64Array, percent: boolean): void {
+  const scale = percent ? 100 : 1;
+  for (let i = 0; i < y.length; i++) {
+    const given = y[i] as number;
+    const r = given / scale;
+    if (!(r > 0 && r <= 1)) {
+      throw new InputError(
+        `${pointPlace(raw, i)}: reflectance ${given}${percent ? ' %' : ''}: expected a value above 0 and at most ${percent ? '100 %' : '1'} ` +
+          '(F(R) = (1 − R)²/2R needs 0 < R ≤ 1; rescale to the white standard)',
+      );
+    }
+    y[i] = kubelkaMunk(r);
+  }
 }

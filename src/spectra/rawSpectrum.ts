@@ -7,6 +7,14 @@
 import { InputError } from '../core/errors.js';
 import type { SpectrumXUnit, SpectrumYUnit, UnitChoice } from './spectrumUnits.js';
 
+/** A `key: value` or `key=value` line of the file's header (instrument, date, settings). */
+export interface RawMetadata {
+  /** 1-based line number. */
+  readonly line: number;
+  readonly key: string;
+  readonly value: string;
+}
+
 /** The spectrum as read. */
 export interface RawSpectrum {
   readonly x: Float64Array;
@@ -21,6 +29,10 @@ export interface RawSpectrum {
   readonly xUnit?: UnitChoice<SpectrumXUnit>;
   /** The y quantity the file names, if it names one. */
   readonly yUnit?: UnitChoice<SpectrumYUnit>;
+  /** Which columns were read (1-based) of how many, in a text file. */
+  readonly columns?: { readonly x: number; readonly y: number; readonly count: number };
+  /** Metadata lines of the header, in file order (absent when there are none). */
+  readonly metadata?: readonly RawMetadata[];
   /** How the file was read, e.g. `semicolon-delimited, decimal comma` or `JCAMP-DX`. */
   readonly format: string;
 }

@@ -33,7 +33,7 @@ import {
 import type { RawSpectrum } from './rawSpectrum.js';
 import { fitFoundBands } from './spectrumFit.js';
 import { isJcamp, parseJcampSpectrum } from './spectrumJcamp.js';
-import { type ColumnChoice, parseSpectrumText } from './spectrumText.js';
+import { type ColumnChoice, parseSpectrumText, spectrumColumns } from './spectrumText.js';
 import type { SpectrumXUnit, SpectrumYUnit } from './spectrumUnits.js';
 
 /** The ligand-field fit asked for: the ion or dⁿ, and how C/B and the spin are handled. */
@@ -62,12 +62,23 @@ export interface SettingNames {
   readonly concentrationAndPath: string;
   /** Keeping charge-transfer-like bands among the ligand-field bands. */
   readonly includeChargeTransfer?: string;
+  /** Choosing the y column of a file of several spectra. */
+  readonly yColumn?: string;
 }
 
 /** Plain-word setting names, for callers that name none. */
 export const PLAIN_SETTING_NAMES: SettingNames = {
   concentrationAndPath: 'the concentration and the path length',
+  yColumn: 'the y column',
 };
+
+/** The y-column choice that reads every column but x as a spectrum of its own. */
+export const ALL_COLUMNS = 'all';
+
+/** Whether a column choice is {@link ALL_COLUMNS}. */
+export function isAllColumns(choice: ColumnChoice | undefined): boolean {
+  return typeof choice === 'string' && choice.trim().toLowerCase() === ALL_COLUMNS;
+}
 
 /**
  * A band lies at a predicted level when it is within this many standard uncertainties of it:
@@ -183,6 +194,7 @@ export function analyseSpectrum(text: string, options: SpectrumAnalysisOptions):
     baseline: options.baseline,
   });
   const names = options.names ?? PLAIN_SETTING_NAMES;
+  const columnNote = columnCaution(raw, options.yColumn, names);
   const choice = { includeChargeTransfer: options.includeChargeTransfer };
   const found = ligandFieldBands(analysis.bands, choice);
   if (found.length === 0) throw noBands(analysis, names);
@@ -194,7 +206,10 @@ export function analyseSpectrum(text: string, options: SpectrumAnalysisOptions):
   const ligandField = fitted?.ligandField ?? found;
   const best = fit && 'result' in fit ? fit.result.solutions[0] : undefined;
   const levels = options.predicted ?? best?.levels;
-  const cautions = spectrumCautions(analysis, spectrum, names, geometry, levels, options.element);
+  const cautions = [
+    ...columnNote,
+    ...spectrumCautions(analysis, spectrum, names, geometry, levels, options.element),
+  ];
   if (fit && 'failure' in fit) cautions.push(`no ligand-field fit: ${fit.failure}`);
   if (fit && 'result' in fit) cautions.push(...adoptionCautions(analysis, fit, names));
   const transitions = levels ? markedTransitions(levels, ligandField, fit) : [];
@@ -208,6 +223,59 @@ export function analyseSpectrum(text: string, options: SpectrumAnalysisOptions):
     transitions,
     cautions,
   };
+}
+
+/** A caution when a file of several columns was read from its default y column without a word. */
+function columnCaution(raw: RawSpectrum, yColumn: ColumnChoice | undefined, names: SettingNames): string[] {
+  const { columns } = raw;
+  if (!columns || columns.count <= 2 || yColumn !== undefined) return [];
+  return [
+    `the file has ${columns.count} columns; column ${columns.y} ("${raw.yLabel}") was read as y by default` +
+      (names.yColumn ? `: ${names.yColumn} chooses another column, or ${ALL_COLUMNS} of them` : ''),
+  ];
+}
+
+/** One spectrum of a file of several: its column, and its analysis or why there is none. */
+export type ColumnAnalysis =
+  | { readonly column: number; readonly label: string; readonly analysis: SpectrumAnalysis }
+  | { readonly column: number; readonly label: string; readonly failure: string };
+
+/**
+ * Analyses every y column of a delimited-text file against its x column, each as a spectrum of
+ * its own ({@link analyseSpectrum}); a column whose analysis fails is reported with its reason
+ * and the others go on. `onColumn` hears of each column before its analysis (for progress).
+ * @throws InputError when the file cannot be read as delimited text, has no column besides x,
+ *   or no column could be analysed.
+ */
+export function analyseEveryColumn(
+  text: string,
+  options: SpectrumAnalysisOptions,
+  onColumn: (done: number, total: number) => void = () => {},
+): ColumnAnalysis[] {
+  if (isJcamp(text) || /\.(jdx|dx|jcamp)$/i.test(options.fileName ?? '')) {
+    throw new InputError(
+      `y column "${ALL_COLUMNS}" applies to delimited text; a JCAMP-DX file is read as one spectrum`,
+    );
+  }
+  const layout = spectrumColumns(text, options.xColumn);
+  const ys = layout.columns.filter((c) => c.number !== layout.x);
+  if (ys.length === 0) throw new InputError('the file has no column besides x to read as a spectrum');
+  const out: ColumnAnalysis[] = ys.map((c, i) => {
+    onColumn(i, ys.length);
+    try {
+      const analysis = analyseSpectrum(text, { ...options, xColumn: layout.x, yColumn: c.number });
+      return { column: c.number, label: c.label, analysis };
+    } catch (e) {
+      if (!(e instanceof InputError)) throw e;
+      return { column: c.number, label: c.label, failure: e.message };
+    }
+  });
+  const failed = out.filter((r) => 'failure' in r);
+  if (failed.length === out.length) {
+    const f = failed[0] as Extract<ColumnAnalysis, { failure: string }>;
+    throw new InputError(`no column could be analysed; column ${f.column} ("${f.label}"): ${f.failure}`);
+  }
+  return out;
 }
 
 /**
@@ -376,6 +444,16 @@ function spectrumFit(
   }
 }
 
+/**
+ * What a reflectance spectrum can and cannot say (Kubelka and Munk 1931 for F(R) = K/S; the
+ * limits of the model are common practice, no source).
+ */
+export const KUBELKA_MUNK_CAUTION =
+  'diffuse reflectance converted to F(R) = (1 − R)²/2R (Kubelka & Munk 1931): the band maxima of F(R) are what is fitted, ' +
+  'and ε is not known (F(R) is absorption over scattering, K/S), so bands are told apart by their relative heights only, ' +
+  'never by the usual ε ranges; F(R) follows absorption only for an optically thick, diluted powder — strong bands ' +
+  'saturate (R near 0) and flatten, and specular reflection or a changing particle size distorts heights';
+
 /** Sentences about where the result could mislead. */
 function spectrumCautions(
   analysis: BandAnalysis,
@@ -386,7 +464,8 @@ function spectrumCautions(
   element?: string,
 ): string[] {
   const out = [...signCautions(spectrum), ...windowCautions(analysis), ...bandCautions(analysis, geometry)];
-  if (spectrum.quantity !== 'epsilon') {
+  if (spectrum.quantity === 'kubelka-munk') out.push(KUBELKA_MUNK_CAUTION);
+  else if (spectrum.quantity !== 'epsilon') {
     out.push(
       spectrum.quantity === 'absorbance'
         ? `intensities are absorbances: give ${names.concentrationAndPath} to compare ε with the usual ranges`
@@ -407,7 +486,8 @@ function spectrumCautions(
  * fitted to it mean nothing.
  */
 function signCautions(spectrum: AbsorptionSpectrum): string[] {
-  if (spectrum.quantity === 'arbitrary' || spectrum.value.some((v) => v > 0)) return [];
+  if (spectrum.quantity === 'arbitrary' || spectrum.quantity === 'kubelka-munk') return [];
+  if (spectrum.value.some((v) => v > 0)) return [];
   const what = spectrum.quantity === 'epsilon' ? 'ε' : 'absorbance';
   return [
     `every ${what} value is zero or negative: the blank may have been subtracted the wrong way round, or the y column is not ${what}; the bands below are not to be trusted`,

@@ -38,7 +38,11 @@ const Y_UNITS: Readonly<Record<string, SpectrumYUnit>> = {
   'MOLAR ABSORPTIVITY': 'epsilon',
   'L MOL-1 CM-1': 'epsilon',
   'M-1 CM-1': 'epsilon',
-  'KUBELKA-MUNK': 'arbitrary',
+  'KUBELKA-MUNK': 'kubelka-munk',
+  REFLECTANCE: 'reflectance',
+  '%REFLECTANCE': 'reflectance-percent',
+  '% REFLECTANCE': 'reflectance-percent',
+  'PERCENT REFLECTANCE': 'reflectance-percent',
 };
 
 /**
@@ -71,8 +75,9 @@ export function parseJcampSpectrum(text: string): RawSpectrum {
     }
   }
   checkHeader(text, xs, ys);
-  const xText = String(spectrum.xUnits ?? '').trim();
-  const yText = String(spectrum.yUnits ?? '').trim();
+  // A record runs to the next `##`; only its first line is the unit (the rest is a broken file).
+  const xText = firstLine(spectrum.xUnits);
+  const yText = firstLine(spectrum.yUnits);
   const xUnit = unitOf(X_UNITS, xText, 'XUNITS');
   const yUnit = unitOf(Y_UNITS, yText, 'YUNITS');
   return {
@@ -84,6 +89,10 @@ export function parseJcampSpectrum(text: string): RawSpectrum {
     ...(yUnit ? { yUnit } : {}),
     format: 'JCAMP-DX',
   };
+}
+
+function firstLine(value: unknown): string {
+  return (String(value ?? '').split(/[\r\n]/)[0] ?? '').trim();
 }
 
 function unitOf<U>(

@@ -5,8 +5,9 @@
  */
 
 import { InputError } from '../core/errors.js';
+import { SPECTRUM_ROWS_LIMIT } from '../core/limits.js';
 import { splitCsvLine } from '../sheets/csv.js';
-import type { RawSpectrum } from './rawSpectrum.js';
+import type { RawMetadata, RawSpectrum } from './rawSpectrum.js';
 import { xUnitFromLabel, yUnitFromLabel } from './spectrumUnits.js';
 
 /** A column chosen by its 1-based number or by (part of) its header name. */
@@ -18,6 +19,8 @@ export interface SpectrumTextOptions {
   readonly xColumn?: ColumnChoice;
   /** The y column. @default 2 */
   readonly yColumn?: ColumnChoice;
+  /** Most rows of numbers read. @default SPECTRUM_ROWS_LIMIT */
+  readonly maxRows?: number;
 }
 
 /** Default x column of {@link parseSpectrumText} (1-based). */
@@ -49,17 +52,44 @@ const NUMBER_COMMA = /^[+-]?(\d+,?\d*|,\d+)([eE][+-]?\d+)?$/;
 /** A decimal-comma number with digits after the comma, as in whitespace-separated `400,0  0,123`. */
 const SPACED_COMMA = /^[+-]?(\d+(,\d+)?|,\d+)([eE][+-]?\d+)?$/;
 
+/** One column of a delimited-text spectrum file. */
+export interface SpectrumColumn {
+  /** 1-based. */
+  readonly number: number;
+  /** The header text over the column (all header rows joined), or `column k` when there is none. */
+  readonly label: string;
+}
+
+/** The columns of a spectrum file, its metadata lines and its format, before any column is chosen. */
+export interface SpectrumLayout {
+  readonly columns: readonly SpectrumColumn[];
+  readonly metadata: readonly RawMetadata[];
+  /** Rows of numbers. */
+  readonly rows: number;
+  /** How the file was read, e.g. `semicolon-delimited, decimal comma`. */
+  readonly format: string;
+  /** The x column (1-based), as chosen. */
+  readonly x: number;
+}
+
 /**
- * Reads a two-column spectrum from delimited text. Comment lines (starting with `#`, `//`, `!`
- * or `% `) and blank lines are skipped anywhere; lines before the first row of numbers are
- * the header, and the last header line with as many fields as the data names the columns
- * (each column's unit is looked for in all such lines). Lines after the data that are not
- * numbers (an instrument's trailer) are skipped; data resuming after them is refused.
- * @throws InputError naming the line and the value: an empty file, no rows of numbers, a
- *   missing or non-numeric (`NaN`, empty) value in a chosen column, an unknown column, a
- *   decimal sign that cannot be told.
+ * A metadata line: a key of letters (with spaces, digits, dots, brackets, slashes or dashes)
+ * followed by `:` or `=`, as instruments write `Instrument: X`, `Date: …` or `slit=2 nm, scan=…`.
  */
-export function parseSpectrumText(text: string, options: SpectrumTextOptions = {}): RawSpectrum {
+const METADATA = /^["']?([A-Za-z][\w .()/-]{0,60}?)\s*[:=]\s*(.*)$/;
+
+/** The file cut into its parts: header, metadata, column names and units, data lines. */
+interface TextLayout {
+  readonly lines: readonly string[];
+  readonly first: number;
+  readonly format: TextFormat;
+  readonly width: number;
+  /** The header text of each column: every header row of the data's width, joined. */
+  readonly names: readonly string[];
+  readonly metadata: readonly RawMetadata[];
+}
+
+function textLayout(text: string): TextLayout {
   const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
   if (lines.every((l) => l.trim() === '')) throw new InputError('the file is empty');
   const first = lines.findIndex((l) => isData(l));
@@ -67,19 +97,69 @@ export function parseSpectrumText(text: string, options: SpectrumTextOptions = {
     throw new InputError(`no rows of numbers found in ${lines.length} line${lines.length === 1 ? '' : 's'}`);
   }
   const format = detectFormat(lines, first);
-  const header = lines.slice(0, first).filter((l) => l.trim() !== '' && !COMMENT.test(l.trim()));
+  const metadata: RawMetadata[] = [];
+  const header: string[] = [];
+  lines.slice(0, first).forEach((l, i) => {
+    const t = l.trim();
+    if (t === '' || COMMENT.test(t)) return;
+    const meta = METADATA.exec(t);
+    if (meta)
+      metadata.push({ line: i + 1, key: (meta[1] as string).trim(), value: (meta[2] as string).trim() });
+    else header.push(l);
+  });
   const width = splitFields(lines[first] as string, format).length;
   const headerRows = header.map((l) => splitFields(l, format)).filter((f) => f.length === width);
-  const names = Array.from({ length: width }, (_, j) => headerRows.at(-1)?.[j]?.trim() ?? '');
-  const unitText = Array.from({ length: width }, (_, j) =>
+  const names = Array.from({ length: width }, (_, j) =>
     headerRows
-      .map((r) => r[j]?.trim() ?? '')
+      .map((r) => unquote(r[j]?.trim() ?? '').trim())
       .filter((t) => t !== '')
       .join(' '),
   );
+  return { lines, first, format, width, names, metadata };
+}
+
+function formatName(format: TextFormat): string {
+  return `${DELIMITER_NAMES[format.delimiter]}-delimited, decimal ${format.decimalComma ? 'comma' : 'point'}`;
+}
+
+/**
+ * The columns of a delimited-text spectrum, with their header labels, and the file's metadata
+ * lines: what a file of several spectra holds, before one is chosen.
+ * @param xColumn the x column, resolved as {@link parseSpectrumText} does. @default 1
+ * @throws InputError when the file is empty or has no rows of numbers, or the x column is unknown.
+ */
+export function spectrumColumns(text: string, xColumn: ColumnChoice = DEFAULT_X_COLUMN): SpectrumLayout {
+  const layout = textLayout(text);
+  const x = columnIndex('x', xColumn, layout.names, layout.width) + 1;
+  let rows = 0;
+  for (let i = layout.first; i < layout.lines.length; i++) if (isData(layout.lines[i] as string)) rows++;
+  return {
+    columns: layout.names.map((n, j) => ({ number: j + 1, label: n || `column ${j + 1}` })),
+    metadata: layout.metadata,
+    rows,
+    format: formatName(layout.format),
+    x,
+  };
+}
+
+/**
+ * Reads a two-column spectrum from delimited text. Comment lines (starting with `#`, `//`, `!`
+ * or `% `) and blank lines are skipped anywhere; lines before the first row of numbers are
+ * the header. Header lines of the form `key: value` or `key=value` are instrument metadata,
+ * kept apart; the other header lines with as many fields as the data name the columns (joined,
+ * so that a row of sample names above a row of quantities gives `batch A Absorbance`), and each
+ * column's unit is looked for in that text. Lines after the data that are not numbers (an
+ * instrument's trailer) are skipped; data resuming after them is refused.
+ * @throws InputError naming the line and the value: an empty file, no rows of numbers, a
+ *   missing or non-numeric (`NaN`, empty) value in a chosen column, an unknown column, a
+ *   decimal sign that cannot be told.
+ */
+export function parseSpectrumText(text: string, options: SpectrumTextOptions = {}): RawSpectrum {
+  const { lines, first, format, width, names, metadata } = textLayout(text);
   const xi = columnIndex('x', options.xColumn ?? DEFAULT_X_COLUMN, names, width);
   const yi = columnIndex('y', options.yColumn ?? DEFAULT_Y_COLUMN, names, width);
   if (xi === yi) throw new InputError(`x and y are the same column (${xi + 1})`);
+  const maxRows = options.maxRows ?? SPECTRUM_ROWS_LIMIT;
 
   const x: number[] = [];
   const y: number[] = [];
@@ -104,24 +184,31 @@ export function parseSpectrumText(text: string, options: SpectrumTextOptions = {
     if (fields.length < need) {
       throw new InputError(`line ${i + 1}: expected at least ${need} columns, found ${fields.length}`);
     }
+    if (x.length === maxRows) {
+      throw new InputError(
+        `line ${i + 1}: more than ${maxRows} rows of numbers: expected at most ${maxRows} (bin the data first)`,
+      );
+    }
     x.push(fieldNumber(fields[xi] as string, format, i, 'x', xi));
     y.push(fieldNumber(fields[yi] as string, format, i, 'y', yi));
     at.push(i + 1);
   }
   if (x.length < 2) throw new InputError(`only ${x.length} row of numbers found: a spectrum needs more`);
-  const xLabel = names[xi] || `column ${xi + 1}`;
-  const yLabel = names[yi] || `column ${yi + 1}`;
-  const xUnit = unitText[xi] ? xUnitFromLabel(unitText[xi]) : undefined;
-  const yUnit = unitText[yi] ? yUnitFromLabel(unitText[yi]) : undefined;
+  const xText = names[xi] as string;
+  const yText = names[yi] as string;
+  const xUnit = xText ? xUnitFromLabel(xText) : undefined;
+  const yUnit = yText ? yUnitFromLabel(yText) : undefined;
   return {
     x: Float64Array.from(x),
     y: Float64Array.from(y),
     lines: Uint32Array.from(at),
-    xLabel,
-    yLabel,
-    ...(xUnit ? { xUnit: { unit: xUnit, origin: `header "${unitText[xi]}"` } } : {}),
-    ...(yUnit ? { yUnit: { unit: yUnit, origin: `header "${unitText[yi]}"` } } : {}),
-    format: `${DELIMITER_NAMES[format.delimiter]}-delimited, decimal ${format.decimalComma ? 'comma' : 'point'}`,
+    xLabel: xText || `column ${xi + 1}`,
+    yLabel: yText || `column ${yi + 1}`,
+    columns: { x: xi + 1, y: yi + 1, count: width },
+    ...(metadata.length > 0 ? { metadata } : {}),
+    ...(xUnit ? { xUnit: { unit: xUnit, origin: `header "${xText}"` } } : {}),
+    ...(yUnit ? { yUnit: { unit: yUnit, origin: `header "${yText}"` } } : {}),
+    format: formatName(format),
   };
 }
 

@@ -11,14 +11,18 @@ export type SpectrumXUnit = 'nm' | 'cm-1' | 'eV';
 
 /**
  * The quantity in the y column: absorbance A (decadic), molar absorptivity ε (L mol⁻¹ cm⁻¹),
- * transmittance in per cent or as a fraction, or an arbitrary quantity proportional to
- * absorption (Kubelka–Munk F(R), an absorption coefficient in cm⁻¹, …).
+ * transmittance in per cent or as a fraction, diffuse reflectance in per cent or as a fraction,
+ * the Kubelka–Munk function F(R) already worked out, or an arbitrary quantity proportional to
+ * absorption (an absorption coefficient in cm⁻¹, …).
  */
 export type SpectrumYUnit =
   | 'absorbance'
   | 'epsilon'
   | 'transmittance-percent'
   | 'transmittance'
+  | 'reflectance-percent'
+  | 'reflectance'
+  | 'kubelka-munk'
   | 'arbitrary';
 
 /** Human-readable names of the x units. */
@@ -30,6 +34,9 @@ export const Y_UNIT_NAMES: Readonly<Record<SpectrumYUnit, string>> = {
   epsilon: 'ε / L mol⁻¹ cm⁻¹',
   'transmittance-percent': 'transmittance / %',
   transmittance: 'transmittance (fraction)',
+  'reflectance-percent': 'diffuse reflectance / %',
+  reflectance: 'diffuse reflectance (fraction)',
+  'kubelka-munk': 'Kubelka–Munk F(R)',
   arbitrary: 'arbitrary units proportional to absorption',
 };
 
@@ -52,6 +59,11 @@ const Y_OPTION: Readonly<Record<string, SpectrumYUnit>> = {
   '%t': 'transmittance-percent',
   't%': 'transmittance-percent',
   t: 'transmittance',
+  '%r': 'reflectance-percent',
+  'r%': 'reflectance-percent',
+  r: 'reflectance',
+  'f(r)': 'kubelka-munk',
+  km: 'kubelka-munk',
   arb: 'arbitrary',
   arbitrary: 'arbitrary',
 };
@@ -66,15 +78,19 @@ export function parseXUnit(text: string): SpectrumXUnit {
   return unit;
 }
 
+/** The y-unit option's accepted values, for help texts and messages. */
+export const Y_UNIT_CHOICES = 'A, epsilon, %T, T, %R, R, F(R) or arb';
+
 /**
  * Parses the text of a y-unit option: `A` (absorbance), `epsilon` (ε, L mol⁻¹ cm⁻¹), `%T`
- * (transmittance in per cent), `T` (transmittance as a fraction) or `arb` (any quantity
- * proportional to absorption).
+ * (transmittance in per cent), `T` (transmittance as a fraction), `%R` (diffuse reflectance in
+ * per cent), `R` (diffuse reflectance as a fraction), `F(R)` (the Kubelka–Munk function, already
+ * worked out) or `arb` (any quantity proportional to absorption).
  * @throws InputError naming the text.
  */
 export function parseYUnit(text: string): SpectrumYUnit {
-  const unit = Y_OPTION[text.trim().toLowerCase()];
-  if (!unit) throw new InputError(`y unit "${text}": expected A, epsilon, %T, T or arb`);
+  const unit = Y_OPTION[text.trim().toLowerCase().replace(/\s+/g, '')];
+  if (!unit) throw new InputError(`y unit "${text}": expected ${Y_UNIT_CHOICES}`);
   return unit;
 }
 
@@ -117,6 +133,8 @@ export function xUnitFromLabel(label: string): SpectrumXUnit | undefined {
 }
 
 const Y_PATTERNS: readonly [SpectrumYUnit, RegExp][] = [
+  ['kubelka-munk', /kubelka|\bf ?\( ?r ?\)|\bf ?\( ?r ?∞ ?\)/],
+  ['reflectance-percent', /% ?r\b|\br ?%|\br ?[([] ?%|reflect\w* ?[([/]? ?%|% ?reflect|per ?cent reflect/],
   ['transmittance-percent', /% ?t\b|\bt ?%|\bt ?[([] ?%|transmi\w* ?[([/]? ?%|% ?transmi|per ?cent transmi/],
   [
     'epsilon',
@@ -125,15 +143,18 @@ const Y_PATTERNS: readonly [SpectrumYUnit, RegExp][] = [
 ];
 const ABSORBANCE = /absorbance|\babs\b|optical density|\bo\.?d\.?$|^extin[ck]tion\b|^a$|^a ?[([/]/;
 const TRANSMITTANCE = /transmi|^t$|^t ?[([/]/;
-const Y_UNSUPPORTED = /reflect|kubelka|\bf ?\( ?r ?\)|emission|intensity|counts|absorption coeff/;
+const REFLECTANCE = /reflect|^r$|^r ?[([/]/;
+const Y_UNSUPPORTED = /emission|intensity|counts|absorption coeff/;
 
 /**
  * The y quantity a column header names, if it names one: `Abs`, `Absorbance`, `A` →
  * absorbance; `ε`, `epsilon`, `molar absorptivity`, `M-1 cm-1` → ε; `%T`, `T (%)`,
- * `Transmittance (%)` → transmittance in per cent. Epsilon and per-cent patterns are tried
- * first, since their headers also contain the plain words.
- * @throws InputError for a bare `Transmittance` (per cent or fraction is not said), and for
- *   quantities that are not read as absorption here (reflectance, emission, counts).
+ * `Transmittance (%)` → transmittance in per cent; `%R`, `R (%)`, `Reflectance (%)` → diffuse
+ * reflectance in per cent; `F(R)`, `Kubelka-Munk` → the Kubelka–Munk function. The
+ * Kubelka–Munk, epsilon and per-cent patterns are tried first, since their headers also contain
+ * the plain words.
+ * @throws InputError for a bare `Transmittance` or `Reflectance` (per cent or fraction is not
+ *   said), and for quantities that are not read as absorption here (emission, counts).
  */
 export function yUnitFromLabel(label: string): SpectrumYUnit | undefined {
   const text = plain(label);
@@ -143,11 +164,16 @@ export function yUnitFromLabel(label: string): SpectrumYUnit | undefined {
       `y column "${label}" does not say whether transmittance is in per cent or a fraction: give --y-unit %T or --y-unit T`,
     );
   }
+  if (REFLECTANCE.test(text)) {
+    throw new InputError(
+      `y column "${label}" does not say whether reflectance is in per cent or a fraction: give --y-unit %R or --y-unit R`,
+    );
+  }
   if (ABSORBANCE.test(text)) return 'absorbance';
   if (Y_UNSUPPORTED.test(text)) {
     throw new InputError(
-      `y column "${label}" is not absorbance, ε or transmittance; for a quantity proportional to absorption ` +
-        '(e.g. Kubelka–Munk F(R)) give --y-unit arb',
+      `y column "${label}" is not absorbance, ε, transmittance or reflectance; for a quantity proportional to absorption ` +
+        'give --y-unit arb',
     );
   }
   return undefined;
@@ -186,6 +212,6 @@ export function chooseUnit<U extends string>(
   throw new InputError(
     axis === 'x'
       ? `x column "${label}" does not say whether x is in nm, cm-1 or eV: give --x-unit nm, cm-1 or eV`
-      : `y column "${label}" does not say what y is: give --y-unit A (absorbance), epsilon, %T, T or arb`,
+      : `y column "${label}" does not say what y is: give --y-unit ${Y_UNIT_CHOICES}`,
   );
 }

@@ -1,4 +1,4 @@
-import { spawn } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import {
   chmodSync,
   existsSync,
@@ -12,7 +12,8 @@ import {
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { MANIFEST, REPORT_GENERATOR } from '../../cli/report/write.js';
+import { slugs } from '../../cli/report/runReport.js';
+import { LOCK, MANIFEST, REPORT_GENERATOR } from '../../cli/report/write.js';
 import { BIN, runInProcess } from '../cliRunner.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'termsplit-report-folder-'));
@@ -170,11 +171,94 @@ describe('report -o: never deletes what the program did not write', () => {
     const staging = () => readdirSync(out).some((f) => f.startsWith('.termsplit-partial-'));
     for (let i = 0; i < 400 && !staging(); i++) await new Promise((res) => setTimeout(res, 25));
     expect(staging()).toBe(true);
+    // A second run into the folder while the first holds its lock is refused in one line.
+    expect(readFileSync(join(out, LOCK), 'utf8').trim()).toBe(String(child.pid));
+    const second = await runInProcess(['report', path, '-o', out], dir);
+    expect(second.code).toBe(2);
+    expect(second.stderr).toMatch(
+      new RegExp(
+        `^termsplit: .*interrupted is being written by another termsplit report \\(process ${child.pid}\\); wait for it to finish or choose another -o\n$`,
+      ),
+    );
     child.kill('SIGINT');
     expect(await exited).toBe(130);
     expect(stderr).toMatch(/interrupted \(SIGINT\): the report was not written to .*interrupted/);
     expect(tree(out)).toEqual([...before.keys()]);
     for (const [f, text] of before) expect(readFileSync(join(out, f), 'utf8')).toBe(text);
     expect(readdirSync(out).filter((f) => f.startsWith('.termsplit-'))).toEqual([MANIFEST]);
+  });
+});
+
+/** The id of a process that has ended. */
+function deadPid(): number {
+  const r = spawnSync(process.execPath, ['-e', 'process.stdout.write(String(process.pid))'], {
+    encoding: 'utf8',
+  });
+  return Number(r.stdout);
+}
+
+describe('report -o: one run at a time per folder', () => {
+  it('refuses a folder whose lock a live process holds, in one line with exit 2, and changes nothing', async () => {
+    const out = join(dir, 'locked');
+    expect((await runInProcess(['report', sheet('locked', [NI]), '-o', out], dir)).code).toBe(0);
+    expect(existsSync(join(out, LOCK))).toBe(false);
+    const before = new Map(tree(out).map((f) => [f, readFileSync(join(out, f), 'utf8')]));
+    writeFileSync(join(out, LOCK), `${process.ppid}\n`);
+    const r = await runInProcess(['report', sheet('locked-2', [CR]), '-o', out], dir);
+    expect(r.code).toBe(2);
+    expect(r.stdout).toBe('');
+    expect(r.stderr.trimEnd().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(`being written by another termsplit report (process ${process.ppid})`);
+    expect(tree(out)).toEqual([...before.keys(), LOCK].sort());
+    for (const [f, text] of before) expect(readFileSync(join(out, f), 'utf8')).toBe(text);
+    expect(readFileSync(join(out, LOCK), 'utf8')).toBe(`${process.ppid}\n`);
+  });
+
+  it('a lock left by a process that is gone (or unreadable) is cleared, and the run goes on', async () => {
+    const out = join(dir, 'stale-lock');
+    mkdirSync(out);
+    writeFileSync(join(out, LOCK), `${deadPid()}\n`);
+    expect((await runInProcess(['report', sheet('stale-lock', [NI]), '-o', out], dir)).code).toBe(0);
+    expect(existsSync(join(out, LOCK))).toBe(false);
+    writeFileSync(join(out, LOCK), 'not a pid');
+    expect((await runInProcess(['report', sheet('stale-lock', [NI]), '-o', out], dir)).code).toBe(0);
+    expect(existsSync(join(out, LOCK))).toBe(false);
+  });
+
+  it('a folder not made yet is locked beside it, so two first runs cannot both make it', async () => {
+    const out = join(dir, 'not-yet');
+    const beside = join(dir, `.not-yet${LOCK}`);
+    writeFileSync(beside, `${process.ppid}\n`);
+    const r = await runInProcess(['report', sheet('not-yet', [NI]), '-o', out], dir);
+    expect(r.code).toBe(2);
+    expect(existsSync(out)).toBe(false);
+    rmSync(beside);
+    expect((await runInProcess(['report', sheet('not-yet', [NI]), '-o', out], dir)).code).toBe(0);
+    expect(existsSync(beside)).toBe(false);
+    expect(readdirSync(out).filter((f) => f.startsWith('.termsplit-'))).toEqual([MANIFEST]);
+  });
+});
+
+describe('report file names from sample names', () => {
+  it('slugs keep only lower-case letters, digits and dashes, so "/", ".." and markup never reach a path', () => {
+    const names = ['../../etc/passwd', 'a/b', '<img src=x onerror=alert(1)>', '..', 'Ni(H2O)6 2+', 'a/b'];
+    const out = slugs(names);
+    expect(out).toEqual(['etc-passwd', 'a-b', 'img-src-x-onerror-alert-1', 'sample', 'ni-h2o-6-2', 'a-b-2']);
+    for (const s of out) expect(s).toMatch(/^[a-z0-9-]+$/);
+  });
+
+  it('a report of samples named with "/", ".." and markup writes only inside its folder, and escapes the names in HTML', async () => {
+    const out = join(dir, 'names');
+    const samples = [
+      { ...NI, name: '../../outside' },
+      { ...CR, name: '<b onmouseover="x()">a/b</b>' },
+    ];
+    const r = await runInProcess(['report', sheet('names', samples), '-o', out], dir);
+    expect(r.code).toBe(0);
+    expect(existsSync(join(dir, 'outside'))).toBe(false);
+    for (const f of tree(out)) expect(f).not.toMatch(/\.\.|</);
+    const html = readFileSync(join(out, 'report.html'), 'utf8');
+    expect(html).not.toContain('<b onmouseover');
+    expect(html).toContain('&lt;b onmouseover=');
   });
 });

@@ -50,8 +50,8 @@ describe('xUnitFromLabel and yUnitFromLabel', () => {
     expect(() => yUnitFromLabel('Transmittance')).toThrow(/per cent or a fraction/);
   });
 
-  it('refuses reflectance and emission as absorption, pointing to --y-unit arb', () => {
-    expect(() => yUnitFromLabel('Reflectance')).toThrow(/--y-unit arb/);
+  it('asks whether a bare Reflectance is per cent, and refuses emission as absorption, pointing to --y-unit arb', () => {
+    expect(() => yUnitFromLabel('Reflectance')).toThrow(/--y-unit %R or --y-unit R/);
     expect(() => yUnitFromLabel('Intensity (counts)')).toThrow(/--y-unit arb/);
   });
 });
