@@ -58,6 +58,7 @@ export interface FitOptions {
   zeta?: string;
   zetaFactor?: string;
   fitZeta?: boolean;
+  zetaLevels?: string;
   json?: boolean;
 }
 
@@ -116,6 +117,10 @@ export function registerFit(program: Command, io: Io): void {
       '--fit-zeta',
       'fit ζ too, from the resolved components of a split band (give each component; ζ starts at --zeta, else the free-ion value of --ion); held, with a warning, where the bands do not determine it',
     )
+    .option(
+      '--zeta-levels <labels>',
+      'with --fit-zeta: the spin–orbit level of each resolved component, lowest first, e.g. Γ3(2),Γ3(3) (default: chosen by energy)',
+    )
     .option(...SIZE_OPTION)
     .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout');
@@ -128,6 +133,7 @@ export function registerFit(program: Command, io: Io): void {
         ['--diagram', opts.diagram],
         ['--zeta', opts.zeta],
         ['--fit-zeta', opts.fitZeta],
+        ['--zeta-levels', opts.zetaLevels],
       ] as const) {
         if (given !== undefined)
           throw new InputError(`${flag} is for cubic fits: leave it out with a geometry`);
@@ -239,11 +245,17 @@ function spinOrbitRefinement(
       '--fit-zeta needs a starting ζ: give --zeta (cm⁻¹), or an --ion with a tabulated free-ion ζ',
     );
   }
+  if (opts.zetaLevels !== undefined && !fitZeta)
+    throw new InputError('--zeta-levels goes with --fit-zeta: it assigns the components ζ is fitted to');
   const zeta = zetaOption(zetaText, opts.zetaFactor, ion);
   if (zeta === undefined) return undefined;
+  // Γ may be typed as G where the keyboard has no Greek.
+  const components =
+    opts.zetaLevels === undefined ? undefined : splitLabels(opts.zetaLevels.replace(/G(?=\d)/g, 'Γ'));
   return refineFitWithZeta(result, best, {
     zeta,
     fitZeta,
+    ...(components ? { components } : {}),
     ...(ion?.zeta !== undefined ? { freeIonZeta: ion.zeta } : {}),
   });
 }

@@ -32,6 +32,11 @@ export interface ZetaFitOptions {
   readonly fitZeta?: boolean;
   /** The free ion's ζ, for ζ/ζ(free ion) and the warning above it. @default none */
   readonly freeIonZeta?: number;
+  /**
+   * The spin–orbit level of each resolved component, lowest component first across all merged
+   * bands, e.g. `['Γ3(2)', 'Γ3(3)']` — a published assignment. @default chosen by energy
+   */
+  readonly components?: readonly string[];
 }
 
 /** A band of the ζ refinement and the levels it was assigned to. */
@@ -87,7 +92,7 @@ export function refineFitWithZeta(
   let zetaFitted = false;
   if (zetaAsked) {
     const levels = solveSpinOrbit({ n: result.n, geometry: result.geometry, ...start, zeta: options.zeta });
-    const split = componentBands(result, solution, levels);
+    const split = componentBands(result, solution, levels, options.components);
     const resolved = split.some((b) => (b.components?.length ?? 0) > 0);
     if (!resolved) {
       warnings.push(
@@ -106,7 +111,7 @@ export function refineFitWithZeta(
   }
   let refinement = refine(bands, zetaFitted, options.zeta);
   // The components' assignment was made at the start; redo it at the fitted values until it holds.
-  for (let i = 0; zetaFitted && i < REASSIGNMENTS; i++) {
+  for (let i = 0; zetaFitted && !options.components && i < REASSIGNMENTS; i++) {
     const again = componentBands(result, solution, refinement.levels);
     if (sameAssignment(again, bands)) break;
     bands = again;
@@ -127,15 +132,28 @@ function centroidBands(solution: FitSolution): ZetaBand[] {
   }));
 }
 
-/** The bands with every merged band's components put back and assigned to spin–orbit levels. */
-function componentBands(result: FitResult, solution: FitSolution, levels: SpinOrbitResult): ZetaBand[] {
-  return solution.assignments.flatMap((a) => {
+/**
+ * The bands with every merged band's components put back and assigned to spin–orbit levels (the
+ * `given` ones in order, else by energy).
+ * @throws InputError when `given` does not hold one level per component.
+ */
+function componentBands(
+  result: FitResult,
+  solution: FitSolution,
+  levels: SpinOrbitResult,
+  given?: readonly string[],
+): ZetaBand[] {
+  let next = 0;
+  const bands = solution.assignments.flatMap((a) => {
     const merge = result.merges.find((m) => m.band === a.band);
     const sigma = a.sigma !== null ? { sigma: a.sigma } : {};
     const centroid = [{ band: a.band, energy: a.observed, level: a.label, ...sigma }];
     if (!merge || merge.energies.length < 2) return centroid;
     const observed = [...merge.energies].sort((x, y) => x - y);
-    const picked = assignComponents(levels, a.label, observed);
+    const picked = given
+      ? observed.map((_, i) => given[next + i] ?? '')
+      : assignComponents(levels, a.label, observed);
+    next += observed.length;
     if (!picked) return centroid;
     return observed.map((energy, i) => ({
       band: a.band,
@@ -145,6 +163,11 @@ function componentBands(result: FitResult, solution: FitSolution, levels: SpinOr
       ...sigma,
     }));
   });
+  ensure(
+    !given || given.length === next,
+    `${given?.length} spin–orbit levels for ${next} resolved components: expected one per component, lowest first`,
+  );
+  return bands;
 }
 
 /**

@@ -117,6 +117,22 @@ describe('--zeta on levels, terms and diagram (in process)', () => {
     expect(refused.stderr).toMatch(/--fit-zeta needs a starting ζ/);
   });
 
+  it('fit --fit-zeta --zeta-levels takes the published Γ3/Γ3 assignment of the Ni²⁺ pair (Lever 1984, from memory) and refuses a wrong count', async () => {
+    const argv = ['fit', '--ion', 'Ni2+', '--bands', '8500,13800,15400,25300', '--cb', '4.2', '--fit-zeta'];
+    const json = JSON.parse((await runInProcess([...argv, '--zeta-levels', 'G3(2),Γ3(3)', '--json'])).stdout);
+    expect(json.spinOrbit.bands.map((b: { components?: string[] }) => b.components?.[0] ?? null)).toEqual([
+      null,
+      'Γ3(2)',
+      'Γ3(3)',
+      null,
+    ]);
+    expect(json.spinOrbit.zetaOverFreeIon).toBeGreaterThan(0.7);
+    expect(json.spinOrbit.zetaOverFreeIon).toBeLessThan(1.0);
+    const wrong = await runInProcess([...argv, '--zeta-levels', 'Γ3(2)']);
+    expect(wrong.code).toBe(2);
+    expect(wrong.stderr).toMatch(/1 spin–orbit levels for 2 resolved components/);
+  });
+
   it('crossover --zeta ion puts μ_eff with spin–orbit coupling at the sample beside the spin-only moments', async () => {
     const argv = ['crossover', '--ion', 'Fe2+', '--B', '800', '--dq', '1150', '--zeta', 'ion'];
     const text = await runInProcess(argv);
