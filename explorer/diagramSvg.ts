@@ -162,14 +162,16 @@ function curveLabels(view: ExplorerView, x: Axis, y: Axis): string {
 /** Labels of the spin-allowed curves that leave through the top of the plot, just below where they leave. */
 function exitLabels(view: ExplorerView, x: Axis, y: Axis, from: number, S: number, colour: string): string {
   const { curves: all, deltaOverB: xs } = view.diagram;
-  const exits: { at: number; label: string }[] = [];
+  const exits: { at: number; label: string; anchor: 'start' | 'end' }[] = [];
   for (const c of all) {
     if (c.S !== S || (c.values[c.values.length - 1] ?? 0) <= y.max) continue;
     const exit = xs[c.values.findIndex((v) => v > y.max)];
     // Only where the curve is spin-allowed (the last region), and with room for the text.
     if (exit === undefined || exit < from) continue;
+    // Right of the exit where the text fits, else ending just left of it.
     const p = at(x, exit) + 5;
-    if (p <= PLOT.right - EXIT_LABEL_ROOM) exits.push({ at: p, label: c.label });
+    const fits = p <= PLOT.right - EXIT_LABEL_ROOM;
+    exits.push({ at: fits ? p : p - 10 - EXIT_LABEL_ROOM, label: c.label, anchor: fits ? 'start' : 'end' });
   }
   exits.sort((a, b) => a.at - b.at);
   let next = Number.NEGATIVE_INFINITY;
@@ -177,8 +179,9 @@ function exitLabels(view: ExplorerView, x: Axis, y: Axis, from: number, S: numbe
   for (const e of exits) {
     if (e.at < next) continue;
     next = e.at + EXIT_LABEL_ROOM;
+    const tx = e.anchor === 'start' ? e.at : e.at + EXIT_LABEL_ROOM;
     parts.push(
-      `<text x="${px(e.at)}" y="${PLOT.top + 14}" font-size="${STYLE.labelSize}" fill="${colour}">${esc(unicodeLabel(e.label))}</text>`,
+      `<text x="${px(tx)}" y="${PLOT.top + 14}" text-anchor="${e.anchor}" font-size="${STYLE.labelSize}" fill="${colour}">${esc(unicodeLabel(e.label))}</text>`,
     );
   }
   return parts.join('');
