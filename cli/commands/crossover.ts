@@ -7,8 +7,7 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { renderGroundMap } from '../../charts/groundMap.js';
-import { type FigureFormat, formatOfPath } from '../../charts/render.js';
+import { type FigureFormat, formatOfPath } from '../../charts/figureFormat.js';
 import {
   type Crossover,
   type CrossoverAnalysis,
@@ -98,8 +97,8 @@ export function registerCrossover(program: Command, io: Io): void {
     .option('--zeta <cm-1|ion>', 'also μ_eff with spin–orbit coupling beside spin-only (cm⁻¹, or "ion")')
     .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('--json', 'print one JSON object on stdout')
-    .action((configText: string | undefined, opts: CrossoverCommandOptions) => {
-      io.out(crossoverCommand(configText, opts, io));
+    .action(async (configText: string | undefined, opts: CrossoverCommandOptions) => {
+      io.out(await crossoverCommand(configText, opts, io));
     });
 }
 
@@ -350,11 +349,11 @@ interface Report {
 }
 
 /** Builds the command's output (text or JSON) and writes the map if asked; errors leave stdout empty. */
-export function crossoverCommand(
+export async function crossoverCommand(
   configText: string | undefined,
   opts: CrossoverCommandOptions,
   io: Io,
-): string {
+): Promise<string> {
   if (opts.bands !== undefined && (opts.dq !== undefined || opts.B !== undefined || opts.C !== undefined)) {
     throw new InputError(
       '--bands places the sample by a fit: leave out --dq, --B and --C (--cb sets the C/B it holds)',
@@ -388,7 +387,7 @@ export function crossoverCommand(
   const classroom = B > 0 ? pairingEnergy(n, geometry, B, C) : undefined;
   const coefficients = pairingCoefficients(n, geometry);
   if (opts.output !== undefined && format) {
-    writeFileAtomic(resolve(io.cwd, opts.output), mapBytes(analysis, verdict, format, io));
+    writeFileAtomic(resolve(io.cwd, opts.output), await mapBytes(analysis, verdict, format, io));
   }
   const report: Report = {
     input,
@@ -410,12 +409,12 @@ export function crossoverCommand(
 }
 
 /** The ground-state map of the analysis with the sample marked, as file bytes. */
-function mapBytes(
+async function mapBytes(
   analysis: CrossoverAnalysis,
   verdict: SampleVerdict | undefined,
   format: FigureFormat,
   io: Io,
-): Buffer {
+): Promise<Buffer> {
   const { n, geometry, B } = analysis;
   const bar = progress(io, 'ground-state map');
   const map = groundStateMap(n, {
@@ -425,6 +424,7 @@ function mapBytes(
   });
   bar.end();
   const sigmaDeltaOverB = verdict?.sigmaDeltaOverB;
+  const { renderGroundMap } = await import('../../charts/groundMap.js');
   return renderGroundMap(
     map,
     { format },

@@ -6,8 +6,8 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { formatOfPath } from '../../charts/render.js';
-import { quantityTitle } from '../../charts/spectrum.js';
+import { formatOfPath } from '../../charts/figureFormat.js';
+import { quantityTitle } from '../../charts/style.js';
 import { InputError } from '../../src/core/errors.js';
 import type { Geometry } from '../../src/core/geometry.js';
 import { elementOfIon } from '../../src/core/ions.js';
@@ -52,7 +52,6 @@ import {
 } from '../options.js';
 import { fitJson, fitText } from '../present/fitPresent.js';
 import { levelJson } from '../present/levelPresent.js';
-import { spectrumFigure } from '../present/spectrumFigure.js';
 
 /** Options of `termsplit spectrum`. */
 export interface SpectrumOptions {
@@ -121,8 +120,8 @@ export function registerSpectrum(program: Command, io: Io): void {
     .option(...SIZE_OPTION)
     .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout')
-    .action((file: string, opts: SpectrumOptions) => {
-      io.out(spectrumCommand(file, opts, io));
+    .action(async (file: string, opts: SpectrumOptions) => {
+      io.out(await spectrumCommand(file, opts, io));
     });
 }
 
@@ -134,7 +133,7 @@ export interface SpectrumReport extends SpectrumAnalysis {
 }
 
 /** Runs the command and returns its stdout text; the figure, if asked for, is written first. */
-export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): string {
+export async function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): Promise<string> {
   const job = spectrumJob(opts);
   const outPath = opts.output === undefined ? undefined : resolve(io.cwd, opts.output);
   const format = outPath === undefined ? undefined : formatOfPath(outPath);
@@ -147,6 +146,7 @@ export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): st
     ...(opts.output !== undefined ? { figure: opts.output } : {}),
   };
   if (outPath !== undefined && format !== undefined) {
+    const { spectrumFigure } = await import('../present/spectrumFigure.js');
     writeFileAtomic(outPath, spectrumFigure(report, `termsplit spectrum ${file}`, format, size));
   }
   return opts.json ? jsonText(reportJson(report)) : reportText(report, opts);
