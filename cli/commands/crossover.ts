@@ -20,7 +20,7 @@ import {
   sampleVerdict,
   TETRAHEDRAL_DELTA_CEILING,
 } from '../../src/analysis/crossover.js';
-import { fittedSample as placeByFit } from '../../src/analysis/fittedSample.js';
+import type { fittedSample as placeByFit } from '../../src/analysis/fittedSample.js';
 import { GROUND_MAP_DEFAULTS, groundStateMap } from '../../src/analysis/groundMap.js';
 import {
   impliedPairingEnergy,
@@ -127,7 +127,9 @@ interface FittedSample {
  * Fits the bands at the resolved C/B (library {@link placeByFit}) and puts the best solution's
  * B, C and Dq with their errors in place of given ones, noting where they came from.
  */
-function fittedSample(input: Resolved, bandsText: string): FittedSample {
+async function fittedSample(input: Resolved, bandsText: string): Promise<FittedSample> {
+  // The band fit (and ml-matrix with it) loads only when --bands asks for it.
+  const { fittedSample: placeByFit } = await import('../../src/analysis/fittedSample.js');
   const bands = parseEnergyList(bandsText).map((b) =>
     b.sigma === undefined ? { energy: b.value } : { energy: b.value, sigma: b.sigma },
   );
@@ -367,7 +369,7 @@ export async function crossoverCommand(
   const given = resolveInput(configText, opts);
   const format: FigureFormat | undefined = opts.output === undefined ? undefined : formatOfPath(opts.output);
   if (opts.output !== undefined) checkOutputDirectory(resolve(io.cwd, opts.output));
-  const fitted = opts.bands === undefined ? undefined : fittedSample(given, opts.bands);
+  const fitted = opts.bands === undefined ? undefined : await fittedSample(given, opts.bands);
   const input = fitted?.input ?? given;
   const sampleDq = fitted?.dq ?? numberWithSigma('--dq', opts.dq, positive(DQ_LIMIT));
   const { n, geometry, B, C } = input;

@@ -42,8 +42,18 @@ describe('start-up: what a command loads before it runs', () => {
     expect(readFileSync(resolve(ROOT, 'cli/program.ts'), 'utf8')).not.toMatch(/^import .*commands\//m);
   });
 
-  for (const command of ['terms', 'levels', 'ions', 'fit', 'diagram', 'crossover', 'magnetism']) {
-    it(`termsplit ${command} loads no figure stack, spectrum reader or sheet schema at start-up`, () => {
+  for (const command of [
+    'terms',
+    'levels',
+    'ions',
+    'fit',
+    'diagram',
+    'crossover',
+    'magnetism',
+    'report',
+    'demo',
+  ]) {
+    it(`termsplit ${command} loads no figure stack, spectrum reader or sheet schema before it runs`, () => {
       const loaded = staticPackages(['cli/main.ts', `cli/commands/${command}.ts`]);
       for (const heavy of [...FIGURES, ...READERS]) expect(loaded).not.toContain(heavy);
     });
