@@ -122,6 +122,8 @@ export const MAX_PARAMETER = 1e6;
 
 /** Refuses a Dq, B or C beyond {@link MAX_PARAMETER}. */
 export function checkMagnitudes(dq: number, B: number, C: number): void {
+  // Checked at every point of a sweep: the common case returns before building the messages.
+  if (Math.abs(dq) <= MAX_PARAMETER && Math.abs(B) <= MAX_PARAMETER && Math.abs(C) <= MAX_PARAMETER) return;
   for (const [name, v] of [
     ['Dq', dq],
     ['Racah B', B],
