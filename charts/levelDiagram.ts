@@ -11,9 +11,9 @@
 import type { SKRSContext2D } from '@napi-rs/canvas';
 import type { Chart, ChartConfiguration, Plugin } from 'chart.js';
 import { type FreeIonTerm, freeIonTerms } from '../src/atom/freeIon.js';
-import { BAND_CEILING } from '../src/core/defaults.js';
 import { ensure } from '../src/core/errors.js';
 import type { CubicLevel, CubicResult } from '../src/field/cubic.js';
+import { DEFAULT_LEVEL_CEILING, DEFAULT_LEVEL_FORBIDDEN } from './figureFormat.js';
 import { drawKey, spinKey } from './key.js';
 import { spreadLabels } from './labelLayout.js';
 import { groupedNumber } from './numbers.js';
@@ -42,10 +42,7 @@ export interface LevelDiagramOptions {
   readonly forbidden?: number;
 }
 
-/** The default ceiling, cm⁻¹: the band ceiling of the text output (200 nm, where UV-vis spectra end). */
-export const DEFAULT_LEVEL_CEILING = BAND_CEILING;
-/** The default number of spin-forbidden levels shown (the lowest). */
-export const DEFAULT_LEVEL_FORBIDDEN = 4;
+export { DEFAULT_LEVEL_CEILING, DEFAULT_LEVEL_FORBIDDEN } from './figureFormat.js';
 
 /** What a level diagram shows: levels and terms on the common zero, and the axis top. */
 export interface LevelView {

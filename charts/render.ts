@@ -8,51 +8,21 @@
 import { createRequire } from 'node:module';
 import { createCanvas, GlobalFonts, PDFDocument, type SKRSContext2D, SvgExportFlag } from '@napi-rs/canvas';
 import { Chart, type ChartConfiguration, type Plugin, registerables } from 'chart.js';
-import { ensure, InputError } from '../src/core/errors.js';
+import { ensure } from '../src/core/errors.js';
+import { DEFAULT_PRESET_DPI, FIGURE_SIZES, type FigureOptions } from './figureFormat.js';
 import { FONT_FAMILY } from './style.js';
 import { compactShapes } from './svgShapes.js';
 import { editableSvg } from './svgText.js';
 
+export {
+  DEFAULT_PRESET_DPI,
+  FIGURE_SIZES,
+  type FigureFormat,
+  type FigureOptions,
+  type FigureSize,
+  formatOfPath,
+} from './figureFormat.js';
 export { FONT_FAMILY } from './style.js';
-
-/** Output formats, chosen by file extension. */
-export type FigureFormat = 'png' | 'svg' | 'pdf';
-
-/** Size and format of a figure. */
-export interface FigureOptions {
-  readonly format: FigureFormat;
-  /** Width in CSS pixels (1/96 in). @default 900 */
-  readonly width?: number;
-  /** Height in CSS pixels. @default 650 */
-  readonly height?: number;
-  /** PNG pixels per CSS pixel (ignored when `dpi` is given). @default 2 */
-  readonly pngScale?: number;
-  /**
-   * A journal column width: the figure is laid out at the preset's design width (height in
-   * proportion) and printed at the column's physical width, text at about 7 pt. @default none
-   */
-  readonly size?: FigureSize;
-  /** PNG pixels per inch of the printed figure (with a size preset) or per 96 CSS px (without). */
-  readonly dpi?: number;
-  /** PDF document title. */
-  readonly title?: string;
-}
-
-/** The journal column widths figures can be made for. */
-export type FigureSize = keyof typeof FIGURE_SIZES;
-
-/**
- * Column widths (mm) of one- and two-column figures, as many journals set them (common
- * practice, no source), and the width (CSS px) each is laid out at: the figures' 13 px labels
- * then print at about 7 pt, the usual smallest size asked for.
- */
-export const FIGURE_SIZES = {
-  'one-column': { mm: 85, designWidth: 440, aspect: 1.35 },
-  'two-column': { mm: 175, designWidth: 900, aspect: 1 },
-} as const;
-
-/** PNG resolution of a size preset unless given, pixels per inch (what journals usually ask for line art with text). */
-export const DEFAULT_PRESET_DPI = 300;
 
 /** Layout size (CSS px), physical width (CSS px at 96 per inch) and PNG scale of a figure. */
 function layoutOf(options: FigureOptions) {
@@ -96,16 +66,6 @@ function setUp(): void {
   Chart.defaults.font.family = FONT_FAMILY;
   Chart.defaults.color = '#222222';
   ready = true;
-}
-
-/**
- * The format of an output path from its extension.
- * @throws InputError for an extension other than .png, .svg or .pdf.
- */
-export function formatOfPath(path: string): FigureFormat {
-  const ext = /\.([^./\\]+)$/.exec(path)?.[1]?.toLowerCase();
-  if (ext === 'png' || ext === 'svg' || ext === 'pdf') return ext;
-  throw new InputError(`output file "${path}": expected a .png, .svg or .pdf extension`);
 }
 
 const whiteBackground: Plugin = {

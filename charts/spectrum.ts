@@ -14,7 +14,7 @@ import { bandSum, gaussianValue, type LinearBaseline } from '../src/spectra/gaus
 import { drawKey, type KeyItem } from './key.js';
 import { groupedNumber, tickText } from './numbers.js';
 import { type FigureOptions, renderChart } from './render.js';
-import { STYLE } from './style.js';
+import { quantityTitle, STYLE } from './style.js';
 import { chartContext, drawRuns, measureRuns, runsHeight, stateRuns, type TextStyle } from './typeset.js';
 
 /** A predicted transition from the ground state, to draw as a vertical mark. */
@@ -52,14 +52,6 @@ const CURVE_POINTS = 600;
 const INK = STYLE.ink;
 /** Room under the plot for the three rows of the key, px. */
 const KEY_ROOM = 62;
-
-/** Axis title of the y quantity. */
-export function quantityTitle(quantity: AbsorptionQuantity): string {
-  if (quantity === 'epsilon') return 'ε / L mol⁻¹ cm⁻¹';
-  if (quantity === 'absorbance') return 'Absorbance';
-  if (quantity === 'kubelka-munk') return 'F(R) (Kubelka–Munk)';
-  return 'Absorption / arb. units';
-}
 
 /** The smallest round number (1, 1.2, 1.5, 2, 2.5, 3, 4, 5, 6 or 8 × 10ᵏ) at or above v, where the y axis ends. */
 function niceCeiling(v: number): number {

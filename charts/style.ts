@@ -6,6 +6,8 @@
  * in the figure beside what they name; one type family at a few fixed sizes.
  */
 
+import type { AbsorptionQuantity } from '../src/spectra/absorptionSpectrum.js';
+
 /** The font family every figure is drawn in (shipped with the package, so the same everywhere). */
 export const FONT_FAMILY = 'DejaVu Sans';
 
@@ -65,4 +67,12 @@ export const TICKS = { font: { size: STYLE.tickSize }, color: STYLE.ink };
 /** An axis title in the house style. */
 export function axisTitle(text: string) {
   return { display: true, text, font: { size: STYLE.axisTitleSize }, color: STYLE.ink };
+}
+
+/** Axis title of a spectrum's y quantity (also the heading of the band table in text output). */
+export function quantityTitle(quantity: AbsorptionQuantity): string {
+  if (quantity === 'epsilon') return 'ε / L mol⁻¹ cm⁻¹';
+  if (quantity === 'absorbance') return 'Absorbance';
+  if (quantity === 'kubelka-munk') return 'F(R) (Kubelka–Munk)';
+  return 'Absorption / arb. units';
 }

@@ -8,8 +8,7 @@
 import type { SKRSContext2D } from '@napi-rs/canvas';
 import type { Chart } from 'chart.js';
 import { parseStateLabel } from '../src/field/labels.js';
-import { FONT_FAMILY } from './render.js';
-import { STYLE } from './style.js';
+import { FONT_FAMILY, STYLE } from './style.js';
 
 /** A piece of text at the baseline, raised or lowered. */
 export interface TextRun {

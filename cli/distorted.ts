@@ -6,8 +6,7 @@
  */
 
 import { resolve } from 'node:path';
-import { renderDistortionDiagram } from '../charts/distortionDiagram.js';
-import { formatOfPath } from '../charts/render.js';
+import { formatOfPath } from '../charts/figureFormat.js';
 import { DEFAULT_SWEEP_STEPS, distortionCsv, distortionSweep } from '../src/analysis/distortionSweep.js';
 import { InputError } from '../src/core/errors.js';
 import type { FreeIon } from '../src/core/ions.js';
@@ -256,12 +255,12 @@ function pathOf(
 }
 
 /** `diagram` with a geometry and `--distort`: returns stdout; writes the figure and data. */
-export function distortionDiagramCommand(
+export async function distortionDiagramCommand(
   n: number,
   ion: FreeIon | undefined,
   opts: DistortionDiagramOptions,
   io: Io,
-): string {
+): Promise<string> {
   const { B, cOverB } = racah({ ...opts, d: String(n), ...(ion ? { ion: ion.ion } : {}) }, true);
   const { spec, geometry } = fieldFromOptions(opts, reader(io));
   const path = pathOf(opts.distort ?? '', spec, geometry);
@@ -286,6 +285,7 @@ export function distortionDiagramCommand(
   bar.end();
   const files: { path: string; data: string | Uint8Array }[] = [];
   const figure = resolve(io.cwd, opts.output ?? `d${n}-distortion.png`);
+  const { renderDistortionDiagram } = await import('../charts/distortionDiagram.js');
   files.push({ path: figure, data: renderDistortionDiagram(sweep, { format: formatOfPath(figure) }, eMax) });
   if (opts.data !== undefined) {
     const data = resolve(io.cwd, opts.data);

@@ -4,7 +4,12 @@
  * once into typed values; the help texts of shared options are built from the named defaults.
  */
 
-import { DEFAULT_PRESET_DPI, FIGURE_SIZES, type FigureOptions, type FigureSize } from '../charts/render.js';
+import {
+  DEFAULT_PRESET_DPI,
+  FIGURE_SIZES,
+  type FigureOptions,
+  type FigureSize,
+} from '../charts/figureFormat.js';
 import { parseConfiguration } from '../src/atom/terms.js';
 import { DEFAULT_C_OVER_B, DEFAULT_GEOMETRY } from '../src/core/defaults.js';
 import { InputError } from '../src/core/errors.js';

@@ -2,21 +2,14 @@
  * The command-line program: every command registered on one commander program, its own errors
  * turned into the one-line `termsplit: …` form, and the run that maps input errors to exit code 2
  * and anything else to exit code 1.
+ *
+ * Commands are loaded lazily: when the first word names a command, only that command's module is
+ * imported (a start-up of a text command then loads no figure or reader code); for help, the
+ * version, no words or an unknown word every command is registered, in the order of `COMMANDS`.
  */
 
 import { Command, CommanderError } from 'commander';
 import { InputError } from '../src/core/errors.js';
-import { registerCrossover } from './commands/crossover.js';
-import { registerDemo } from './commands/demo.js';
-import { registerDiagram } from './commands/diagram.js';
-import { registerExplore } from './commands/explore.js';
-import { registerFit } from './commands/fit.js';
-import { registerIons } from './commands/ions.js';
-import { registerLevels } from './commands/levels.js';
-import { registerMagnetism } from './commands/magnetism.js';
-import { registerReport } from './commands/report.js';
-import { registerSpectrum } from './commands/spectrum.js';
-import { registerTerms } from './commands/terms.js';
 import { messageLine } from './format.js';
 import type { Io } from './io.js';
 import { VERSION } from './version.js';
@@ -26,8 +19,29 @@ export const EXIT_OK = 0;
 export const EXIT_INTERNAL = 1;
 export const EXIT_INPUT = 2;
 
-/** The command-line program, with every command registered, writing to `io`. */
-export function buildProgram(io: Io): Command {
+/** What a command module exports: a function adding the command to the program. */
+type Register = (program: Command, io: Io) => void;
+
+/** Every command, in the order help lists them, and how to load its module. */
+const COMMANDS: ReadonlyMap<string, () => Promise<Register>> = new Map([
+  ['terms', async () => (await import('./commands/terms.js')).registerTerms],
+  ['levels', async () => (await import('./commands/levels.js')).registerLevels],
+  ['ions', async () => (await import('./commands/ions.js')).registerIons],
+  ['fit', async () => (await import('./commands/fit.js')).registerFit],
+  ['diagram', async () => (await import('./commands/diagram.js')).registerDiagram],
+  ['crossover', async () => (await import('./commands/crossover.js')).registerCrossover],
+  ['magnetism', async () => (await import('./commands/magnetism.js')).registerMagnetism],
+  ['spectrum', async () => (await import('./commands/spectrum.js')).registerSpectrum],
+  ['report', async () => (await import('./commands/report.js')).registerReport],
+  ['demo', async () => (await import('./commands/demo.js')).registerDemo],
+  ['explore', async () => (await import('./commands/explore.js')).registerExplore],
+]);
+
+/**
+ * The command-line program writing to `io`: with only the command `argv` names when its first
+ * word is a command, else with every command.
+ */
+export async function buildProgram(io: Io, argv: readonly string[] = []): Promise<Command> {
   const program = new Command('termsplit')
     .description(
       'Ligand-field analysis of transition-metal ions: terms, cubic levels, diagrams, fits, spin state.',
@@ -35,20 +49,11 @@ export function buildProgram(io: Io): Command {
     .version(VERSION)
     .configureOutput(output(io))
     .exitOverride();
-  for (const register of [
-    registerTerms,
-    registerLevels,
-    registerIons,
-    registerFit,
-    registerDiagram,
-    registerCrossover,
-    registerMagnetism,
-    registerSpectrum,
-    registerReport,
-    registerDemo,
-    registerExplore,
-  ])
-    register(program, io);
+  const named = COMMANDS.get(argv[0] ?? '');
+  const registers = await Promise.all(
+    (named !== undefined ? [named] : [...COMMANDS.values()]).map((load) => load()),
+  );
+  for (const register of registers) register(program, io);
   for (const c of program.commands) c.exitOverride().configureOutput(output(io));
   return program;
 }
@@ -78,7 +83,7 @@ function output(io: Io) {
  * errors print one line on stderr; nothing is written to stdout then.
  */
 export async function run(argv: readonly string[], io: Io): Promise<number> {
-  const program = buildProgram(io);
+  const program = await buildProgram(io, argv);
   if (argv.length === 0) {
     io.out(program.helpInformation());
     return EXIT_OK;

@@ -7,8 +7,7 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { renderGroundMap } from '../../charts/groundMap.js';
-import { type FigureFormat, formatOfPath } from '../../charts/render.js';
+import { type FigureFormat, formatOfPath } from '../../charts/figureFormat.js';
 import {
   type Crossover,
   type CrossoverAnalysis,
@@ -21,7 +20,7 @@ import {
   sampleVerdict,
   TETRAHEDRAL_DELTA_CEILING,
 } from '../../src/analysis/crossover.js';
-import { fittedSample as placeByFit } from '../../src/analysis/fittedSample.js';
+import type { fittedSample as placeByFit } from '../../src/analysis/fittedSample.js';
 import { GROUND_MAP_DEFAULTS, groundStateMap } from '../../src/analysis/groundMap.js';
 import {
   impliedPairingEnergy,
@@ -98,8 +97,8 @@ export function registerCrossover(program: Command, io: Io): void {
     .option('--zeta <cm-1|ion>', 'also μ_eff with spin–orbit coupling beside spin-only (cm⁻¹, or "ion")')
     .option('--zeta-factor <f>', ZETA_FACTOR_HELP)
     .option('--json', 'print one JSON object on stdout')
-    .action((configText: string | undefined, opts: CrossoverCommandOptions) => {
-      io.out(crossoverCommand(configText, opts, io));
+    .action(async (configText: string | undefined, opts: CrossoverCommandOptions) => {
+      io.out(await crossoverCommand(configText, opts, io));
     });
 }
 
@@ -128,7 +127,9 @@ interface FittedSample {
  * Fits the bands at the resolved C/B (library {@link placeByFit}) and puts the best solution's
  * B, C and Dq with their errors in place of given ones, noting where they came from.
  */
-function fittedSample(input: Resolved, bandsText: string): FittedSample {
+async function fittedSample(input: Resolved, bandsText: string): Promise<FittedSample> {
+  // The band fit (and ml-matrix with it) loads only when --bands asks for it.
+  const { fittedSample: placeByFit } = await import('../../src/analysis/fittedSample.js');
   const bands = parseEnergyList(bandsText).map((b) =>
     b.sigma === undefined ? { energy: b.value } : { energy: b.value, sigma: b.sigma },
   );
@@ -350,11 +351,11 @@ interface Report {
 }
 
 /** Builds the command's output (text or JSON) and writes the map if asked; errors leave stdout empty. */
-export function crossoverCommand(
+export async function crossoverCommand(
   configText: string | undefined,
   opts: CrossoverCommandOptions,
   io: Io,
-): string {
+): Promise<string> {
   if (opts.bands !== undefined && (opts.dq !== undefined || opts.B !== undefined || opts.C !== undefined)) {
     throw new InputError(
       '--bands places the sample by a fit: leave out --dq, --B and --C (--cb sets the C/B it holds)',
@@ -368,7 +369,7 @@ export function crossoverCommand(
   const given = resolveInput(configText, opts);
   const format: FigureFormat | undefined = opts.output === undefined ? undefined : formatOfPath(opts.output);
   if (opts.output !== undefined) checkOutputDirectory(resolve(io.cwd, opts.output));
-  const fitted = opts.bands === undefined ? undefined : fittedSample(given, opts.bands);
+  const fitted = opts.bands === undefined ? undefined : await fittedSample(given, opts.bands);
   const input = fitted?.input ?? given;
   const sampleDq = fitted?.dq ?? numberWithSigma('--dq', opts.dq, positive(DQ_LIMIT));
   const { n, geometry, B, C } = input;
@@ -388,7 +389,7 @@ export function crossoverCommand(
   const classroom = B > 0 ? pairingEnergy(n, geometry, B, C) : undefined;
   const coefficients = pairingCoefficients(n, geometry);
   if (opts.output !== undefined && format) {
-    writeFileAtomic(resolve(io.cwd, opts.output), mapBytes(analysis, verdict, format, io));
+    writeFileAtomic(resolve(io.cwd, opts.output), await mapBytes(analysis, verdict, format, io));
   }
   const report: Report = {
     input,
@@ -410,12 +411,12 @@ export function crossoverCommand(
 }
 
 /** The ground-state map of the analysis with the sample marked, as file bytes. */
-function mapBytes(
+async function mapBytes(
   analysis: CrossoverAnalysis,
   verdict: SampleVerdict | undefined,
   format: FigureFormat,
   io: Io,
-): Buffer {
+): Promise<Buffer> {
   const { n, geometry, B } = analysis;
   const bar = progress(io, 'ground-state map');
   const map = groundStateMap(n, {
@@ -425,6 +426,7 @@ function mapBytes(
   });
   bar.end();
   const sigmaDeltaOverB = verdict?.sigmaDeltaOverB;
+  const { renderGroundMap } = await import('../../charts/groundMap.js');
   return renderGroundMap(
     map,
     { format },

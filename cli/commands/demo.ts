@@ -8,8 +8,6 @@ import type { Command } from 'commander';
 import { packageRoot } from '../files.js';
 import { jsonText } from '../format.js';
 import type { Io } from '../io.js';
-import { reportJson, runReport } from '../report/runReport.js';
-import { reportSummary } from '../report/summary.js';
 
 /** The invented demo sheet shipped with the package. */
 export function demoSheet(): string {
@@ -27,6 +25,9 @@ export function registerDemo(program: Command, io: Io): void {
     .option('-o, --output <dir>', `report folder (default: ./${DEFAULT_DEMO_DIR})`)
     .option('--json', 'print the report as one JSON object on stdout')
     .action(async (opts: { output?: string; json?: boolean }) => {
+      // The report draws figures and checks sheets: its modules load only when it runs.
+      const { reportJson, runReport } = await import('../report/runReport.js');
+      const { reportSummary } = await import('../report/summary.js');
       const run = await runReport(
         demoSheet(),
         // The shipped demo sheet names the shipped spectra beside its folder.

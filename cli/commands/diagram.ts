@@ -6,8 +6,8 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { type DiagramChartOptions, renderDiagram } from '../../charts/diagram.js';
-import { type FigureFormat, type FigureOptions, formatOfPath } from '../../charts/render.js';
+import type { DiagramChartOptions } from '../../charts/diagram.js';
+import { type FigureFormat, type FigureOptions, formatOfPath } from '../../charts/figureFormat.js';
 import { type SampleMark, samplePosition } from '../../charts/sampleOverlay.js';
 import { DEFAULT_SWEEP_STEPS } from '../../src/analysis/distortionSweep.js';
 import {
@@ -40,7 +40,7 @@ import {
 import { parseEnergyList } from '../../src/core/units.js';
 import { DOUBLE_GROUP_NOTATION } from '../../src/field/doubleGroup.js';
 import { unicodeLabel, unicodeTerm } from '../../src/field/labels.js';
-import { type DistortionDiagramOptions, distortionDiagramCommand } from '../distorted.js';
+import type { DistortionDiagramOptions } from '../distorted.js';
 import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFilesAtomic } from '../files.js';
 import { fixed, jsonText } from '../format.js';
@@ -125,7 +125,7 @@ export function registerDiagram(program: Command, io: Io): void {
     .option('--to <x>', 'end of the distortion coordinate (ratio: default 0)')
     .option('--steps <n>', 'number of intervals along the distortion', String(DEFAULT_SWEEP_STEPS));
   addFieldOptions(command).action(
-    (configText: string | undefined, opts: DiagramOptions & DistortionDiagramOptions) => {
+    async (configText: string | undefined, opts: DiagramOptions & DistortionDiagramOptions) => {
       if (hasFieldOptions(opts) || opts.distort !== undefined) {
         if (opts.distort === undefined)
           throw new InputError('with a geometry, diagram needs --distort (e.g. ratio:ax or angle)');
@@ -137,10 +137,11 @@ export function registerDiagram(program: Command, io: Io): void {
           );
         }
         const { n, ion } = configOrIon(configText, opts.ion);
-        io.out(distortionDiagramCommand(n, ion, opts, io));
+        const { distortionDiagramCommand } = await import('../distorted.js');
+        io.out(await distortionDiagramCommand(n, ion, opts, io));
         return;
       }
-      io.out(diagramCommand(configText, opts, io));
+      io.out(await diagramCommand(configText, opts, io));
     },
   );
 }
@@ -284,10 +285,10 @@ function sweep(
 }
 
 /** The figure and data files of the diagram, as bytes to write. */
-function diagramFiles(
+async function diagramFiles(
   job: DiagramJob,
   diagram: CorrelationDiagram,
-): { path: string; data: string | Uint8Array }[] {
+): Promise<{ path: string; data: string | Uint8Array }[]> {
   const { ion, eMax, sample } = job;
   const outputs: { path: string; data: string | Uint8Array }[] = [];
   if (job.figurePath !== undefined && job.figureFormat !== undefined) {
@@ -297,6 +298,7 @@ function diagramFiles(
       ...job.view,
       ...(sample ? { sample: { dq: sample.dq, B: sample.B, bands: sample.bands ?? [] } } : {}),
     };
+    const { renderDiagram } = await import('../../charts/diagram.js');
     outputs.push({
       path: job.figurePath,
       data: renderDiagram(diagram, { format: job.figureFormat, ...job.figureSize }, options),
@@ -315,7 +317,11 @@ function diagramFiles(
  * Runs the command and returns what goes on stdout; files are written only once everything has
  * been computed, and removed again if a later one cannot be written, so bad input leaves none.
  */
-export function diagramCommand(configText: string | undefined, opts: DiagramOptions, io: Io): string {
+export async function diagramCommand(
+  configText: string | undefined,
+  opts: DiagramOptions,
+  io: Io,
+): Promise<string> {
   const job = diagramJob(configText, opts, io);
   const { n, ion, geometry, sample, figurePath, dataPath } = job;
   const bar = progress(io, `d${n} ${geometry}: sweeping Δ/B`);
@@ -326,7 +332,7 @@ export function diagramCommand(configText: string | undefined, opts: DiagramOpti
     bar.end();
   }
   const { diagram, spinOrbit } = swept;
-  writeFilesAtomic(diagramFiles(job, diagram));
+  writeFilesAtomic(await diagramFiles(job, diagram));
 
   const cautions = diagramCautions(diagram).map((c) => c.message);
   if (sample) {

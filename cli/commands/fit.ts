@@ -6,7 +6,7 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { formatOfPath } from '../../charts/render.js';
+import { formatOfPath } from '../../charts/figureFormat.js';
 import { DEFAULT_ENERGY_UNIT } from '../../src/core/defaults.js';
 import { InputError } from '../../src/core/errors.js';
 import { findIon } from '../../src/core/ions.js';
@@ -15,7 +15,7 @@ import { parseEnergyList, parseUnit } from '../../src/core/units.js';
 import { fitBands } from '../../src/fit/fitBands.js';
 import type { FitResult } from '../../src/fit/fitTypes.js';
 import { refineFitWithZeta, type ZetaFit } from '../../src/fit/zetaFit.js';
-import { type DistortedFitOptions, distortedFitCommand } from '../distorted.js';
+import type { DistortedFitOptions } from '../distorted.js';
 import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { jsonText } from '../format.js';
@@ -34,7 +34,6 @@ import {
   splitLabels,
 } from '../options.js';
 import { fitJson, fitText } from '../present/fitPresent.js';
-import { fittedDiagram } from '../present/fittedDiagram.js';
 import { zetaFitJson, zetaFitText } from '../present/spinOrbitPresent.js';
 import { ZETA_FACTOR_HELP, zetaOption } from '../zetaOption.js';
 
@@ -124,7 +123,7 @@ export function registerFit(program: Command, io: Io): void {
     .option(...SIZE_OPTION)
     .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout');
-  addFieldOptions(command).action((opts: FitOptions & DistortedFitOptions) => {
+  addFieldOptions(command).action(async (opts: FitOptions & DistortedFitOptions) => {
     if (hasFieldOptions(opts)) {
       for (const [flag, given] of [
         ['--fit-c', opts.fitC],
@@ -138,10 +137,11 @@ export function registerFit(program: Command, io: Io): void {
         if (given !== undefined)
           throw new InputError(`${flag} is for cubic fits: leave it out with a geometry`);
       }
+      const { distortedFitCommand } = await import('../distorted.js');
       io.out(distortedFitCommand(opts, io));
       return;
     }
-    io.out(fitCommand(opts, io));
+    io.out(await fitCommand(opts, io));
   });
 }
 
@@ -195,7 +195,7 @@ export function fitFromOptions(
   };
 }
 
-function fitCommand(opts: FitOptions, io: Io): string {
+async function fitCommand(opts: FitOptions, io: Io): Promise<string> {
   const diagramPath = opts.diagram === undefined ? undefined : resolve(io.cwd, opts.diagram);
   const diagramFormat = opts.diagram === undefined ? undefined : formatOfPath(opts.diagram);
   if (diagramPath !== undefined) checkOutputDirectory(diagramPath);
@@ -211,6 +211,7 @@ function fitCommand(opts: FitOptions, io: Io): string {
   const best = result.solutions[0];
   const spinOrbit = best ? spinOrbitRefinement(opts, result, best) : undefined;
   if (diagramPath !== undefined && diagramFormat !== undefined && best) {
+    const { fittedDiagram } = await import('../present/fittedDiagram.js');
     writeFileAtomic(diagramPath, fittedDiagram(result, best, diagramFormat, ion, size));
   }
   const figureNote =

@@ -6,13 +6,8 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import {
-  DEFAULT_LEVEL_CEILING,
-  DEFAULT_LEVEL_FORBIDDEN,
-  type LevelDiagramOptions,
-  renderLevelDiagram,
-} from '../../charts/levelDiagram.js';
-import { formatOfPath } from '../../charts/render.js';
+import { DEFAULT_LEVEL_CEILING, DEFAULT_LEVEL_FORBIDDEN, formatOfPath } from '../../charts/figureFormat.js';
+import type { LevelDiagramOptions } from '../../charts/levelDiagram.js';
 import { cubicCautions } from '../../src/analysis/cautions.js';
 import { halfIntegerText } from '../../src/atom/terms.js';
 import { BAND_CEILING } from '../../src/core/defaults.js';
@@ -22,7 +17,6 @@ import { cmToEv, cmToNm } from '../../src/core/units.js';
 import type { CubicLevel } from '../../src/field/cubic.js';
 import { unicodeConfiguration, unicodeLabel, unicodeTerm } from '../../src/field/labels.js';
 import { type SpinOrbitResult, solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
-import { distortedLevels } from '../distorted.js';
 import { addFieldOptions, type FieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFileAtomic } from '../files.js';
 import { fixed, ionText, jsonText, listSection, table, unicodeIons } from '../format.js';
@@ -83,8 +77,9 @@ export function registerLevels(program: Command, io: Io): void {
     .option(...SIZE_OPTION)
     .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout');
-  addFieldOptions(command).action((opts: LevelsOptions & FieldOptions) => {
+  addFieldOptions(command).action(async (opts: LevelsOptions & FieldOptions) => {
     if (hasFieldOptions(opts)) {
+      const { distortedLevels } = await import('../distorted.js');
       io.out(distortedLevels(opts, io));
       return;
     }
@@ -93,6 +88,7 @@ export function registerLevels(program: Command, io: Io): void {
     const solved = levelsFromOptions(opts);
     const spinOrbit = spinOrbitFromOptions(opts, solved);
     if (figure !== undefined && format !== undefined) {
+      const { renderLevelDiagram } = await import('../../charts/levelDiagram.js');
       writeFileAtomic(
         figure,
         renderLevelDiagram(solved.result, { format, ...figureSizeOptions(opts) }, levelFigure(opts, solved)),

@@ -7,8 +7,7 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { renderMoments } from '../../charts/moments.js';
-import { formatOfPath } from '../../charts/render.js';
+import { formatOfPath } from '../../charts/figureFormat.js';
 import { spinOnlyMoment } from '../../src/analysis/magnetism.js';
 import {
   DEFAULT_ORBITAL_REDUCTION,
@@ -91,8 +90,8 @@ export function registerMagnetism(program: Command, io: Io): void {
     )
     .option('-o, --output <file>', 'also draw μ_eff and χT against T: .png, .svg or .pdf')
     .option('--json', 'print one JSON object on stdout')
-    .action((opts: MagnetismOptions) => {
-      io.out(magnetismCommand(opts, io));
+    .action(async (opts: MagnetismOptions) => {
+      io.out(await magnetismCommand(opts, io));
     });
 }
 
@@ -118,7 +117,7 @@ function temperatureRange(opts: MagnetismOptions): { tmin: number; tmax: number;
   return { tmin, tmax, steps };
 }
 
-function magnetismCommand(opts: MagnetismOptions, io: Io): string {
+async function magnetismCommand(opts: MagnetismOptions, io: Io): Promise<string> {
   const solved = levelsFromOptions(opts);
   const { result } = solved;
   const ion = opts.ion === undefined ? undefined : findIon(opts.ion);
@@ -160,6 +159,7 @@ function magnetismCommand(opts: MagnetismOptions, io: Io): string {
     const who =
       `${solved.ion ? unicodeIon(solved.ion) : ''} d${result.n} ${result.geometry === 'oct' ? 'Oh' : 'Td'}`.trim();
     const title = `${who}: Dq = ${fixed(result.dq)}, B = ${fixed(result.B)}, ζ = ${fixed(zeta)} cm⁻¹, k = ${k}`;
+    const { renderMoments } = await import('../../charts/moments.js');
     writeFileAtomic(
       figure,
       renderMoments({ title, points: curve, spinOnly }, { format: formatOfPath(opts.output) }),

@@ -9,8 +9,6 @@ import { INPUT_FILE_MAX_TEXT } from '../files.js';
 import { jsonText } from '../format.js';
 import type { Io } from '../io.js';
 import { numberOption } from '../options.js';
-import { reportJson, runReport } from '../report/runReport.js';
-import { reportSummary } from '../report/summary.js';
 
 /** Options of `termsplit report`. */
 export interface ReportOptions {
@@ -51,6 +49,9 @@ export function registerReport(program: Command, io: Io): void {
         ...(jobs !== undefined ? { jobs } : {}),
         allowOutside: opts.allowOutsideFiles === true,
       };
+      // The report draws figures and checks sheets: its modules load only when it runs.
+      const { reportJson, runReport } = await import('../report/runReport.js');
+      const { reportSummary } = await import('../report/summary.js');
       const run = await runReport(sheetPath, job, io);
       io.out(opts.json ? jsonText(reportJson(run.model)) : reportSummary(run));
     });

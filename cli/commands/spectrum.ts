@@ -6,8 +6,8 @@
 
 import { extname, resolve } from 'node:path';
 import type { Command } from 'commander';
-import { formatOfPath } from '../../charts/render.js';
-import { quantityTitle } from '../../charts/spectrum.js';
+import { formatOfPath } from '../../charts/figureFormat.js';
+import { quantityTitle } from '../../charts/style.js';
 import { InputError } from '../../src/core/errors.js';
 import type { Geometry } from '../../src/core/geometry.js';
 import { elementOfIon } from '../../src/core/ions.js';
@@ -63,7 +63,6 @@ import {
 } from '../options.js';
 import { fitJson, fitText } from '../present/fitPresent.js';
 import { levelJson } from '../present/levelPresent.js';
-import { spectrumFigure } from '../present/spectrumFigure.js';
 
 /** Options of `termsplit spectrum`. */
 export interface SpectrumOptions {
@@ -140,8 +139,8 @@ export function registerSpectrum(program: Command, io: Io): void {
     .option(...SIZE_OPTION)
     .option(...DPI_OPTION)
     .option('--json', 'print one JSON object on stdout')
-    .action((file: string, opts: SpectrumOptions) => {
-      io.out(spectrumCommand(file, opts, io));
+    .action(async (file: string, opts: SpectrumOptions) => {
+      io.out(await spectrumCommand(file, opts, io));
     });
 }
 
@@ -155,7 +154,7 @@ export interface SpectrumReport extends SpectrumAnalysis {
 }
 
 /** Runs the command and returns its stdout text; the figure, if asked for, is written first. */
-export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): string {
+export async function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): Promise<string> {
   if (opts.listColumns) return columnsCommand(file, opts, io);
   const job = spectrumJob(opts);
   const bar = progress(io, `spectrum: ${messageLine(file)}`);
@@ -163,34 +162,40 @@ export function spectrumCommand(file: string, opts: SpectrumOptions, io: Io): st
   try {
     const text = readTextFile(resolve(io.cwd, file));
     return isAllColumns(opts.yCol)
-      ? everyColumnCommand(file, text, job, opts, io, bar)
-      : oneSpectrumCommand(file, text, job, opts, io);
+      ? await everyColumnCommand(file, text, job, opts, io, bar)
+      : await oneSpectrumCommand(file, text, job, opts, io);
   } finally {
     bar.end();
   }
 }
 
 /** One spectrum: its analysis, figure, and text or JSON. */
-function oneSpectrumCommand(
+async function oneSpectrumCommand(
   file: string,
   text: string,
   job: ReturnType<typeof spectrumJob>,
   opts: SpectrumOptions,
   io: Io,
-): string {
+): Promise<string> {
   const report: SpectrumReport = {
     file,
     ...inFile(file, () => analyseSpectrum(text, { ...job.options, fileName: file })),
     ...(job.predicted ? { predicted: job.predicted } : {}),
     ...(opts.output !== undefined ? { figure: opts.output } : {}),
   };
-  writeFigures([report], file, opts, io);
+  await writeFigures([report], file, opts, io);
   return opts.json ? jsonText(reportJson(report)) : reportText(report, opts);
 }
 
 /** Writes the overlay figure of each report that names one, all or none. */
-function writeFigures(reports: readonly SpectrumReport[], file: string, opts: SpectrumOptions, io: Io): void {
+async function writeFigures(
+  reports: readonly SpectrumReport[],
+  file: string,
+  opts: SpectrumOptions,
+  io: Io,
+): Promise<void> {
   if (opts.output === undefined) return;
+  const { spectrumFigure } = await import('../present/spectrumFigure.js');
   const format = formatOfPath(resolve(io.cwd, opts.output));
   const size = figureSizeOptions(opts);
   writeFilesAtomic(
@@ -219,14 +224,14 @@ function columnFigure(output: string, column: number): string {
 }
 
 /** `--y-col all`: one analysis per y column, each with its own text, JSON entry and figure. */
-function everyColumnCommand(
+async function everyColumnCommand(
   file: string,
   text: string,
   job: ReturnType<typeof spectrumJob>,
   opts: SpectrumOptions,
   io: Io,
   bar: ReturnType<typeof progress>,
-): string {
+): Promise<string> {
   const results = inFile(file, () =>
     analyseEveryColumn(text, { ...job.options, fileName: file }, (done, total) => bar.update(done, total)),
   );
@@ -241,7 +246,7 @@ function everyColumnCommand(
           ...(opts.output !== undefined ? { figure: columnFigure(opts.output, c.column) } : {}),
         } satisfies SpectrumReport),
   );
-  writeFigures(
+  await writeFigures(
     reports.filter((r): r is SpectrumReport => 'raw' in r),
     file,
     opts,

@@ -4,7 +4,7 @@
  */
 
 import { renderDiagram } from '../../charts/diagram.js';
-import type { FigureFormat, FigureOptions } from '../../charts/render.js';
+import type { FigureFormat, FigureOptions } from '../../charts/figureFormat.js';
 import { DEFAULT_MAX_DELTA_OVER_B, sweepDiagram } from '../../src/analysis/sweep.js';
 import { InputError } from '../../src/core/errors.js';
 import type { FitResult, FitSolution } from '../../src/fit/fitTypes.js';

@@ -3,7 +3,7 @@
  * baseline and the marked transitions — shared by the spectrum command and the report.
  */
 
-import type { FigureFormat, FigureOptions } from '../../charts/render.js';
+import type { FigureFormat, FigureOptions } from '../../charts/figureFormat.js';
 import { renderSpectrumFigure } from '../../charts/spectrum.js';
 import type { SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
 

@@ -72,7 +72,8 @@ export function groundStateCrossings(input: CrossingInput): GroundCrossing[] {
     `scan points ${scanPoints}: expected a whole number ≥ 2`,
   );
   const sign = geometry === 'oct' ? 1 : -1;
-  const solve = (dq: number) => cubicLevels(n, sign * dq, B, C, geometry);
+  // Energies and labels are all the search needs: eigenvalues only.
+  const solve = (dq: number) => cubicLevels(n, sign * dq, B, C, geometry, false);
   const maxDq = (maxDeltaOverB * B) / 10;
   const out: GroundCrossing[] = [];
   let prevDq = 0;

@@ -197,7 +197,8 @@ export function sweepDiagram(n: number, options: SweepOptions = {}): Correlation
   }[] = [];
   let strongField = new Map<string, string>();
   xs.forEach((x, i) => {
-    const result = cubicLevels(n, (sign * x * B) / 10, B, C, geometry);
+    // Eigenvalues alone, except at the last point, whose strong-field make-up names the curves.
+    const result = cubicLevels(n, (sign * x * B) / 10, B, C, geometry, i === xs.length - 1);
     if (i === 0) {
       for (const l of result.levels) {
         index.set(l.label, curves.length);

@@ -8,8 +8,8 @@
 import { freeIonTerms } from '../atom/freeIon.js';
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
-import { bilinear, clusterSorted, column, symmetricEigen } from '../numeric/eigen.js';
-import { symmetricEigenvalues } from '../numeric/eigenvalues.js';
+import { bilinear, clusterSorted, column, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
+import { tridiagonalQlValues } from '../numeric/tridiagonalQl.js';
 import { type AdaptedBlock, adaptedBlocks } from './cubicBasis.js';
 import { configurationText, type Geometry, irrepName, stateSymbol } from './labels.js';
 import { branchTerm, CUBIC_IRREPS, type CubicIrrep, decomposeCubic, IRREP_DIMENSION } from './symmetry.js';
@@ -122,6 +122,8 @@ export const MAX_PARAMETER = 1e6;
 
 /** Refuses a Dq, B or C beyond {@link MAX_PARAMETER}. */
 export function checkMagnitudes(dq: number, B: number, C: number): void {
+  // Checked at every point of a sweep: the common case returns before building the messages.
+  if (Math.abs(dq) <= MAX_PARAMETER && Math.abs(B) <= MAX_PARAMETER && Math.abs(C) <= MAX_PARAMETER) return;
   for (const [name, v] of [
     ['Dq', dq],
     ['Racah B', B],
@@ -143,18 +145,41 @@ interface RawLevel {
  * named for `geometry`: each symmetry-adapted block (k, S, C₂′ parity) is diagonalised, equal
  * eigenvalues across blocks are gathered into degenerate levels, and each level's irrep is read
  * from how its components fall into the blocks.
+ *
+ * With `vectors` false (sweeps that need energies and labels alone) the blocks are diagonalised
+ * for their eigenvalues only — the very same numbers — and the levels carry no strong-field
+ * make-up (`configurations` empty); a block's eigenvectors are then computed only where the C₃
+ * trace must settle a label.
  */
-export function cubicLevels(n: number, dqOct: number, B: number, C: number, geometry: Geometry): CubicResult {
+export function cubicLevels(
+  n: number,
+  dqOct: number,
+  B: number,
+  C: number,
+  geometry: Geometry,
+  vectors = true,
+): CubicResult {
   checkMagnitudes(dqOct, B, C);
   const blocks = adaptedBlocks(n);
   const pool: { block: number; j: number; value: number }[] = [];
-  const eigs = blocks.map((block, bi) => {
-    const eig = symmetricEigen(blockMatrix(block, dqOct, B, C), block.size);
-    eig.values.forEach((value, j) => {
+  const matrices: Float64Array[] = [];
+  const eigs: (SymmetricEigen | undefined)[] = blocks.map((block, bi) => {
+    const m = block.size;
+    const h = blockMatrix(block, dqOct, B, C);
+    matrices.push(h);
+    const eig = vectors || m < 2 ? symmetricEigen(h, m) : undefined;
+    const values = eig ? eig.values : tridiagonalQlValues(h, m);
+    values.forEach((value, j) => {
       pool.push({ block: bi, j, value });
     });
     return eig;
   });
+  const eigOf = (bi: number): SymmetricEigen | undefined => {
+    const h = matrices[bi];
+    const block = blocks[bi];
+    if (eigs[bi] === undefined && h && block) eigs[bi] = symmetricEigen(h, block.size);
+    return eigs[bi];
+  };
   pool.sort((a, b) => a.value - b.value);
   const values = pool.map((p) => p.value);
   let scale = 1;
@@ -186,7 +211,7 @@ export function cubicLevels(n: number, dqOct: number, B: number, C: number, geom
           let trace = 0;
           for (const it of items) {
             const block = blocks[it.block];
-            const eig = eigs[it.block];
+            const eig = block?.c3Sum ? eigOf(it.block) : undefined;
             if (!block?.c3Sum || !eig) continue;
             const v = column(eig.vectors, eig.size, it.j);
             trace += bilinear(v, block.c3Sum, v);
@@ -195,7 +220,7 @@ export function cubicLevels(n: number, dqOct: number, B: number, C: number, geom
         },
       );
       const weights = [0, 0, 0, 0, 0];
-      for (const it of items) {
+      for (const it of vectors ? items : []) {
         const block = blocks[it.block];
         const eig = eigs[it.block];
         if (!block || !eig) continue;
@@ -234,7 +259,7 @@ export function groundSpin(n: number, dqOct: number, B: number, C: number): numb
   let lowest = Number.POSITIVE_INFINITY;
   let S = 0;
   for (const block of adaptedBlocks(n)) {
-    const v = symmetricEigenvalues(blockMatrix(block, dqOct, B, C), block.size)[0];
+    const v = tridiagonalQlValues(blockMatrix(block, dqOct, B, C), block.size)[0];
     if (v !== undefined && v < lowest) {
       lowest = v;
       S = block.S;

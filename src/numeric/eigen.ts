@@ -1,10 +1,10 @@
 /**
- * Dense linear algebra for the solvers: symmetric eigen-decomposition (through ml-matrix),
+ * Dense linear algebra for the solvers: symmetric eigen-decomposition (tridiagonalQl.ts),
  * congruence transforms and bilinear forms, resolution of a degenerate subspace by a second
  * operator, and clustering of sorted eigenvalues into degenerate runs.
  */
 
-import { EigenvalueDecomposition } from 'ml-matrix';
+import { tridiagonalQl } from './tridiagonalQl.js';
 
 /** Eigenvalues (ascending) and orthonormal eigenvectors of a real symmetric matrix. */
 export interface SymmetricEigen {
@@ -15,23 +15,13 @@ export interface SymmetricEigen {
 }
 
 /**
- * Diagonalises a real symmetric row-major matrix with ml-matrix's Householder
- * tridiagonalisation and QL iteration (tred2/tql2), which return the pairs sorted by eigenvalue.
+ * Diagonalises a real symmetric row-major matrix by Householder tridiagonalisation and QL
+ * iteration (tred2/tql2, the same arithmetic as ml-matrix's), pairs sorted by eigenvalue.
  */
 export function symmetricEigen(a: Float64Array, n: number): SymmetricEigen {
   if (n === 0) return { size: 0, values: new Float64Array(0), vectors: new Float64Array(0) };
   if (n === 1) return { size: 1, values: Float64Array.of(a[0] ?? 0), vectors: Float64Array.of(1) };
-  // Row views, not copies: ml-matrix wraps a 2-D array-like without copying it.
-  const rows: Float64Array[] = [];
-  for (let i = 0; i < n; i++) rows.push(a.subarray(i * n, (i + 1) * n));
-  const evd = new EigenvalueDecomposition(rows, { assumeSymmetric: true });
-  // tql2 returns the eigenvalues sorted ascending, with their vectors.
-  const values = Float64Array.from(evd.realEigenvalues);
-  const V = evd.eigenvectorMatrix;
-  const vectors = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) vectors[i * n + j] = V.get(i, j);
-  }
+  const { values, vectors } = tridiagonalQl(a, n);
   return { size: n, values, vectors };
 }
 

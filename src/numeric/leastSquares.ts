@@ -330,20 +330,40 @@ export function fitCurve(
   options: CurveFitOptions = {},
 ): CurveFitResult {
   const P = p0.length;
+  const n = x.length;
   const g = new Float64Array(P);
+  // The model gives its gradient with every value, so each evaluation keeps it: the Jacobian
+  // asked for next, at the point just evaluated, is then read back instead of computed again.
+  let lastQ: Float64Array | undefined;
+  let lastGradients = new Float64Array(0);
+  const evaluate = (q: Float64Array, r: number[] | undefined, gradients: Float64Array) => {
+    for (let i = 0; i < n; i++) {
+      g.fill(0);
+      const v = model(q, x[i] as number, g);
+      if (r) r[i] = (y[i] as number) - v;
+      gradients.set(g, i * P);
+    }
+  };
   const residuals = (p: readonly number[]) => {
     const q = Float64Array.from(p);
-    const r = new Array<number>(x.length);
-    for (let i = 0; i < x.length; i++) r[i] = (y[i] as number) - model(q, x[i] as number, g);
+    const r = new Array<number>(n);
+    lastGradients = new Float64Array(n * P);
+    evaluate(q, r, lastGradients);
+    lastQ = q;
     return r;
   };
   const jacobian = (p: readonly number[]) => {
     const q = Float64Array.from(p);
+    let gradients = lastGradients;
+    if (!lastQ || q.some((v, k) => v !== lastQ?.[k])) {
+      gradients = new Float64Array(n * P);
+      evaluate(q, undefined, gradients);
+    }
     const rows: number[][] = [];
-    for (let i = 0; i < x.length; i++) {
-      g.fill(0);
-      model(q, x[i] as number, g);
-      rows.push(Array.from(g, (v) => -v));
+    for (let i = 0; i < n; i++) {
+      const row = new Array<number>(P);
+      for (let k = 0; k < P; k++) row[k] = -(gradients[i * P + k] as number);
+      rows.push(row);
     }
     return rows;
   };

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { quantityTitle, renderSpectrumFigure, spectrumChart } from '../../charts/spectrum.js';
+import { renderSpectrumFigure, spectrumChart } from '../../charts/spectrum.js';
+import { quantityTitle } from '../../charts/style.js';
 import { findBands } from '../../src/index.js';
 import { syntheticSpectrum } from '../../src/spectra/gaussianBands.js';
 

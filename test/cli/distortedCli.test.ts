@@ -65,8 +65,8 @@ describe('distorted levels, fit and diagram from options', () => {
     expect(json.group).toBe('D4h');
   });
 
-  it('distortionDiagramCommand writes the figure and CSV of the octahedron-to-square-plane path', () => {
-    const text = distortionDiagramCommand(
+  it('distortionDiagramCommand writes the figure and CSV of the octahedron-to-square-plane path', async () => {
+    const text = await distortionDiagramCommand(
       8,
       findIon('Ni2+'),
       {

@@ -1,0 +1,71 @@
+/**
+ * Guards the start-up of the command line: reads the static import graph of the sources (dynamic
+ * `await import()` is not followed) and checks that a command that prints text or JSON loads no
+ * figure stack (canvas, chart.js), no spectrum reader and no sheet schema until it needs them.
+ */
+import { readFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { ROOT } from '../cliRunner.js';
+
+/** `import … from '…'` and `export … from '…'` that load at run time (not `import type`), and bare `import '…'`. */
+const STATIC_IMPORT =
+  /^\s*(?:import|export)\s+(?!type\b)[^'"`;]*?\bfrom\s+'([^']+)'|^\s*import\s+'([^']+)'/gm;
+
+/** Every package a source file loads, following its relative static imports. */
+function staticPackages(entries: readonly string[]): Set<string> {
+  const seen = new Set<string>();
+  const packages = new Set<string>();
+  const stack = entries.map((e) => resolve(ROOT, e));
+  while (stack.length > 0) {
+    const file = stack.pop() as string;
+    if (seen.has(file)) continue;
+    seen.add(file);
+    for (const m of readFileSync(file, 'utf8').matchAll(STATIC_IMPORT)) {
+      const spec = m[1] ?? m[2] ?? '';
+      if (spec.startsWith('.')) stack.push(resolve(dirname(file), spec.replace(/\.js$/, '.ts')));
+      else if (!spec.startsWith('node:'))
+        packages.add(
+          spec.startsWith('@') ? spec.split('/').slice(0, 2).join('/') : (spec.split('/')[0] ?? spec),
+        );
+    }
+  }
+  return packages;
+}
+
+const FIGURES = ['@napi-rs/canvas', 'chart.js'];
+const READERS = ['jcampconverter', 'ml-spectra-processing', 'zod'];
+
+describe('start-up: what a command loads before it runs', () => {
+  it('cli/main.ts with cli/program.ts statically loads commander and no command', () => {
+    expect([...staticPackages(['cli/main.ts'])]).toEqual(['commander']);
+    expect(readFileSync(resolve(ROOT, 'cli/program.ts'), 'utf8')).not.toMatch(/^import .*commands\//m);
+  });
+
+  for (const command of [
+    'terms',
+    'levels',
+    'ions',
+    'fit',
+    'diagram',
+    'crossover',
+    'magnetism',
+    'report',
+    'demo',
+  ]) {
+    it(`termsplit ${command} loads no figure stack, spectrum reader or sheet schema before it runs`, () => {
+      const loaded = staticPackages(['cli/main.ts', `cli/commands/${command}.ts`]);
+      for (const heavy of [...FIGURES, ...READERS]) expect(loaded).not.toContain(heavy);
+    });
+  }
+
+  it('termsplit spectrum loads the figure stack only when it draws', () => {
+    const loaded = staticPackages(['cli/main.ts', 'cli/commands/spectrum.ts']);
+    for (const heavy of [...FIGURES, 'zod']) expect(loaded).not.toContain(heavy);
+  });
+
+  it('the import graph reader finds the figure stack where it is loaded', () => {
+    expect(staticPackages(['charts/diagram.ts'])).toContain('@napi-rs/canvas');
+    expect(staticPackages(['cli/report/analyse.ts'])).toContain('chart.js');
+  });
+});
