@@ -13,8 +13,6 @@ import { DEFAULT_ENERGY_UNIT } from '../../src/core/defaults.js';
 import { InputError } from '../../src/core/errors.js';
 import { B_LIMIT, DQ_LIMIT } from '../../src/core/limits.js';
 import { parseEnergyList, parseUnit } from '../../src/core/units.js';
-import { explorerHtml } from '../explorerPage.js';
-import { sampleOfOptions, sampleOfResult, spectrumOfFile } from '../explorerSamples.js';
 import { writeFileAtomic } from '../files.js';
 import { jsonText, messageLine } from '../format.js';
 import type { Io } from '../io.js';
@@ -26,8 +24,6 @@ import {
   numberOption,
   ratioChoice,
 } from '../options.js';
-import { analyseSample } from '../report/analyse.js';
-import { readSheet, slugs } from '../report/runReport.js';
 import { ZETA_FACTOR_HELP, ZETA_HELP, zetaOption } from '../zetaOption.js';
 
 /** The page's file name unless `-o` gives one. */
@@ -84,8 +80,10 @@ export function registerExplore(program: Command, io: Io): void {
     .option('--json', 'print one JSON object on stdout')
     .action(async (opts: ExploreOptions) => {
       const port = numberOption('--serve', opts.serve, PORT_LIMIT);
-      const samples = opts.sheet === undefined ? [optionSample(opts, io.cwd)] : sheetSamples(opts, io);
+      const samples =
+        opts.sheet === undefined ? [await optionSample(opts, io.cwd)] : await sheetSamples(opts, io);
       const data: ExplorerData = { title: pageTitle(opts, samples), samples };
+      const { explorerHtml } = await import('../explorerPage.js');
       const html = explorerHtml(data);
       const path = resolve(io.cwd, opts.output ?? DEFAULT_EXPLORER_FILE);
       writeFileAtomic(path, html);
@@ -116,8 +114,9 @@ function pageTitle(opts: ExploreOptions, samples: readonly ExplorerSample[]): st
   return `termsplit explorer — ${samples[0]?.name ?? ''}`;
 }
 
-/** The one sample of the options. */
-function optionSample(opts: ExploreOptions, cwd: string): ExplorerSample {
+/** The one sample of the options (the fit and spectrum readers load here, not at start-up). */
+async function optionSample(opts: ExploreOptions, cwd: string): Promise<ExplorerSample> {
+  const { sampleOfOptions, spectrumOfFile } = await import('../explorerSamples.js');
   const choice = ionOrCount(opts.ion, opts.d);
   const geometry = geometryOption(opts.geometry);
   const dq = numberOption('--dq', opts.dq, DQ_LIMIT);
@@ -143,12 +142,20 @@ function optionSample(opts: ExploreOptions, cwd: string): ExplorerSample {
   });
 }
 
-/** Every sample of the sheet that could be fitted (the others are named on stderr). */
-function sheetSamples(opts: ExploreOptions, io: Io): ExplorerSample[] {
+/**
+ * Every sample of the sheet that could be fitted (the others are named on stderr). The sheet
+ * schema, the figure stack of the analysis and the readers load here, not at start-up.
+ */
+async function sheetSamples(opts: ExploreOptions, io: Io): Promise<ExplorerSample[]> {
   for (const o of ['ion', 'd', 'dq', 'B', 'cb', 'zeta', 'bands', 'spectrum'] as const) {
     if (opts[o] !== undefined)
       throw new InputError(`--${o} goes with a single sample: leave it out with --sheet`);
   }
+  const [{ sampleOfResult, spectrumOfFile }, { analyseSample }, { readSheet, slugs }] = await Promise.all([
+    import('../explorerSamples.js'),
+    import('../report/analyse.js'),
+    import('../report/runReport.js'),
+  ]);
   const { sheet, problems, sheetDir } = readSheet(opts.sheet ?? '', io.cwd, opts.allowOutsideFiles === true);
   const names = slugs(sheet.samples.map((s) => s.name));
   const samples: ExplorerSample[] = [];

@@ -52,12 +52,30 @@ describe('start-up: what a command loads before it runs', () => {
     'magnetism',
     'report',
     'demo',
+    'explore',
   ]) {
     it(`termsplit ${command} loads no figure stack, spectrum reader or sheet schema before it runs`, () => {
       const loaded = staticPackages(['cli/main.ts', `cli/commands/${command}.ts`]);
       for (const heavy of [...FIGURES, ...READERS]) expect(loaded).not.toContain(heavy);
     });
   }
+
+  it('termsplit --help (every command registered) loads no figure stack, reader or sheet schema', () => {
+    const commands = [
+      'terms',
+      'levels',
+      'ions',
+      'fit',
+      'diagram',
+      'crossover',
+      'magnetism',
+      'report',
+      'demo',
+      'explore',
+    ];
+    const loaded = staticPackages(['cli/main.ts', ...commands.map((c) => `cli/commands/${c}.ts`)]);
+    for (const heavy of [...FIGURES, ...READERS]) expect(loaded).not.toContain(heavy);
+  });
 
   it('termsplit spectrum loads the figure stack only when it draws', () => {
     const loaded = staticPackages(['cli/main.ts', 'cli/commands/spectrum.ts']);
