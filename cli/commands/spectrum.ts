@@ -23,21 +23,27 @@ import { cmToNm } from '../../src/core/units.js';
 import { unicodeLabel } from '../../src/field/labels.js';
 import type { BaselineKind } from '../../src/spectra/bandDecomposition.js';
 import type { FoundBand } from '../../src/spectra/bandFinding.js';
-import { DEFAULT_BASELINE, DEFAULT_MAX_BANDS, DEFAULT_MIN_FWHM } from '../../src/spectra/bandFinding.js';
 import { POSITION_WIDTH_FRACTION } from '../../src/spectra/bandObservations.js';
+import {
+  DEFAULT_BASELINE,
+  DEFAULT_MAX_BANDS,
+  DEFAULT_MIN_FWHM,
+} from '../../src/spectra/bandSearchDefaults.js';
 import { parseRange } from '../../src/spectra/energyRange.js';
-import type { SpectrumAnalysis } from '../../src/spectra/spectrumAnalysis.js';
+import type {
+  ColumnAnalysis,
+  SettingNames,
+  SpectrumAnalysis,
+  SpectrumAnalysisOptions,
+  SpectrumFitRequest,
+} from '../../src/spectra/spectrumAnalysis.js';
 import {
   ALL_COLUMNS,
-  analyseEveryColumn,
-  analyseSpectrum,
-  type ColumnAnalysis,
+  DEFAULT_X_COLUMN,
+  DEFAULT_Y_COLUMN,
   isAllColumns,
-  type SettingNames,
-  type SpectrumAnalysisOptions,
-  type SpectrumFitRequest,
-} from '../../src/spectra/spectrumAnalysis.js';
-import { DEFAULT_X_COLUMN, DEFAULT_Y_COLUMN, spectrumColumns } from '../../src/spectra/spectrumText.js';
+  spectrumColumns,
+} from '../../src/spectra/spectrumText.js';
 import {
   parseXUnit,
   parseYUnit,
@@ -177,6 +183,7 @@ async function oneSpectrumCommand(
   opts: SpectrumOptions,
   io: Io,
 ): Promise<string> {
+  const { analyseSpectrum } = await import('../../src/spectra/spectrumAnalysis.js');
   const report: SpectrumReport = {
     file,
     ...inFile(file, () => analyseSpectrum(text, { ...job.options, fileName: file })),
@@ -232,6 +239,7 @@ async function everyColumnCommand(
   io: Io,
   bar: ReturnType<typeof progress>,
 ): Promise<string> {
+  const { analyseEveryColumn } = await import('../../src/spectra/spectrumAnalysis.js');
   const results = inFile(file, () =>
     analyseEveryColumn(text, { ...job.options, fileName: file }, (done, total) => bar.update(done, total)),
   );

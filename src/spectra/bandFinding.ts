@@ -35,6 +35,13 @@ import {
   intensityRange,
   oscillatorStrength,
 } from './bandIntensity.js';
+import {
+  DEFAULT_BASELINE,
+  DEFAULT_MAX_BANDS,
+  DEFAULT_MIN_FWHM,
+  DEFAULT_MIN_RELATIVE_HEIGHT,
+  DEFAULT_SIGNIFICANCE,
+} from './bandSearchDefaults.js';
 import { GAUSSIAN_AREA_FACTOR, type GaussianBand, type LinearBaseline } from './gaussianBands.js';
 
 export type { BaselineKind } from './bandDecomposition.js';
@@ -60,16 +67,13 @@ export interface BandFindingOptions {
   readonly geometry?: Geometry;
 }
 
-/** Default narrowest FWHM looked for, cm⁻¹. */
-export const DEFAULT_MIN_FWHM = 250;
-/** Default largest number of bands inside the window. */
-export const DEFAULT_MAX_BANDS = 8;
-/** Default smallest band height relative to the tallest. */
-export const DEFAULT_MIN_RELATIVE_HEIGHT = 0.02;
-/** Default significance, in noise standard deviations. */
-export const DEFAULT_SIGNIFICANCE = 5;
-/** Default baseline. */
-export const DEFAULT_BASELINE: BaselineKind = 'linear';
+export {
+  DEFAULT_BASELINE,
+  DEFAULT_MAX_BANDS,
+  DEFAULT_MIN_FWHM,
+  DEFAULT_MIN_RELATIVE_HEIGHT,
+  DEFAULT_SIGNIFICANCE,
+} from './bandSearchDefaults.js';
 
 /**
  * Bands narrower than this (FWHM, cm⁻¹) are flagged as possibly spin-forbidden: transitions

@@ -33,7 +33,13 @@ import {
 import type { RawSpectrum } from './rawSpectrum.js';
 import { fitFoundBands } from './spectrumFit.js';
 import { isJcamp, parseJcampSpectrum } from './spectrumJcamp.js';
-import { type ColumnChoice, parseSpectrumText, spectrumColumns } from './spectrumText.js';
+import {
+  ALL_COLUMNS,
+  type ColumnChoice,
+  isAllColumns,
+  parseSpectrumText,
+  spectrumColumns,
+} from './spectrumText.js';
 import type { SpectrumXUnit, SpectrumYUnit } from './spectrumUnits.js';
 
 /** The ligand-field fit asked for: the ion or dⁿ, and how C/B and the spin are handled. */
@@ -72,13 +78,7 @@ export const PLAIN_SETTING_NAMES: SettingNames = {
   yColumn: 'the y column',
 };
 
-/** The y-column choice that reads every column but x as a spectrum of its own. */
-export const ALL_COLUMNS = 'all';
-
-/** Whether a column choice is {@link ALL_COLUMNS}. */
-export function isAllColumns(choice: ColumnChoice | undefined): boolean {
-  return typeof choice === 'string' && choice.trim().toLowerCase() === ALL_COLUMNS;
-}
+export { ALL_COLUMNS, isAllColumns } from './spectrumText.js';
 
 /**
  * A band lies at a predicted level when it is within this many standard uncertainties of it:

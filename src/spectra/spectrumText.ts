@@ -13,6 +13,14 @@ import { xUnitFromLabel, yUnitFromLabel } from './spectrumUnits.js';
 /** A column chosen by its 1-based number or by (part of) its header name. */
 export type ColumnChoice = number | string;
 
+/** The y-column choice that reads every column but x as a spectrum of its own. */
+export const ALL_COLUMNS = 'all';
+
+/** Whether a column choice is {@link ALL_COLUMNS}. */
+export function isAllColumns(choice: ColumnChoice | undefined): boolean {
+  return typeof choice === 'string' && choice.trim().toLowerCase() === ALL_COLUMNS;
+}
+
 /** Options of {@link parseSpectrumText}. */
 export interface SpectrumTextOptions {
   /** The x column. @default 1 */
