@@ -19,29 +19,64 @@ export function rotateDeterminants(
 ): Float64Array {
   const n = block.masks.length;
   const out = new Float64Array(n * n);
+  const columns = nonzeroColumns(U, width);
+  // Partial determinants are kept dense by mask (2^width slots, re and im) with their masks listed
+  // in the order first reached, so the sums run in a fixed order without a Map per step.
+  const size = 1 << width;
+  let re = new Float64Array(size);
+  let im = new Float64Array(size);
+  let nextRe = new Float64Array(size);
+  let nextIm = new Float64Array(size);
+  const seen = new Uint8Array(size);
   block.masks.forEach((mask, col) => {
-    let vec = new Map<number, Complex>([[0, { re: 1, im: 0 }]]);
+    let keys = [0];
+    re[0] = 1;
+    im[0] = 0;
     for (let p = width - 1; p >= 0; p--) {
       if (!(mask & (1 << p))) continue;
-      const next = new Map<number, Complex>();
-      for (const [partial, c] of vec) {
-        for (let q = 0; q < width; q++) {
-          const u = U[q]?.[p];
-          if (!u || (u.re === 0 && u.im === 0) || partial & (1 << q)) continue;
+      const next: number[] = [];
+      const column = columns[p] ?? [];
+      for (const partial of keys) {
+        const cRe = re[partial] as number;
+        const cIm = im[partial] as number;
+        for (const { q, u } of column) {
+          if (partial & (1 << q)) continue;
           const sign = parity(partial, q);
           const target = partial | (1 << q);
-          const acc = next.get(target) ?? { re: 0, im: 0 };
-          acc.re += sign * (c.re * u.re - c.im * u.im);
-          acc.im += sign * (c.re * u.im + c.im * u.re);
-          next.set(target, acc);
+          if (!seen[target]) {
+            seen[target] = 1;
+            nextRe[target] = 0;
+            nextIm[target] = 0;
+            next.push(target);
+          }
+          nextRe[target] = (nextRe[target] as number) + sign * (cRe * u.re - cIm * u.im);
+          nextIm[target] = (nextIm[target] as number) + sign * (cRe * u.im + cIm * u.re);
         }
       }
-      vec = next;
+      for (const target of next) seen[target] = 0;
+      [re, nextRe] = [nextRe, re];
+      [im, nextIm] = [nextIm, im];
+      keys = next;
     }
-    for (const [target, c] of vec) {
+    for (const target of keys) {
       const row = block.index.get(target);
-      if (row !== undefined) out[row * n + col] = c.re;
+      if (row !== undefined) out[row * n + col] = re[target] as number;
     }
   });
   return out;
+}
+
+/** For each spin-orbital p, the nonzero U[q][p] with their q, in increasing q. */
+function nonzeroColumns(
+  U: readonly (readonly Complex[])[],
+  width: number,
+): { readonly q: number; readonly u: Complex }[][] {
+  return Array.from({ length: width }, (_, p) => {
+    const column: { q: number; u: Complex }[] = [];
+    for (let q = 0; q < width; q++) {
+      const u = U[q]?.[p];
+      if (u && (u.re !== 0 || u.im !== 0)) column.push({ q, u });
+    }
+    return column;
+  });
 }
