@@ -49,6 +49,11 @@ export interface LeastSquaresOptions {
   readonly exactSumOfSquares?: number;
   /** Starting damping, relative to diag(JᵀJ). @default 1e-3 */
   readonly initialDamping?: number;
+  /**
+   * Hold a parameter that sits on a bound while the descent direction points out of the box
+   * (see heldAtBounds) instead of solving for it and clamping the step. @default false
+   */
+  readonly holdAtBounds?: boolean;
 }
 
 /** Defaults of {@link LeastSquaresOptions}. */
@@ -59,6 +64,7 @@ export const LEAST_SQUARES_DEFAULTS = {
   gradientTolerance: 1e-10,
   exactSumOfSquares: 0,
   initialDamping: 1e-3,
+  holdAtBounds: false,
 } as const;
 
 /** A least-squares problem: minimise Σ rᵢ(p)². */
@@ -151,12 +157,42 @@ function dampedStep(
   g: readonly number[],
   mu: number,
   scale: readonly number[],
+  held: ReadonlySet<number>,
 ): number[] | undefined {
   const damped = A.clone();
   for (let j = 0; j < g.length; j++) damped.set(j, j, A.get(j, j) + mu * (scale[j] ?? 1));
+  for (const j of held) {
+    for (let k = 0; k < g.length; k++) {
+      damped.set(j, k, 0);
+      damped.set(k, j, 0);
+    }
+    damped.set(j, j, 1);
+  }
   const chol = new CholeskyDecomposition(damped);
   if (!chol.isPositiveDefinite()) return undefined;
-  return chol.solve(Matrix.columnVector(g.map((x) => -x))).to1DArray();
+  return chol.solve(Matrix.columnVector(g.map((x, j) => (held.has(j) ? 0 : -x)))).to1DArray();
+}
+
+/** No parameter held. */
+const NONE_HELD: ReadonlySet<number> = new Set();
+
+/**
+ * The parameters that sit on a bound while the descent direction −g points out of the box. They
+ * are held for the step: a step solved with them free and then clamped is not a descent step of
+ * the others, and the damping then climbs while the fit crawls (a band pinned at its widest).
+ */
+function heldAtBounds(
+  p: readonly number[],
+  g: readonly number[],
+  lower: readonly number[],
+  upper: readonly number[],
+): Set<number> {
+  const held = new Set<number>();
+  p.forEach((x, j) => {
+    const gj = g[j] ?? 0;
+    if ((x <= (lower[j] ?? -Infinity) && gj > 0) || (x >= (upper[j] ?? Infinity) && gj < 0)) held.add(j);
+  });
+  return held;
 }
 
 /** Whether every component of `step` is below the relative-plus-absolute step tolerance at `p`. */
@@ -219,9 +255,10 @@ export function levenbergMarquardt(
     if (cosine <= o.gradientTolerance) return finish('small-gradient');
     // Marquardt's scaling; a parameter no residual depends on gets a unit scale instead of zero.
     const scale = g.map((_, j) => A.get(j, j) || 1);
+    const held = o.holdAtBounds ? heldAtBounds(p, g, lower, upper) : NONE_HELD;
     let accepted = false;
     while (!accepted) {
-      const delta = dampedStep(A, g, mu, scale);
+      const delta = dampedStep(A, g, mu, scale, held);
       if (!delta) {
         mu *= nu;
         nu *= 2;
@@ -304,6 +341,8 @@ export interface CurveFitOptions {
   readonly maxIterations?: number;
   /** Stop when a step lowers the sum of squares by less than this fraction. @default 1e-9 */
   readonly relativeTolerance?: number;
+  /** See {@link LeastSquaresOptions.holdAtBounds}. @default false */
+  readonly holdAtBounds?: boolean;
 }
 
 /** Default relative tolerance of {@link fitCurve}: a curve of noisy data needs no more. */
@@ -378,6 +417,7 @@ export function fitCurve(
     {
       maxIterations: options.maxIterations ?? LEAST_SQUARES_DEFAULTS.maxIterations,
       reductionTolerance: options.relativeTolerance ?? CURVE_FIT_TOLERANCE,
+      holdAtBounds: options.holdAtBounds ?? LEAST_SQUARES_DEFAULTS.holdAtBounds,
     },
   );
   const curvature = new Float64Array(P * P);

@@ -105,7 +105,7 @@ const FIT_LIMITS = { maxIterations: 100, relativeTolerance: 1e-7 } as const;
 /** Final fits (each followed by pruning if a band stopped counting) before the result stands. */
 const FINAL_ROUNDS = 3;
 /** Limits of the final fit of the chosen bands. */
-const FINAL_LIMITS = { maxIterations: 2000, relativeTolerance: 1e-13 } as const;
+const FINAL_LIMITS = { maxIterations: 2000, relativeTolerance: 1e-13, holdAtBounds: true } as const;
 /** Inside bands with less than this part of what counting needs are removed together when pruning. */
 const HOPELESS = 0.25;
 /** Candidates tried per round when adding; the one that lowers χ² most is kept. */
@@ -294,7 +294,7 @@ function fitAll(
   ctx: FitContext,
   start: { components: readonly Component[]; b: readonly number[] },
   previous: FitState | undefined,
-  limits: { maxIterations: number; relativeTolerance: number } = FIT_LIMITS,
+  limits: { maxIterations: number; relativeTolerance: number; holdAtBounds?: boolean } = FIT_LIMITS,
 ): FitState {
   const nb = baselineCount(ctx.baselineKind);
   const p0: number[] = [];

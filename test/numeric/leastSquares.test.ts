@@ -81,6 +81,29 @@ describe('levenbergMarquardt', () => {
   });
 });
 
+describe('levenbergMarquardt with holdAtBounds', () => {
+  // r = (p0 − 3, p1 − 1, p0 + p1 − 4) with p0 ≤ 2: on the bound, Σr² in p1 alone is least at
+  // p1 = 1.5 (closed form: the mean of 1 and 2).
+  const problem = {
+    residuals: (p: readonly number[]) => [(p[0] ?? 0) - 3, (p[1] ?? 0) - 1, (p[0] ?? 0) + (p[1] ?? 0) - 4],
+    start: [0, 0],
+    upper: [2, Number.POSITIVE_INFINITY],
+  };
+
+  it('levenbergMarquardt holds a parameter pushed against its bound and solves for the others', () => {
+    const r = levenbergMarquardt(problem, { holdAtBounds: true });
+    expect(r.converged).toBe(true);
+    expect(r.parameters[0]).toBe(2);
+    expect(r.parameters[1]).toBeCloseTo(1.5, 8);
+  });
+
+  it('levenbergMarquardt without holdAtBounds stops short there: the clamped steps are no descent steps of p1', () => {
+    const clamped = levenbergMarquardt(problem);
+    expect(clamped.parameters[0]).toBe(2);
+    expect(Math.abs((clamped.parameters[1] ?? 0) - 1.5)).toBeGreaterThan(1e-3);
+  });
+});
+
 describe('inverseNormalMatrix', () => {
   it('returns null when the columns are dependent or there are fewer rows than parameters', () => {
     expect(
