@@ -13,10 +13,11 @@
  * Smoothing is used only to pick candidates; the fit is to the data points themselves.
  */
 
-import { xNoiseStandardDeviation, xyEquallySpaced } from 'ml-spectra-processing';
 import { CHARGE_TRANSFER_ONSET } from '../analysis/cautions.js';
 import { ensure, InputError } from '../core/errors.js';
 import type { Geometry } from '../core/geometry.js';
+import { resampleEvenly } from '../numeric/evenResampling.js';
+import { robustNoiseDeviation } from '../numeric/robustNoise.js';
 import type { AbsorptionQuantity } from './absorptionSpectrum.js';
 import {
   type BaselineKind,
@@ -273,11 +274,8 @@ function evenGrid(wn: Float64Array, value: Float64Array, lo: number, hi: number,
     Math.min(MAX_GRID_POINTS, Math.floor((span * POINTS_PER_MIN_FWHM) / minFwhm)),
   );
   const step = span / gridPoints;
-  const grid = xyEquallySpaced(
-    { x: wn, y: value },
-    { from: lo + step / 2, to: hi - step / 2, numberOfPoints: gridPoints, variant: 'smooth' },
-  );
-  return { gx: Float64Array.from(grid.x), gy: Float64Array.from(grid.y), step };
+  const grid = resampleEvenly(wn, value, lo + step / 2, hi - step / 2, gridPoints);
+  return { gx: grid.x, gy: grid.y, step };
 }
 
 /** The fitted components back in cm⁻¹ and the spectrum's y, with standard errors from the fit's covariance; by rising centre. */
@@ -391,5 +389,5 @@ function noiseLevel(x: Float64Array, y: Float64Array, lo: number, hi: number): n
     if ((x[i] as number) < lo || (x[i] as number) > hi) continue;
     d2.push((y[i - 1] as number) - 2 * (y[i] as number) + (y[i + 1] as number));
   }
-  return d2.length >= 3 ? xNoiseStandardDeviation(d2).sd / Math.sqrt(6) : 0;
+  return d2.length >= 3 ? robustNoiseDeviation(d2) / Math.sqrt(6) : 0;
 }
