@@ -33,13 +33,7 @@ import {
 import type { RawSpectrum } from './rawSpectrum.js';
 import { fitFoundBands } from './spectrumFit.js';
 import { isJcamp, parseJcampSpectrum } from './spectrumJcamp.js';
-import {
-  ALL_COLUMNS,
-  type ColumnChoice,
-  isAllColumns,
-  parseSpectrumText,
-  spectrumColumns,
-} from './spectrumText.js';
+import { ALL_COLUMNS, type ColumnChoice, parseSpectrumText, spectrumColumns } from './spectrumText.js';
 import type { SpectrumXUnit, SpectrumYUnit } from './spectrumUnits.js';
 
 /** The ligand-field fit asked for: the ion or dⁿ, and how C/B and the spin are handled. */

@@ -36,7 +36,9 @@ describe('resampleEvenly', () => {
     const x = Float64Array.from({ length: 50 }, (_, i) => i);
     const y = x.map((v) => 2 * v + 1);
     const r = resampleEvenly(x, y, 5, 40, 36);
-    r.x.forEach((xi, j) => expectClose(r.y[j] as number, 2 * xi + 1, 1e-9));
+    r.x.forEach((xi, j) => {
+      expectClose(r.y[j] as number, 2 * xi + 1, 1e-9);
+    });
   });
 });
 
