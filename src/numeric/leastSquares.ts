@@ -159,18 +159,60 @@ function dampedStep(
   scale: readonly number[],
   held: ReadonlySet<number>,
 ): number[] | undefined {
-  const damped = A.clone();
-  for (let j = 0; j < g.length; j++) damped.set(j, j, A.get(j, j) + mu * (scale[j] ?? 1));
-  for (const j of held) {
-    for (let k = 0; k < g.length; k++) {
-      damped.set(j, k, 0);
-      damped.set(k, j, 0);
-    }
-    damped.set(j, j, 1);
+  const np = g.length;
+  const damped = new Float64Array(np * np);
+  for (let j = 0; j < np; j++) {
+    for (let k = 0; k < np; k++) damped[j * np + k] = A.get(j, k);
+    damped[j * np + j] = A.get(j, j) + mu * (scale[j] ?? 1);
   }
-  const chol = new CholeskyDecomposition(damped);
-  if (!chol.isPositiveDefinite()) return undefined;
-  return chol.solve(Matrix.columnVector(g.map((x, j) => (held.has(j) ? 0 : -x)))).to1DArray();
+  for (const j of held) {
+    for (let k = 0; k < np; k++) {
+      damped[j * np + k] = 0;
+      damped[k * np + j] = 0;
+    }
+    damped[j * np + j] = 1;
+  }
+  return choleskySolve(
+    damped,
+    np,
+    g.map((x, j) => (held.has(j) ? 0 : -x)),
+  );
+}
+
+/**
+ * The solution of M·x = b for a symmetric M (row-major, size n), by Cholesky factorisation, or
+ * undefined when M is not positive definite. The same operations in the same order as ml-matrix's
+ * CholeskyDecomposition and its solve, so the steps are bit-identical; written out because the fit
+ * takes thousands of steps and building, cloning and factorising ml-matrix objects for each took
+ * a fifth of a spectrum's band search.
+ */
+function choleskySolve(M: Float64Array, n: number, b: readonly number[]): number[] | undefined {
+  const L = new Float64Array(n * n);
+  let positiveDefinite = true;
+  for (let j = 0; j < n; j++) {
+    let d = 0;
+    for (let k = 0; k < j; k++) {
+      let s = 0;
+      for (let i = 0; i < k; i++) s += (L[k * n + i] as number) * (L[j * n + i] as number);
+      s = ((M[j * n + k] as number) - s) / (L[k * n + k] as number);
+      L[j * n + k] = s;
+      d = d + s * s;
+    }
+    d = (M[j * n + j] as number) - d;
+    positiveDefinite &&= d > 0;
+    L[j * n + j] = Math.sqrt(Math.max(d, 0));
+  }
+  if (!positiveDefinite) return undefined;
+  const x = [...b];
+  for (let k = 0; k < n; k++) {
+    for (let i = 0; i < k; i++) x[k] = (x[k] as number) - (x[i] as number) * (L[k * n + i] as number);
+    x[k] = (x[k] as number) / (L[k * n + k] as number);
+  }
+  for (let k = n - 1; k >= 0; k--) {
+    for (let i = k + 1; i < n; i++) x[k] = (x[k] as number) - (x[i] as number) * (L[i * n + k] as number);
+    x[k] = (x[k] as number) / (L[k * n + k] as number);
+  }
+  return x;
 }
 
 /** No parameter held. */
