@@ -8,8 +8,8 @@
 import { freeIonTerms } from '../atom/freeIon.js';
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
-import { bilinear, clusterSorted, column, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
-import { tridiagonalQlValues } from '../numeric/tridiagonalQl.js';
+import { bilinear, column, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
+import { tridiagonalQlValues, tridiagonalQlValuesInPlace } from '../numeric/tridiagonalQl.js';
 import { type AdaptedBlock, adaptedBlocks } from './cubicBasis.js';
 import { configurationText, type Geometry, irrepName, stateSymbol } from './labels.js';
 import { branchTerm, CUBIC_IRREPS, type CubicIrrep, decomposeCubic, IRREP_DIMENSION } from './symmetry.js';
@@ -137,7 +137,7 @@ interface RawLevel {
   S: number;
   irrep: CubicIrrep;
   energy: number;
-  weights: number[];
+  weights: readonly number[];
 }
 
 /**
@@ -160,83 +160,188 @@ export function cubicLevels(
   vectors = true,
 ): CubicResult {
   checkMagnitudes(dqOct, B, C);
-  const blocks = adaptedBlocks(n);
-  const pool: { block: number; j: number; value: number }[] = [];
-  const matrices: Float64Array[] = [];
+  const ws = workspaceOf(n);
+  const { blocks, values, blockOf, jOf, order } = ws;
   const eigs: (SymmetricEigen | undefined)[] = blocks.map((block, bi) => {
     const m = block.size;
-    const h = blockMatrix(block, dqOct, B, C);
-    matrices.push(h);
-    const eig = vectors || m < 2 ? symmetricEigen(h, m) : undefined;
-    const values = eig ? eig.values : tridiagonalQlValues(h, m);
-    values.forEach((value, j) => {
-      pool.push({ block: bi, j, value });
-    });
-    return eig;
+    const own = ws.blockValues[bi] as Float64Array;
+    if (vectors || m < 2) {
+      const eig = symmetricEigen(blockMatrix(block, dqOct, B, C), m);
+      own.set(eig.values);
+      return eig;
+    }
+    const vt = ws.scratch[bi] as Float64Array;
+    blockMatrixTransposed(block, dqOct, B, C, vt);
+    tridiagonalQlValuesInPlace(vt, m, own, ws.e);
+    return undefined;
   });
   const eigOf = (bi: number): SymmetricEigen | undefined => {
-    const h = matrices[bi];
     const block = blocks[bi];
-    if (eigs[bi] === undefined && h && block) eigs[bi] = symmetricEigen(h, block.size);
+    if (eigs[bi] === undefined && block)
+      eigs[bi] = symmetricEigen(blockMatrix(block, dqOct, B, C), block.size);
     return eigs[bi];
   };
-  pool.sort((a, b) => a.value - b.value);
-  const values = pool.map((p) => p.value);
+  sortByValue(values, order);
   let scale = 1;
-  for (const v of values) scale = Math.max(scale, Math.abs(v));
+  for (let i = 0; i < values.length; i++) scale = Math.max(scale, Math.abs(values[i] as number));
   const tol = 1e-8 * scale;
   const raw: RawLevel[] = [];
-  for (const run of clusterSorted(values, tol)) {
-    const energy = run.reduce((s, i) => s + (values[i] ?? 0), 0) / run.length;
-    const bySpin = new Map<number, { block: number; j: number }[]>();
-    for (const i of run) {
-      const item = pool[i];
-      const block = item && blocks[item.block];
-      if (!item || !block) continue;
-      const list = bySpin.get(block.S) ?? [];
-      list.push(item);
-      bySpin.set(block.S, list);
-    }
-    for (const [S, items] of bySpin) {
-      const perClass = [0, 0, 0];
-      for (const it of items) {
-        const k = blocks[it.block]?.k ?? 0;
-        perClass[k] = (perClass[k] ?? 0) + 1;
+  const total = order.length;
+  for (let start = 0; start < total; ) {
+    // One run of values within tol of their neighbours: a degenerate level (or several spins).
+    let end = start + 1;
+    while (
+      end < total &&
+      (values[order[end] as number] as number) - (values[order[end - 1] as number] as number) <= tol
+    )
+      end++;
+    let sum = 0;
+    for (let r = start; r < end; r++) sum += values[order[r] as number] as number;
+    const energy = sum / (end - start);
+    for (const S of spinsOf(blocks, blockOf, order, start, end)) {
+      const items: number[] = [];
+      for (let r = start; r < end; r++) {
+        const i = order[r] as number;
+        if ((blocks[blockOf[i] as number] as AdaptedBlock).S === S) items.push(i);
       }
-      const counts: [number, number, number] = [perClass[0] ?? 0, perClass[1] ?? 0, perClass[2] ?? 0];
+      const counts: [number, number, number] = [0, 0, 0];
+      for (const i of items) {
+        const k = (blocks[blockOf[i] as number] as AdaptedBlock).k;
+        counts[k] = (counts[k] as number) + 1;
+      }
       const decomposition = decomposeCubic(
         counts,
-        () => items.reduce((sum, it) => sum + (blocks[it.block]?.parity ?? 0), 0),
+        () => items.reduce((p, i) => p + (blocks[blockOf[i] as number] as AdaptedBlock).parity, 0),
         () => {
           let trace = 0;
-          for (const it of items) {
-            const block = blocks[it.block];
-            const eig = block?.c3Sum ? eigOf(it.block) : undefined;
+          for (const i of items) {
+            const bi = blockOf[i] as number;
+            const block = blocks[bi];
+            const eig = block?.c3Sum ? eigOf(bi) : undefined;
             if (!block?.c3Sum || !eig) continue;
-            const v = column(eig.vectors, eig.size, it.j);
+            const v = column(eig.vectors, eig.size, jOf[i] as number);
             trace += bilinear(v, block.c3Sum, v);
           }
           return trace;
         },
       );
-      const weights = [0, 0, 0, 0, 0];
-      for (const it of vectors ? items : []) {
-        const block = blocks[it.block];
-        const eig = eigs[it.block];
-        if (!block || !eig) continue;
-        const m = eig.size;
-        for (let r = 0; r < m; r++) {
-          const x = eig.vectors[r * m + it.j] ?? 0;
-          const b = block.eCount[r] ?? 0;
-          weights[b] = (weights[b] ?? 0) + (x * x) / items.length;
-        }
-      }
+      const weights = vectors ? configurationWeights(items, blocks, blockOf, jOf, eigs) : NO_WEIGHTS;
       for (const irrep of CUBIC_IRREPS) {
         for (let c = 0; c < decomposition[irrep]; c++) raw.push({ S, irrep, energy, weights });
       }
     }
+    start = end;
   }
   return finish(n, dqOct, B, C, geometry, raw);
+}
+
+const NO_WEIGHTS: readonly number[] = [0, 0, 0, 0, 0];
+
+/** Strong-field make-up of one level: the squared components of its eigenvectors by e-count, averaged. */
+function configurationWeights(
+  items: readonly number[],
+  blocks: readonly AdaptedBlock[],
+  blockOf: Int32Array,
+  jOf: Int32Array,
+  eigs: readonly (SymmetricEigen | undefined)[],
+): number[] {
+  const weights = [0, 0, 0, 0, 0];
+  for (const i of items) {
+    const block = blocks[blockOf[i] as number];
+    const eig = eigs[blockOf[i] as number];
+    if (!block || !eig) continue;
+    const m = eig.size;
+    const j = jOf[i] as number;
+    for (let r = 0; r < m; r++) {
+      const x = eig.vectors[r * m + j] ?? 0;
+      const b = block.eCount[r] ?? 0;
+      weights[b] = (weights[b] ?? 0) + (x * x) / items.length;
+    }
+  }
+  return weights;
+}
+
+/** The distinct S among order[start…end−1], in order of first appearance. */
+function spinsOf(
+  blocks: readonly AdaptedBlock[],
+  blockOf: Int32Array,
+  order: Int32Array,
+  start: number,
+  end: number,
+): number[] {
+  const spins: number[] = [];
+  for (let r = start; r < end; r++) {
+    const S = (blocks[blockOf[order[r] as number] as number] as AdaptedBlock).S;
+    if (!spins.includes(S)) spins.push(S);
+  }
+  return spins;
+}
+
+/**
+ * Storage reused by every {@link cubicLevels} call for one n (a sweep solves the same blocks at
+ * thousands of points): each block's eigenvalues side by side in `values` (block by block, each
+ * block's ascending), which block and which index each entry is, the sort order, and per block a
+ * scratch matrix for the eigenvalue routine.
+ */
+interface Workspace {
+  readonly blocks: readonly AdaptedBlock[];
+  readonly values: Float64Array;
+  readonly blockValues: readonly Float64Array[];
+  readonly blockOf: Int32Array;
+  readonly jOf: Int32Array;
+  readonly order: Int32Array;
+  readonly scratch: readonly Float64Array[];
+  readonly e: Float64Array;
+}
+
+const workspaces = new Map<number, Workspace>();
+
+function workspaceOf(n: number): Workspace {
+  const cached = workspaces.get(n);
+  if (cached) return cached;
+  const blocks = adaptedBlocks(n);
+  const total = blocks.reduce((s, b) => s + b.size, 0);
+  const values = new Float64Array(total);
+  const blockOf = new Int32Array(total);
+  const jOf = new Int32Array(total);
+  const blockValues: Float64Array[] = [];
+  let offset = 0;
+  blocks.forEach((b, bi) => {
+    blockValues.push(values.subarray(offset, offset + b.size));
+    for (let j = 0; j < b.size; j++) {
+      blockOf[offset + j] = bi;
+      jOf[offset + j] = j;
+    }
+    offset += b.size;
+  });
+  const ws: Workspace = {
+    blocks,
+    values,
+    blockValues,
+    blockOf,
+    jOf,
+    order: new Int32Array(total),
+    scratch: blocks.map((b) => new Float64Array(b.size * b.size)),
+    e: new Float64Array(Math.max(1, ...blocks.map((b) => b.size))),
+  };
+  workspaces.set(n, ws);
+  return ws;
+}
+
+/**
+ * Indices of `values` in ascending order of value, ties in index order (a stable sort): insertion
+ * sort, quick here because each block's values arrive already ascending.
+ */
+function sortByValue(values: Float64Array, order: Int32Array): void {
+  for (let i = 0; i < order.length; i++) {
+    const v = values[i] as number;
+    let k = i;
+    while (k > 0 && (values[order[k - 1] as number] as number) > v) {
+      order[k] = order[k - 1] as number;
+      k--;
+    }
+    order[k] = i;
+  }
 }
 
 /** H of one symmetry-adapted block, row-major. */
@@ -248,6 +353,25 @@ function blockMatrix(block: AdaptedBlock, dqOct: number, B: number, C: number): 
   for (let i = 0; i < h.length; i++) h[i] = B * (partB[i] as number) + C * (partC[i] as number);
   for (let i = 0; i < m; i++) h[i * m + i] = (h[i * m + i] as number) + dqOct * (fieldDiagonal[i] as number);
   return h;
+}
+
+/** Hᵀ of one block into `out` (the input {@link tridiagonalQlValuesInPlace} takes); each entry computed as in {@link blockMatrix}. */
+function blockMatrixTransposed(
+  block: AdaptedBlock,
+  dqOct: number,
+  B: number,
+  C: number,
+  out: Float64Array,
+): void {
+  const m = block.size;
+  const { partB, partC, fieldDiagonal } = block;
+  // Hot loop: typed-array reads are in range by construction.
+  for (let i = 0; i < m; i++) {
+    for (let j = 0; j < m; j++)
+      out[j * m + i] = B * (partB[i * m + j] as number) + C * (partC[i * m + j] as number);
+  }
+  for (let i = 0; i < m; i++)
+    out[i * m + i] = (out[i * m + i] as number) + dqOct * (fieldDiagonal[i] as number);
 }
 
 /**
@@ -287,6 +411,19 @@ const PLAN_CACHE_SIZE = 64;
  * S, so that the plan does not depend on rounding.
  */
 function labelPlan(n: number, B: number, C: number, geometry: Geometry): Map<string, PlannedLabel[]> {
+  // A sweep asks again and again with the same n, geometry, B and C: skip the key text then.
+  const last = lastPlan;
+  if (last && last.n === n && last.B === B && last.C === C && last.geometry === geometry) return last.plan;
+  const plan = labelPlanByRatio(n, B, C, geometry);
+  lastPlan = { n, B, C, geometry, plan };
+  return plan;
+}
+
+let lastPlan:
+  | { n: number; B: number; C: number; geometry: Geometry; plan: Map<string, PlannedLabel[]> }
+  | undefined;
+
+function labelPlanByRatio(n: number, B: number, C: number, geometry: Geometry): Map<string, PlannedLabel[]> {
   const ratio = B > 0 ? C / B : Number.NaN;
   const key = `${n}:${geometry}:${Number.isNaN(ratio) ? 'none' : ratio.toPrecision(12)}`;
   const cached = planCache.get(key);
@@ -362,12 +499,13 @@ function finish(
     if (!planned)
       throw new Error(`cubic labelling: no free-ion parent for level ${i + 1} of ${key} in d${n}`);
     const configurations: ConfigurationWeight[] = [];
-    p.weights.forEach((weight, e) => {
-      const t2 = n - e;
-      if (t2 >= 0 && t2 <= 6 && weight > 1e-12) {
-        configurations.push({ t2, e, text: configurationTextOf(t2, e, geometry), weight });
-      }
-    });
+    if (p.weights !== NO_WEIGHTS)
+      p.weights.forEach((weight, e) => {
+        const t2 = n - e;
+        if (t2 >= 0 && t2 <= 6 && weight > 1e-12) {
+          configurations.push({ t2, e, text: configurationTextOf(t2, e, geometry), weight });
+        }
+      });
     configurations.sort((a, b) => b.weight - a.weight);
     return {
       label: planned.label,
