@@ -8,7 +8,7 @@
 import { freeIonTerms } from '../atom/freeIon.js';
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
-import { bilinear, column, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
+import { bilinear, column, congruence, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
 import { tridiagonalQlValues, tridiagonalQlValuesInPlace } from '../numeric/tridiagonalQl.js';
 import { type AdaptedBlock, adaptedBlocks } from './cubicBasis.js';
 import { configurationText, type Geometry, irrepName, stateSymbol } from './labels.js';
@@ -148,8 +148,8 @@ interface RawLevel {
  *
  * With `vectors` false (sweeps that need energies and labels alone) the blocks are diagonalised
  * for their eigenvalues only — the very same numbers — and the levels carry no strong-field
- * make-up (`configurations` empty); a block's eigenvectors are then computed only where the C₃
- * trace must settle a label.
+ * make-up (`configurations` empty); where the C₃ trace must settle a label, it is read from the
+ * block's parts of one C₃ eigenvalue (eigenvalues again, no vectors; see {@link c3TraceByParts}).
  */
 export function cubicLevels(
   n: number,
@@ -175,12 +175,7 @@ export function cubicLevels(
     tridiagonalQlValuesInPlace(vt, m, own, ws.e);
     return undefined;
   });
-  const eigOf = (bi: number): SymmetricEigen | undefined => {
-    const block = blocks[bi];
-    if (eigs[bi] === undefined && block)
-      eigs[bi] = symmetricEigen(blockMatrix(block, dqOct, B, C), block.size);
-    return eigs[bi];
-  };
+  ws.call++;
   sortByValue(values, order);
   let scale = 1;
   for (let i = 0; i < values.length; i++) scale = Math.max(scale, Math.abs(values[i] as number));
@@ -212,18 +207,7 @@ export function cubicLevels(
       const decomposition = decomposeCubic(
         counts,
         () => items.reduce((p, i) => p + (blocks[blockOf[i] as number] as AdaptedBlock).parity, 0),
-        () => {
-          let trace = 0;
-          for (const i of items) {
-            const bi = blockOf[i] as number;
-            const block = blocks[bi];
-            const eig = block?.c3Sum ? eigOf(bi) : undefined;
-            if (!block?.c3Sum || !eig) continue;
-            const v = column(eig.vectors, eig.size, jOf[i] as number);
-            trace += bilinear(v, block.c3Sum, v);
-          }
-          return trace;
-        },
+        () => (vectors ? c3TraceByVectors(items, ws, eigs) : c3TraceByParts(items, ws, dqOct, B, C)),
       );
       const weights = vectors ? configurationWeights(items, blocks, blockOf, jOf, eigs) : NO_WEIGHTS;
       for (const irrep of CUBIC_IRREPS) {
@@ -233,6 +217,124 @@ export function cubicLevels(
     start = end;
   }
   return finish(n, dqOct, B, C, geometry, raw);
+}
+
+/** Trace of the C₃ class sum over the k = 0 components of one cluster, from the blocks' eigenvectors. */
+function c3TraceByVectors(
+  items: readonly number[],
+  ws: Workspace,
+  eigs: readonly (SymmetricEigen | undefined)[],
+): number {
+  let trace = 0;
+  for (const i of items) {
+    const bi = ws.blockOf[i] as number;
+    const block = ws.blocks[bi];
+    const eig = eigs[bi];
+    if (!block?.c3Sum || !eig) continue;
+    const v = column(eig.vectors, eig.size, ws.jOf[i] as number);
+    trace += bilinear(v, block.c3Sum, v);
+  }
+  return trace;
+}
+
+/**
+ * The same trace without eigenvectors. The C₃ class sum commutes with H and keeps each k = 0
+ * block, acting there as 8 on A1, −4 on E and 0 on T1 components; so the block's spectrum is the
+ * union of the spectra of H on the three eigenspaces of the class sum (its parts, built once per
+ * n). Merging the parts' eigenvalues in ascending order gives the class-sum eigenvalue of the
+ * j-th lowest level of the block (rounding can swap two ranks only within one cluster, which
+ * leaves the cluster's trace unchanged).
+ */
+function c3TraceByParts(
+  items: readonly number[],
+  ws: Workspace,
+  dqOct: number,
+  B: number,
+  C: number,
+): number {
+  let trace = 0;
+  for (const i of items) {
+    const bi = ws.blockOf[i] as number;
+    const tags = c3TagsOf(ws, bi, dqOct, B, C);
+    if (tags) trace += tags[ws.jOf[i] as number] as number;
+  }
+  return trace;
+}
+
+/** The class-sum eigenvalue of each level of block `bi` by rank, computed once per call; undefined off k = 0. */
+function c3TagsOf(ws: Workspace, bi: number, dqOct: number, B: number, C: number): Float64Array | undefined {
+  const parts = ws.c3Parts[bi];
+  const tags = ws.c3Tags[bi];
+  if (!parts || !tags) return undefined;
+  if (ws.c3Stamp[bi] === ws.call) return tags;
+  for (const part of parts) {
+    const mc = part.size;
+    const h = ws.scratch[bi] as Float64Array;
+    for (let x = 0; x < mc * mc; x++)
+      h[x] =
+        B * (part.partB[x] as number) + C * (part.partC[x] as number) + dqOct * (part.field[x] as number);
+    tridiagonalQlValuesInPlace(h, mc, part.values, ws.e);
+  }
+  const next = new Int32Array(parts.length);
+  for (let j = 0; j < tags.length; j++) {
+    let best = -1;
+    parts.forEach((part, p) => {
+      const k = next[p] as number;
+      const bestPart = parts[best];
+      if (
+        k < part.size &&
+        (!bestPart || (part.values[k] as number) < (bestPart.values[next[best] as number] as number))
+      )
+        best = p;
+    });
+    const chosen = parts[best] as C3Part;
+    tags[j] = chosen.value;
+    next[best] = (next[best] as number) + 1;
+  }
+  ws.c3Stamp[bi] = ws.call;
+  return tags;
+}
+
+/** H of one k = 0 block restricted to one eigenspace of the C₃ class sum. */
+interface C3Part {
+  /** The class sum's eigenvalue there: 8 (A1), −4 (E) or 0 (T1). */
+  readonly value: number;
+  readonly size: number;
+  readonly partB: Float64Array;
+  readonly partC: Float64Array;
+  /** ∂H/∂Dq there, full (the part's basis does not keep one configuration per vector). */
+  readonly field: Float64Array;
+  /** Eigenvalues at the current point (scratch). */
+  readonly values: Float64Array;
+}
+
+/** A k = 0 block split by the eigenvalue of its C₃ class sum; undefined for other blocks. */
+function c3PartsOf(block: AdaptedBlock): C3Part[] | undefined {
+  const { c3Sum, size: m } = block;
+  if (!c3Sum) return undefined;
+  const eig = symmetricEigen(c3Sum, m);
+  const columns = new Map<number, number[]>();
+  eig.values.forEach((v, j) => {
+    const value = Math.round(v);
+    columns.set(value, [...(columns.get(value) ?? []), j]);
+  });
+  const field = new Float64Array(m * m);
+  for (let i = 0; i < m; i++) field[i * m + i] = block.fieldDiagonal[i] as number;
+  return [...columns].map(([value, cols]) => {
+    const mc = cols.length;
+    const w = new Float64Array(m * mc);
+    cols.forEach((j, c) => {
+      for (let i = 0; i < m; i++) w[i * mc + c] = eig.vectors[i * m + j] as number;
+    });
+    return {
+      value,
+      size: mc,
+      partB: congruence(w, block.partB, m, mc),
+      partC: congruence(w, block.partC, m, mc),
+      field: congruence(w, field, m, mc),
+      values: new Float64Array(mc),
+    };
+  });
 }
 
 const NO_WEIGHTS: readonly number[] = [0, 0, 0, 0, 0];
@@ -292,6 +394,11 @@ interface Workspace {
   readonly order: Int32Array;
   readonly scratch: readonly Float64Array[];
   readonly e: Float64Array;
+  /** Calls so far, to know whether a block's C₃ tags belong to the current point. */
+  call: number;
+  readonly c3Parts: readonly (C3Part[] | undefined)[];
+  readonly c3Tags: readonly (Float64Array | undefined)[];
+  readonly c3Stamp: Float64Array;
 }
 
 const workspaces = new Map<number, Workspace>();
@@ -323,6 +430,10 @@ function workspaceOf(n: number): Workspace {
     order: new Int32Array(total),
     scratch: blocks.map((b) => new Float64Array(b.size * b.size)),
     e: new Float64Array(Math.max(1, ...blocks.map((b) => b.size))),
+    call: 0,
+    c3Parts: blocks.map(c3PartsOf),
+    c3Tags: blocks.map((b) => (b.c3Sum ? new Float64Array(b.size) : undefined)),
+    c3Stamp: new Float64Array(blocks.length).fill(-1),
   };
   workspaces.set(n, ws);
   return ws;
