@@ -503,14 +503,23 @@ export function groundSpin(n: number, dqOct: number, B: number, C: number): numb
   return S;
 }
 
-/** The label, symbol and parent of the i-th lowest level of one (S, irrep). */
+/** The label, symbol, irrep name and parent of the i-th lowest level of one (S, irrep). */
 interface PlannedLabel {
   readonly label: string;
   readonly symbol: string;
+  readonly irrep: string;
   readonly parent: string;
 }
 
-const planCache = new Map<string, Map<string, PlannedLabel[]>>();
+/** Planned labels by {@link planSlot} of (S, irrep), then by rank in energy. */
+type LabelPlan = PlannedLabel[][];
+
+/** Index of (S, irrep) in a {@link LabelPlan}. */
+function planSlot(S: number, irrep: CubicIrrep): number {
+  return Math.round(2 * S) * CUBIC_IRREPS.length + CUBIC_IRREPS.indexOf(irrep);
+}
+
+const planCache = new Map<string, LabelPlan>();
 const PLAN_CACHE_SIZE = 64;
 
 /**
@@ -521,7 +530,7 @@ const PLAN_CACHE_SIZE = 64;
  * is computed once per (n, geometry, C/B); terms degenerate in the free ion are ordered by L then
  * S, so that the plan does not depend on rounding.
  */
-function labelPlan(n: number, B: number, C: number, geometry: Geometry): Map<string, PlannedLabel[]> {
+function labelPlan(n: number, B: number, C: number, geometry: Geometry): LabelPlan {
   // A sweep asks again and again with the same n, geometry, B and C: skip the key text then.
   const last = lastPlan;
   if (last && last.n === n && last.B === B && last.C === C && last.geometry === geometry) return last.plan;
@@ -530,11 +539,9 @@ function labelPlan(n: number, B: number, C: number, geometry: Geometry): Map<str
   return plan;
 }
 
-let lastPlan:
-  | { n: number; B: number; C: number; geometry: Geometry; plan: Map<string, PlannedLabel[]> }
-  | undefined;
+let lastPlan: { n: number; B: number; C: number; geometry: Geometry; plan: LabelPlan } | undefined;
 
-function labelPlanByRatio(n: number, B: number, C: number, geometry: Geometry): Map<string, PlannedLabel[]> {
+function labelPlanByRatio(n: number, B: number, C: number, geometry: Geometry): LabelPlan {
   const ratio = B > 0 ? C / B : Number.NaN;
   const key = `${n}:${geometry}:${Number.isNaN(ratio) ? 'none' : ratio.toPrecision(12)}`;
   const cached = planCache.get(key);
@@ -543,13 +550,14 @@ function labelPlanByRatio(n: number, B: number, C: number, geometry: Geometry): 
     .map((t) => ({ t, e: Math.round(t.energy * 1e3) }))
     .sort((a, b) => a.e - b.e || a.t.L - b.t.L || a.t.S - b.t.S)
     .map((x) => x.t);
-  const entries: { key: string; symbol: string; parent: string }[] = [];
+  const entries: { slot: number; irrep: CubicIrrep; symbol: string; parent: string }[] = [];
   for (const term of terms) {
     const branches = branchTerm(term.L);
     for (const irrep of CUBIC_IRREPS) {
       for (let c = 0; c < branches[irrep]; c++) {
         entries.push({
-          key: `${term.S}:${irrep}`,
+          slot: planSlot(term.S, irrep),
+          irrep,
           symbol: stateSymbol(term.S, irrep, geometry),
           parent: term.name,
         });
@@ -562,7 +570,7 @@ function labelPlanByRatio(n: number, B: number, C: number, geometry: Geometry): 
   );
   const labelCount = countBy(withParent);
   const ordinal = new Map<string, number>();
-  const plan = new Map<string, PlannedLabel[]>();
+  const plan: LabelPlan = [];
   entries.forEach((e, i) => {
     let label = withParent[i] ?? e.symbol;
     if ((labelCount.get(label) ?? 0) > 1) {
@@ -570,7 +578,8 @@ function labelPlanByRatio(n: number, B: number, C: number, geometry: Geometry): 
       ordinal.set(label, k);
       label = `${label.slice(0, -1)},${k})`;
     }
-    plan.set(e.key, [...(plan.get(e.key) ?? []), { label, symbol: e.symbol, parent: e.parent }]);
+    const irrep = irrepName(e.irrep, geometry);
+    plan[e.slot] = [...(plan[e.slot] ?? []), { label, symbol: e.symbol, irrep, parent: e.parent }];
   });
   if (planCache.size >= PLAN_CACHE_SIZE) planCache.clear();
   planCache.set(key, plan);
@@ -601,14 +610,14 @@ function finish(
   const groundRaw = raw[0];
   if (!groundRaw) throw new Error(`no levels for d${n}`);
   const plan = labelPlan(n, B, C, geometry);
-  const rank = new Map<string, number>();
+  const rank: number[] = [];
   const levels: CubicLevel[] = raw.map((p) => {
-    const key = `${p.S}:${p.irrep}`;
-    const i = rank.get(key) ?? 0;
-    rank.set(key, i + 1);
-    const planned = plan.get(key)?.[i];
+    const slot = planSlot(p.S, p.irrep);
+    const i = rank[slot] ?? 0;
+    rank[slot] = i + 1;
+    const planned = plan[slot]?.[i];
     if (!planned)
-      throw new Error(`cubic labelling: no free-ion parent for level ${i + 1} of ${key} in d${n}`);
+      throw new Error(`cubic labelling: no free-ion parent for level ${i + 1} of ${p.S}:${p.irrep} in d${n}`);
     const configurations: ConfigurationWeight[] = [];
     if (p.weights !== NO_WEIGHTS)
       p.weights.forEach((weight, e) => {
@@ -622,7 +631,7 @@ function finish(
       label: planned.label,
       symbol: planned.symbol,
       S: p.S,
-      irrep: irrepName(p.irrep, geometry),
+      irrep: planned.irrep,
       cubicIrrep: p.irrep,
       energy: p.energy - groundRaw.energy,
       degeneracy: Math.round((2 * p.S + 1) * IRREP_DIMENSION[p.irrep]),

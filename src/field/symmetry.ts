@@ -101,9 +101,9 @@ export function decomposeCubic(
     e = integral((8 * x - c3SumK0()) / 12, 'C3');
   }
   const out = { A1: x - e, A2: y - e, E: e, T1: t1, T2: t2 };
-  for (const v of Object.values(out)) {
-    if (v < 0) throw new Error(`cubic labelling: negative irrep count from counts ${counts.join(',')}`);
-  }
+  // Called for every level at every point of a sweep: the five checks written out.
+  if (out.A1 < 0 || out.A2 < 0 || e < 0 || t1 < 0 || t2 < 0)
+    throw new Error(`cubic labelling: negative irrep count from counts ${counts.join(',')}`);
   return out;
 }
 
