@@ -9,7 +9,7 @@ import { freeIonTerms } from '../atom/freeIon.js';
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { bilinear, column, congruence, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
-import { tridiagonalQlValues, tridiagonalQlValuesInPlace } from '../numeric/tridiagonalQl.js';
+import { tridiagonalQlValuesInPlace } from '../numeric/tridiagonalQl.js';
 import { type AdaptedBlock, adaptedBlocks } from './cubicBasis.js';
 import { configurationText, type Geometry, irrepName, stateSymbol } from './labels.js';
 import { branchTerm, CUBIC_IRREPS, type CubicIrrep, decomposeCubic, IRREP_DIMENSION } from './symmetry.js';
@@ -493,13 +493,18 @@ export function groundSpin(n: number, dqOct: number, B: number, C: number): numb
   checkMagnitudes(dqOct, B, C);
   let lowest = Number.POSITIVE_INFINITY;
   let S = 0;
-  for (const block of adaptedBlocks(n)) {
-    const v = tridiagonalQlValues(blockMatrix(block, dqOct, B, C), block.size)[0];
+  const ws = workspaceOf(n);
+  ws.blocks.forEach((block, bi) => {
+    const own = ws.blockValues[bi] as Float64Array;
+    const vt = ws.scratch[bi] as Float64Array;
+    blockMatrixTransposed(block, dqOct, B, C, vt);
+    tridiagonalQlValuesInPlace(vt, block.size, own, ws.e);
+    const v = own[0];
     if (v !== undefined && v < lowest) {
       lowest = v;
       S = block.S;
     }
-  }
+  });
   return S;
 }
 
