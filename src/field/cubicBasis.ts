@@ -1,3 +1,4 @@
+import { rotateDeterminantsByMinors } from '../atom/determinantRotation.js';
 import { congruence, symmetricEigen } from '../numeric/eigen.js';
 import { type DeterminantBlock, determinantBlock, determinantClasses } from './hamiltonian.js';
 import { cubicRotations, rotationBlock, rotationOfShell } from './symmetry.js';
@@ -55,7 +56,7 @@ export function adaptedBlocks(n: number): AdaptedBlock[] {
       c3Sum = new Float64Array(size * size);
       for (const r of c3Rotations) {
         if (!isFirstOfInversePair(r.matrix, c3Rotations)) continue;
-        const part = rotationBlock(2, det, rotationOfShell(2, r.matrix));
+        const part = rotationBlock(2, det, rotationOfShell(2, r.matrix), rotateDeterminantsByMinors);
         for (let i = 0; i < size; i++) {
           for (let j = 0; j < size; j++) {
             c3Sum[i * size + j] =

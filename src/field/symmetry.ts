@@ -172,10 +172,16 @@ export function eulerAngles(m: readonly number[]): [number, number, number] {
  * Real part of ⟨D′|R|D⟩ within a block, for a spatial rotation R given by its one-electron
  * matrix `U[m′+l][m+l]` (spin untouched). R|D⟩ is expanded electron by electron, applying the
  * rotated creation operators in the order that builds the determinant, so the fermion signs
- * come out of the algebra. Entries outside the block are dropped: only the diagonal block is
+ * come out of the algebra (or, with `rotate` = rotateDeterminantsByMinors, each entry as a minor
+ * of U: cheaper for dense U). Entries outside the block are dropped: only the diagonal block is
  * needed for characters of eigenspaces that lie in it.
  */
-export function rotationBlock(l: number, block: BasisBlock, U: Complex[][]): Float64Array {
+export function rotationBlock(
+  l: number,
+  block: BasisBlock,
+  U: Complex[][],
+  rotate: typeof rotateDeterminants = rotateDeterminants,
+): Float64Array {
   const orbitals = 2 * l + 1;
   const zero = { re: 0, im: 0 };
   // Spin untouched: the spatial matrix on each spin separately.
@@ -184,7 +190,7 @@ export function rotationBlock(l: number, block: BasisBlock, U: Complex[][]): Flo
       twoMsOf(l, q) === twoMsOf(l, p) ? (U[mlOf(l, q) + l]?.[mlOf(l, p) + l] ?? zero) : zero,
     ),
   );
-  return rotateDeterminants(block, spinOrbitalU, 2 * orbitals);
+  return rotate(block, spinOrbitalU, 2 * orbitals);
 }
 
 /** One-electron rotation matrix D^l of a rotation given as a 3×3 matrix. */
