@@ -495,6 +495,9 @@ export function groundSpin(n: number, dqOct: number, B: number, C: number): numb
   let S = 0;
   const ws = workspaceOf(n);
   ws.blocks.forEach((block, bi) => {
+    // Every irrep of O has a component with k = 0 (A1, E, T1) or k = 2 (A2, E, T2), so the k = 1
+    // blocks hold no level the others lack: the lowest eigenvalue, and its S, is found without them.
+    if (block.k === 1) return;
     const own = ws.blockValues[bi] as Float64Array;
     const vt = ws.scratch[bi] as Float64Array;
     blockMatrixTransposed(block, dqOct, B, C, vt);
