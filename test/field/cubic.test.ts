@@ -2,7 +2,13 @@ import { describe, expect, it } from 'vitest';
 import { groundStateCrossings } from '../../src/analysis/groundState.js';
 import { freeIonTerms } from '../../src/atom/freeIon.js';
 import { InputError } from '../../src/core/errors.js';
-import { type CubicLevel, type CubicResult, cubicLevels, solveCubic } from '../../src/field/cubic.js';
+import {
+  type CubicLevel,
+  type CubicResult,
+  cubicLevels,
+  groundSpin,
+  solveCubic,
+} from '../../src/field/cubic.js';
 import { adaptedBlocks } from '../../src/field/cubicBasis.js';
 import { determinantBlock, fullHamiltonian } from '../../src/field/hamiltonian.js';
 import { symmetricEigen } from '../../src/numeric/eigen.js';
@@ -263,6 +269,14 @@ describe('solveCubic: invariants', () => {
         const fast = cubicLevels(n, dq, B, C, 'oct', false);
         const full = cubicLevels(n, dq, B, C, 'oct', true);
         expect(fast.levels.map(plain)).toEqual(full.levels.map(plain));
+      }
+    }
+  });
+
+  it('groundSpin (eigenvalues of the k = 0 and 2 blocks alone) equals the S of the labelled ground level along a Dq scan', () => {
+    for (let n = 1; n <= 9; n++) {
+      for (let dq = -3000; dq <= 4000; dq += 137) {
+        expect(groundSpin(n, dq, 800, 3700)).toBe(cubicLevels(n, dq, 800, 3700, 'oct').ground.S);
       }
     }
   });
