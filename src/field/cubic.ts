@@ -8,8 +8,8 @@
 import { freeIonTerms } from '../atom/freeIon.js';
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
-import { bilinear, clusterSorted, column, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
-import { tridiagonalQlValues } from '../numeric/tridiagonalQl.js';
+import { bilinear, column, congruence, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
+import { tridiagonalQlValuesInPlace } from '../numeric/tridiagonalQl.js';
 import { type AdaptedBlock, adaptedBlocks } from './cubicBasis.js';
 import { configurationText, type Geometry, irrepName, stateSymbol } from './labels.js';
 import { branchTerm, CUBIC_IRREPS, type CubicIrrep, decomposeCubic, IRREP_DIMENSION } from './symmetry.js';
@@ -137,7 +137,7 @@ interface RawLevel {
   S: number;
   irrep: CubicIrrep;
   energy: number;
-  weights: number[];
+  weights: readonly number[];
 }
 
 /**
@@ -148,8 +148,8 @@ interface RawLevel {
  *
  * With `vectors` false (sweeps that need energies and labels alone) the blocks are diagonalised
  * for their eigenvalues only — the very same numbers — and the levels carry no strong-field
- * make-up (`configurations` empty); a block's eigenvectors are then computed only where the C₃
- * trace must settle a label.
+ * make-up (`configurations` empty); where the C₃ trace must settle a label, it is read from the
+ * block's parts of one C₃ eigenvalue (eigenvalues again, no vectors; see {@link c3TraceByParts}).
  */
 export function cubicLevels(
   n: number,
@@ -160,83 +160,299 @@ export function cubicLevels(
   vectors = true,
 ): CubicResult {
   checkMagnitudes(dqOct, B, C);
-  const blocks = adaptedBlocks(n);
-  const pool: { block: number; j: number; value: number }[] = [];
-  const matrices: Float64Array[] = [];
+  const ws = workspaceOf(n);
+  const { blocks, values, blockOf, jOf, order } = ws;
   const eigs: (SymmetricEigen | undefined)[] = blocks.map((block, bi) => {
     const m = block.size;
-    const h = blockMatrix(block, dqOct, B, C);
-    matrices.push(h);
-    const eig = vectors || m < 2 ? symmetricEigen(h, m) : undefined;
-    const values = eig ? eig.values : tridiagonalQlValues(h, m);
-    values.forEach((value, j) => {
-      pool.push({ block: bi, j, value });
-    });
-    return eig;
+    const own = ws.blockValues[bi] as Float64Array;
+    if (vectors || m < 2) {
+      const eig = symmetricEigen(blockMatrix(block, dqOct, B, C), m);
+      own.set(eig.values);
+      return eig;
+    }
+    const vt = ws.scratch[bi] as Float64Array;
+    blockMatrixTransposed(block, dqOct, B, C, vt);
+    tridiagonalQlValuesInPlace(vt, m, own, ws.e);
+    return undefined;
   });
-  const eigOf = (bi: number): SymmetricEigen | undefined => {
-    const h = matrices[bi];
-    const block = blocks[bi];
-    if (eigs[bi] === undefined && h && block) eigs[bi] = symmetricEigen(h, block.size);
-    return eigs[bi];
-  };
-  pool.sort((a, b) => a.value - b.value);
-  const values = pool.map((p) => p.value);
+  ws.call++;
+  sortByValue(values, order);
   let scale = 1;
-  for (const v of values) scale = Math.max(scale, Math.abs(v));
+  for (let i = 0; i < values.length; i++) scale = Math.max(scale, Math.abs(values[i] as number));
   const tol = 1e-8 * scale;
   const raw: RawLevel[] = [];
-  for (const run of clusterSorted(values, tol)) {
-    const energy = run.reduce((s, i) => s + (values[i] ?? 0), 0) / run.length;
-    const bySpin = new Map<number, { block: number; j: number }[]>();
-    for (const i of run) {
-      const item = pool[i];
-      const block = item && blocks[item.block];
-      if (!item || !block) continue;
-      const list = bySpin.get(block.S) ?? [];
-      list.push(item);
-      bySpin.set(block.S, list);
-    }
-    for (const [S, items] of bySpin) {
-      const perClass = [0, 0, 0];
-      for (const it of items) {
-        const k = blocks[it.block]?.k ?? 0;
-        perClass[k] = (perClass[k] ?? 0) + 1;
+  const total = order.length;
+  for (let start = 0; start < total; ) {
+    // One run of values within tol of their neighbours: a degenerate level (or several spins).
+    let end = start + 1;
+    while (
+      end < total &&
+      (values[order[end] as number] as number) - (values[order[end - 1] as number] as number) <= tol
+    )
+      end++;
+    let sum = 0;
+    for (let r = start; r < end; r++) sum += values[order[r] as number] as number;
+    const energy = sum / (end - start);
+    for (const S of spinsOf(blocks, blockOf, order, start, end)) {
+      const items: number[] = [];
+      for (let r = start; r < end; r++) {
+        const i = order[r] as number;
+        if ((blocks[blockOf[i] as number] as AdaptedBlock).S === S) items.push(i);
       }
-      const counts: [number, number, number] = [perClass[0] ?? 0, perClass[1] ?? 0, perClass[2] ?? 0];
+      const counts: [number, number, number] = [0, 0, 0];
+      for (const i of items) {
+        const k = (blocks[blockOf[i] as number] as AdaptedBlock).k;
+        counts[k] = (counts[k] as number) + 1;
+      }
       const decomposition = decomposeCubic(
         counts,
-        () => items.reduce((sum, it) => sum + (blocks[it.block]?.parity ?? 0), 0),
-        () => {
-          let trace = 0;
-          for (const it of items) {
-            const block = blocks[it.block];
-            const eig = block?.c3Sum ? eigOf(it.block) : undefined;
-            if (!block?.c3Sum || !eig) continue;
-            const v = column(eig.vectors, eig.size, it.j);
-            trace += bilinear(v, block.c3Sum, v);
-          }
-          return trace;
-        },
+        () => items.reduce((p, i) => p + (blocks[blockOf[i] as number] as AdaptedBlock).parity, 0),
+        () => (vectors ? c3TraceByVectors(items, ws, eigs) : c3TraceByParts(items, ws, dqOct, B, C)),
       );
-      const weights = [0, 0, 0, 0, 0];
-      for (const it of vectors ? items : []) {
-        const block = blocks[it.block];
-        const eig = eigs[it.block];
-        if (!block || !eig) continue;
-        const m = eig.size;
-        for (let r = 0; r < m; r++) {
-          const x = eig.vectors[r * m + it.j] ?? 0;
-          const b = block.eCount[r] ?? 0;
-          weights[b] = (weights[b] ?? 0) + (x * x) / items.length;
-        }
-      }
+      const weights = vectors ? configurationWeights(items, blocks, blockOf, jOf, eigs) : NO_WEIGHTS;
       for (const irrep of CUBIC_IRREPS) {
         for (let c = 0; c < decomposition[irrep]; c++) raw.push({ S, irrep, energy, weights });
       }
     }
+    start = end;
   }
   return finish(n, dqOct, B, C, geometry, raw);
+}
+
+/** Trace of the C₃ class sum over the k = 0 components of one cluster, from the blocks' eigenvectors. */
+function c3TraceByVectors(
+  items: readonly number[],
+  ws: Workspace,
+  eigs: readonly (SymmetricEigen | undefined)[],
+): number {
+  let trace = 0;
+  for (const i of items) {
+    const bi = ws.blockOf[i] as number;
+    const block = ws.blocks[bi];
+    const eig = eigs[bi];
+    if (!block?.c3Sum || !eig) continue;
+    const v = column(eig.vectors, eig.size, ws.jOf[i] as number);
+    trace += bilinear(v, block.c3Sum, v);
+  }
+  return trace;
+}
+
+/**
+ * The same trace without eigenvectors. The C₃ class sum commutes with H and keeps each k = 0
+ * block, acting there as 8 on A1, −4 on E and 0 on T1 components; so the block's spectrum is the
+ * union of the spectra of H on the three eigenspaces of the class sum (its parts, built once per
+ * n). Merging the parts' eigenvalues in ascending order gives the class-sum eigenvalue of the
+ * j-th lowest level of the block (rounding can swap two ranks only within one cluster, which
+ * leaves the cluster's trace unchanged).
+ */
+function c3TraceByParts(
+  items: readonly number[],
+  ws: Workspace,
+  dqOct: number,
+  B: number,
+  C: number,
+): number {
+  let trace = 0;
+  for (const i of items) {
+    const bi = ws.blockOf[i] as number;
+    const tags = c3TagsOf(ws, bi, dqOct, B, C);
+    if (tags) trace += tags[ws.jOf[i] as number] as number;
+  }
+  return trace;
+}
+
+/** The class-sum eigenvalue of each level of block `bi` by rank, computed once per call; undefined off k = 0. */
+function c3TagsOf(ws: Workspace, bi: number, dqOct: number, B: number, C: number): Float64Array | undefined {
+  const parts = ws.c3Parts[bi];
+  const tags = ws.c3Tags[bi];
+  if (!parts || !tags) return undefined;
+  if (ws.c3Stamp[bi] === ws.call) return tags;
+  for (const part of parts) {
+    const mc = part.size;
+    const h = ws.scratch[bi] as Float64Array;
+    for (let x = 0; x < mc * mc; x++)
+      h[x] =
+        B * (part.partB[x] as number) + C * (part.partC[x] as number) + dqOct * (part.field[x] as number);
+    tridiagonalQlValuesInPlace(h, mc, part.values, ws.e);
+  }
+  const next = new Int32Array(parts.length);
+  for (let j = 0; j < tags.length; j++) {
+    let best = -1;
+    parts.forEach((part, p) => {
+      const k = next[p] as number;
+      const bestPart = parts[best];
+      if (
+        k < part.size &&
+        (!bestPart || (part.values[k] as number) < (bestPart.values[next[best] as number] as number))
+      )
+        best = p;
+    });
+    const chosen = parts[best] as C3Part;
+    tags[j] = chosen.value;
+    next[best] = (next[best] as number) + 1;
+  }
+  ws.c3Stamp[bi] = ws.call;
+  return tags;
+}
+
+/** H of one k = 0 block restricted to one eigenspace of the C₃ class sum. */
+interface C3Part {
+  /** The class sum's eigenvalue there: 8 (A1), −4 (E) or 0 (T1). */
+  readonly value: number;
+  readonly size: number;
+  readonly partB: Float64Array;
+  readonly partC: Float64Array;
+  /** ∂H/∂Dq there, full (the part's basis does not keep one configuration per vector). */
+  readonly field: Float64Array;
+  /** Eigenvalues at the current point (scratch). */
+  readonly values: Float64Array;
+}
+
+/** A k = 0 block split by the eigenvalue of its C₃ class sum; undefined for other blocks. */
+function c3PartsOf(block: AdaptedBlock): C3Part[] | undefined {
+  const { c3Sum, size: m } = block;
+  if (!c3Sum) return undefined;
+  const eig = symmetricEigen(c3Sum, m);
+  const columns = new Map<number, number[]>();
+  eig.values.forEach((v, j) => {
+    const value = Math.round(v);
+    columns.set(value, [...(columns.get(value) ?? []), j]);
+  });
+  const field = new Float64Array(m * m);
+  for (let i = 0; i < m; i++) field[i * m + i] = block.fieldDiagonal[i] as number;
+  return [...columns].map(([value, cols]) => {
+    const mc = cols.length;
+    const w = new Float64Array(m * mc);
+    cols.forEach((j, c) => {
+      for (let i = 0; i < m; i++) w[i * mc + c] = eig.vectors[i * m + j] as number;
+    });
+    return {
+      value,
+      size: mc,
+      partB: congruence(w, block.partB, m, mc),
+      partC: congruence(w, block.partC, m, mc),
+      field: congruence(w, field, m, mc),
+      values: new Float64Array(mc),
+    };
+  });
+}
+
+const NO_WEIGHTS: readonly number[] = [0, 0, 0, 0, 0];
+
+/** Strong-field make-up of one level: the squared components of its eigenvectors by e-count, averaged. */
+function configurationWeights(
+  items: readonly number[],
+  blocks: readonly AdaptedBlock[],
+  blockOf: Int32Array,
+  jOf: Int32Array,
+  eigs: readonly (SymmetricEigen | undefined)[],
+): number[] {
+  const weights = [0, 0, 0, 0, 0];
+  for (const i of items) {
+    const block = blocks[blockOf[i] as number];
+    const eig = eigs[blockOf[i] as number];
+    if (!block || !eig) continue;
+    const m = eig.size;
+    const j = jOf[i] as number;
+    for (let r = 0; r < m; r++) {
+      const x = eig.vectors[r * m + j] ?? 0;
+      const b = block.eCount[r] ?? 0;
+      weights[b] = (weights[b] ?? 0) + (x * x) / items.length;
+    }
+  }
+  return weights;
+}
+
+/** The distinct S among order[start…end−1], in order of first appearance. */
+function spinsOf(
+  blocks: readonly AdaptedBlock[],
+  blockOf: Int32Array,
+  order: Int32Array,
+  start: number,
+  end: number,
+): number[] {
+  const spins: number[] = [];
+  for (let r = start; r < end; r++) {
+    const S = (blocks[blockOf[order[r] as number] as number] as AdaptedBlock).S;
+    if (!spins.includes(S)) spins.push(S);
+  }
+  return spins;
+}
+
+/**
+ * Storage reused by every {@link cubicLevels} call for one n (a sweep solves the same blocks at
+ * thousands of points): each block's eigenvalues side by side in `values` (block by block, each
+ * block's ascending), which block and which index each entry is, the sort order, and per block a
+ * scratch matrix for the eigenvalue routine.
+ */
+interface Workspace {
+  readonly blocks: readonly AdaptedBlock[];
+  readonly values: Float64Array;
+  readonly blockValues: readonly Float64Array[];
+  readonly blockOf: Int32Array;
+  readonly jOf: Int32Array;
+  readonly order: Int32Array;
+  readonly scratch: readonly Float64Array[];
+  readonly e: Float64Array;
+  /** Calls so far, to know whether a block's C₃ tags belong to the current point. */
+  call: number;
+  readonly c3Parts: readonly (C3Part[] | undefined)[];
+  readonly c3Tags: readonly (Float64Array | undefined)[];
+  readonly c3Stamp: Float64Array;
+}
+
+const workspaces = new Map<number, Workspace>();
+
+function workspaceOf(n: number): Workspace {
+  const cached = workspaces.get(n);
+  if (cached) return cached;
+  const blocks = adaptedBlocks(n);
+  const total = blocks.reduce((s, b) => s + b.size, 0);
+  const values = new Float64Array(total);
+  const blockOf = new Int32Array(total);
+  const jOf = new Int32Array(total);
+  const blockValues: Float64Array[] = [];
+  let offset = 0;
+  blocks.forEach((b, bi) => {
+    blockValues.push(values.subarray(offset, offset + b.size));
+    for (let j = 0; j < b.size; j++) {
+      blockOf[offset + j] = bi;
+      jOf[offset + j] = j;
+    }
+    offset += b.size;
+  });
+  const ws: Workspace = {
+    blocks,
+    values,
+    blockValues,
+    blockOf,
+    jOf,
+    order: new Int32Array(total),
+    scratch: blocks.map((b) => new Float64Array(b.size * b.size)),
+    e: new Float64Array(Math.max(1, ...blocks.map((b) => b.size))),
+    call: 0,
+    c3Parts: blocks.map(c3PartsOf),
+    c3Tags: blocks.map((b) => (b.c3Sum ? new Float64Array(b.size) : undefined)),
+    c3Stamp: new Float64Array(blocks.length).fill(-1),
+  };
+  workspaces.set(n, ws);
+  return ws;
+}
+
+/**
+ * Indices of `values` in ascending order of value, ties in index order (a stable sort): insertion
+ * sort, quick here because each block's values arrive already ascending.
+ */
+function sortByValue(values: Float64Array, order: Int32Array): void {
+  for (let i = 0; i < order.length; i++) {
+    const v = values[i] as number;
+    let k = i;
+    while (k > 0 && (values[order[k - 1] as number] as number) > v) {
+      order[k] = order[k - 1] as number;
+      k--;
+    }
+    order[k] = i;
+  }
 }
 
 /** H of one symmetry-adapted block, row-major. */
@@ -250,6 +466,25 @@ function blockMatrix(block: AdaptedBlock, dqOct: number, B: number, C: number): 
   return h;
 }
 
+/** Hᵀ of one block into `out` (the input {@link tridiagonalQlValuesInPlace} takes); each entry computed as in {@link blockMatrix}. */
+function blockMatrixTransposed(
+  block: AdaptedBlock,
+  dqOct: number,
+  B: number,
+  C: number,
+  out: Float64Array,
+): void {
+  const m = block.size;
+  const { partB, partC, fieldDiagonal } = block;
+  // Hot loop: typed-array reads are in range by construction.
+  for (let i = 0; i < m; i++) {
+    for (let j = 0; j < m; j++)
+      out[j * m + i] = B * (partB[i * m + j] as number) + C * (partC[i * m + j] as number);
+  }
+  for (let i = 0; i < m; i++)
+    out[i * m + i] = (out[i * m + i] as number) + dqOct * (fieldDiagonal[i] as number);
+}
+
 /**
  * The total spin S of the ground state for a signed, octahedral-convention Dq, from the
  * eigenvalues alone (no vectors, no labels): for scans that only watch the ground spin change.
@@ -258,24 +493,41 @@ export function groundSpin(n: number, dqOct: number, B: number, C: number): numb
   checkMagnitudes(dqOct, B, C);
   let lowest = Number.POSITIVE_INFINITY;
   let S = 0;
-  for (const block of adaptedBlocks(n)) {
-    const v = tridiagonalQlValues(blockMatrix(block, dqOct, B, C), block.size)[0];
+  const ws = workspaceOf(n);
+  ws.blocks.forEach((block, bi) => {
+    // Every irrep of O has a component with k = 0 (A1, E, T1) or k = 2 (A2, E, T2), so the k = 1
+    // blocks hold no level the others lack: the lowest eigenvalue, and its S, is found without them.
+    if (block.k === 1) return;
+    const own = ws.blockValues[bi] as Float64Array;
+    const vt = ws.scratch[bi] as Float64Array;
+    blockMatrixTransposed(block, dqOct, B, C, vt);
+    tridiagonalQlValuesInPlace(vt, block.size, own, ws.e);
+    const v = own[0];
     if (v !== undefined && v < lowest) {
       lowest = v;
       S = block.S;
     }
-  }
+  });
   return S;
 }
 
-/** The label, symbol and parent of the i-th lowest level of one (S, irrep). */
+/** The label, symbol, irrep name and parent of the i-th lowest level of one (S, irrep). */
 interface PlannedLabel {
   readonly label: string;
   readonly symbol: string;
+  readonly irrep: string;
   readonly parent: string;
 }
 
-const planCache = new Map<string, Map<string, PlannedLabel[]>>();
+/** Planned labels by {@link planSlot} of (S, irrep), then by rank in energy. */
+type LabelPlan = PlannedLabel[][];
+
+/** Index of (S, irrep) in a {@link LabelPlan}. */
+function planSlot(S: number, irrep: CubicIrrep): number {
+  return Math.round(2 * S) * CUBIC_IRREPS.length + CUBIC_IRREPS.indexOf(irrep);
+}
+
+const planCache = new Map<string, LabelPlan>();
 const PLAN_CACHE_SIZE = 64;
 
 /**
@@ -286,7 +538,18 @@ const PLAN_CACHE_SIZE = 64;
  * is computed once per (n, geometry, C/B); terms degenerate in the free ion are ordered by L then
  * S, so that the plan does not depend on rounding.
  */
-function labelPlan(n: number, B: number, C: number, geometry: Geometry): Map<string, PlannedLabel[]> {
+function labelPlan(n: number, B: number, C: number, geometry: Geometry): LabelPlan {
+  // A sweep asks again and again with the same n, geometry, B and C: skip the key text then.
+  const last = lastPlan;
+  if (last && last.n === n && last.B === B && last.C === C && last.geometry === geometry) return last.plan;
+  const plan = labelPlanByRatio(n, B, C, geometry);
+  lastPlan = { n, B, C, geometry, plan };
+  return plan;
+}
+
+let lastPlan: { n: number; B: number; C: number; geometry: Geometry; plan: LabelPlan } | undefined;
+
+function labelPlanByRatio(n: number, B: number, C: number, geometry: Geometry): LabelPlan {
   const ratio = B > 0 ? C / B : Number.NaN;
   const key = `${n}:${geometry}:${Number.isNaN(ratio) ? 'none' : ratio.toPrecision(12)}`;
   const cached = planCache.get(key);
@@ -295,13 +558,14 @@ function labelPlan(n: number, B: number, C: number, geometry: Geometry): Map<str
     .map((t) => ({ t, e: Math.round(t.energy * 1e3) }))
     .sort((a, b) => a.e - b.e || a.t.L - b.t.L || a.t.S - b.t.S)
     .map((x) => x.t);
-  const entries: { key: string; symbol: string; parent: string }[] = [];
+  const entries: { slot: number; irrep: CubicIrrep; symbol: string; parent: string }[] = [];
   for (const term of terms) {
     const branches = branchTerm(term.L);
     for (const irrep of CUBIC_IRREPS) {
       for (let c = 0; c < branches[irrep]; c++) {
         entries.push({
-          key: `${term.S}:${irrep}`,
+          slot: planSlot(term.S, irrep),
+          irrep,
           symbol: stateSymbol(term.S, irrep, geometry),
           parent: term.name,
         });
@@ -314,7 +578,7 @@ function labelPlan(n: number, B: number, C: number, geometry: Geometry): Map<str
   );
   const labelCount = countBy(withParent);
   const ordinal = new Map<string, number>();
-  const plan = new Map<string, PlannedLabel[]>();
+  const plan: LabelPlan = [];
   entries.forEach((e, i) => {
     let label = withParent[i] ?? e.symbol;
     if ((labelCount.get(label) ?? 0) > 1) {
@@ -322,7 +586,8 @@ function labelPlan(n: number, B: number, C: number, geometry: Geometry): Map<str
       ordinal.set(label, k);
       label = `${label.slice(0, -1)},${k})`;
     }
-    plan.set(e.key, [...(plan.get(e.key) ?? []), { label, symbol: e.symbol, parent: e.parent }]);
+    const irrep = irrepName(e.irrep, geometry);
+    plan[e.slot] = [...(plan[e.slot] ?? []), { label, symbol: e.symbol, irrep, parent: e.parent }];
   });
   if (planCache.size >= PLAN_CACHE_SIZE) planCache.clear();
   planCache.set(key, plan);
@@ -353,27 +618,28 @@ function finish(
   const groundRaw = raw[0];
   if (!groundRaw) throw new Error(`no levels for d${n}`);
   const plan = labelPlan(n, B, C, geometry);
-  const rank = new Map<string, number>();
+  const rank: number[] = [];
   const levels: CubicLevel[] = raw.map((p) => {
-    const key = `${p.S}:${p.irrep}`;
-    const i = rank.get(key) ?? 0;
-    rank.set(key, i + 1);
-    const planned = plan.get(key)?.[i];
+    const slot = planSlot(p.S, p.irrep);
+    const i = rank[slot] ?? 0;
+    rank[slot] = i + 1;
+    const planned = plan[slot]?.[i];
     if (!planned)
-      throw new Error(`cubic labelling: no free-ion parent for level ${i + 1} of ${key} in d${n}`);
+      throw new Error(`cubic labelling: no free-ion parent for level ${i + 1} of ${p.S}:${p.irrep} in d${n}`);
     const configurations: ConfigurationWeight[] = [];
-    p.weights.forEach((weight, e) => {
-      const t2 = n - e;
-      if (t2 >= 0 && t2 <= 6 && weight > 1e-12) {
-        configurations.push({ t2, e, text: configurationTextOf(t2, e, geometry), weight });
-      }
-    });
+    if (p.weights !== NO_WEIGHTS)
+      p.weights.forEach((weight, e) => {
+        const t2 = n - e;
+        if (t2 >= 0 && t2 <= 6 && weight > 1e-12) {
+          configurations.push({ t2, e, text: configurationTextOf(t2, e, geometry), weight });
+        }
+      });
     configurations.sort((a, b) => b.weight - a.weight);
     return {
       label: planned.label,
       symbol: planned.symbol,
       S: p.S,
-      irrep: irrepName(p.irrep, geometry),
+      irrep: planned.irrep,
       cubicIrrep: p.irrep,
       energy: p.energy - groundRaw.energy,
       degeneracy: Math.round((2 * p.S + 1) * IRREP_DIMENSION[p.irrep]),

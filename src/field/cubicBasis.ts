@@ -1,3 +1,4 @@
+import { rotateDeterminantsByMinors } from '../atom/determinantRotation.js';
 import { congruence, symmetricEigen } from '../numeric/eigen.js';
 import { type DeterminantBlock, determinantBlock, determinantClasses } from './hamiltonian.js';
 import { cubicRotations, rotationBlock, rotationOfShell } from './symmetry.js';
@@ -49,10 +50,21 @@ export function adaptedBlocks(n: number): AdaptedBlock[] {
     const c2p = k !== 1 && c2pRotation ? rotationBlock(2, det, rotationOfShell(2, c2pRotation.matrix)) : null;
     let c3Sum: Float64Array | null = null;
     if (k === 0) {
+      // The class holds each rotation with its inverse, whose real matrix on the determinants is
+      // the transpose (the representation is unitary): four rotations give the whole sum, which
+      // is by far the dearest part of the basis (dense one-electron matrices).
       c3Sum = new Float64Array(size * size);
       for (const r of c3Rotations) {
-        const part = rotationBlock(2, det, rotationOfShell(2, r.matrix));
-        for (let i = 0; i < part.length; i++) c3Sum[i] = (c3Sum[i] ?? 0) + (part[i] ?? 0);
+        if (!isFirstOfInversePair(r.matrix, c3Rotations)) continue;
+        const part = rotationBlock(2, det, rotationOfShell(2, r.matrix), rotateDeterminantsByMinors);
+        for (let i = 0; i < size; i++) {
+          for (let j = 0; j < size; j++) {
+            c3Sum[i * size + j] =
+              (c3Sum[i * size + j] as number) +
+              (part[i * size + j] as number) +
+              (part[j * size + i] as number);
+          }
+        }
       }
     }
     for (const group of splitClass(n, det, c2p)) {
@@ -80,6 +92,18 @@ export function adaptedBlocks(n: number): AdaptedBlock[] {
   });
   cache.set(n, out);
   return out;
+}
+
+/** Whether `matrix` comes before its inverse (its transpose) in `rotations`. */
+function isFirstOfInversePair(
+  matrix: readonly number[],
+  rotations: readonly { matrix: readonly number[] }[],
+): boolean {
+  const transpose = [0, 3, 6, 1, 4, 7, 2, 5, 8].map((i) => matrix[i]);
+  const self = rotations.findIndex((r) => r.matrix === matrix);
+  const inverse = rotations.findIndex((r) => r.matrix.every((x, i) => x === transpose[i]));
+  if (inverse < 0 || inverse === self) throw new Error('C3 class: a rotation without its inverse');
+  return self < inverse;
 }
 
 interface Group {

@@ -101,9 +101,9 @@ export function decomposeCubic(
     e = integral((8 * x - c3SumK0()) / 12, 'C3');
   }
   const out = { A1: x - e, A2: y - e, E: e, T1: t1, T2: t2 };
-  for (const v of Object.values(out)) {
-    if (v < 0) throw new Error(`cubic labelling: negative irrep count from counts ${counts.join(',')}`);
-  }
+  // Called for every level at every point of a sweep: the five checks written out.
+  if (out.A1 < 0 || out.A2 < 0 || e < 0 || t1 < 0 || t2 < 0)
+    throw new Error(`cubic labelling: negative irrep count from counts ${counts.join(',')}`);
   return out;
 }
 
@@ -172,10 +172,16 @@ export function eulerAngles(m: readonly number[]): [number, number, number] {
  * Real part of ⟨D′|R|D⟩ within a block, for a spatial rotation R given by its one-electron
  * matrix `U[m′+l][m+l]` (spin untouched). R|D⟩ is expanded electron by electron, applying the
  * rotated creation operators in the order that builds the determinant, so the fermion signs
- * come out of the algebra. Entries outside the block are dropped: only the diagonal block is
+ * come out of the algebra (or, with `rotate` = rotateDeterminantsByMinors, each entry as a minor
+ * of U: cheaper for dense U). Entries outside the block are dropped: only the diagonal block is
  * needed for characters of eigenspaces that lie in it.
  */
-export function rotationBlock(l: number, block: BasisBlock, U: Complex[][]): Float64Array {
+export function rotationBlock(
+  l: number,
+  block: BasisBlock,
+  U: Complex[][],
+  rotate: typeof rotateDeterminants = rotateDeterminants,
+): Float64Array {
   const orbitals = 2 * l + 1;
   const zero = { re: 0, im: 0 };
   // Spin untouched: the spatial matrix on each spin separately.
@@ -184,7 +190,7 @@ export function rotationBlock(l: number, block: BasisBlock, U: Complex[][]): Flo
       twoMsOf(l, q) === twoMsOf(l, p) ? (U[mlOf(l, q) + l]?.[mlOf(l, p) + l] ?? zero) : zero,
     ),
   );
-  return rotateDeterminants(block, spinOrbitalU, 2 * orbitals);
+  return rotate(block, spinOrbitalU, 2 * orbitals);
 }
 
 /** One-electron rotation matrix D^l of a rotation given as a 3×3 matrix. */

@@ -36,13 +36,26 @@ export function tridiagonalQlValues(a: Float64Array, n: number): Float64Array {
   const vt = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) vt[j * n + i] = a[i * n + j] as number;
   const d = new Float64Array(n);
-  const e = new Float64Array(n);
+  tridiagonalQlValuesInPlace(vt, n, d, new Float64Array(n));
+  return d;
+}
+
+/**
+ * {@link tridiagonalQlValues} on caller-owned storage, for sweeps that solve the same block sizes
+ * thousands of times: `vt` holds the matrix transposed (row-major Aᵀ, destroyed), the ascending
+ * eigenvalues go to d[0…n−1], and `e` (length ≥ n) is scratch. The same arithmetic, so the same numbers.
+ */
+export function tridiagonalQlValuesInPlace(
+  vt: Float64Array,
+  n: number,
+  d: Float64Array,
+  e: Float64Array,
+): void {
   reduce(n, e, d, vt);
   // Without accumulation, the diagonal of the tridiagonal form is left on the diagonal of vt.
   for (let j = 0; j < n; j++) d[j] = vt[j * n + j] as number;
   e[0] = 0;
   ql(n, e, d, undefined);
-  return d;
 }
 
 /** The Householder reduction of tred2 (first part): off-diagonal into e, vectors kept in vt. */

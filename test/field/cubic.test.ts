@@ -2,7 +2,13 @@ import { describe, expect, it } from 'vitest';
 import { groundStateCrossings } from '../../src/analysis/groundState.js';
 import { freeIonTerms } from '../../src/atom/freeIon.js';
 import { InputError } from '../../src/core/errors.js';
-import { type CubicResult, cubicLevels, solveCubic } from '../../src/field/cubic.js';
+import {
+  type CubicLevel,
+  type CubicResult,
+  cubicLevels,
+  groundSpin,
+  solveCubic,
+} from '../../src/field/cubic.js';
 import { adaptedBlocks } from '../../src/field/cubicBasis.js';
 import { determinantBlock, fullHamiltonian } from '../../src/field/hamiltonian.js';
 import { symmetricEigen } from '../../src/numeric/eigen.js';
@@ -244,6 +250,35 @@ describe('solveCubic: invariants', () => {
         1,
         1e-10,
       );
+  });
+
+  it('cubicLevels without vectors gives the same labels and the very same energies as with them (C₃ trace from the parts against the eigenvector trace)', () => {
+    // Dq = 0 (whole free-ion terms degenerate, ¹I and ²I with A1, A2 and E together), B = 0
+    // (whole configurations degenerate across spins), and ordinary points in both signs of Dq.
+    const points: [number, number, number][] = [
+      [0, 900, 4000],
+      [0, 1000, 4500],
+      [700, 0, 0],
+      [-450, 800, 3600],
+      [1500, 800, 3500],
+      [2400, 650, 3100],
+    ];
+    for (let n = 1; n <= 9; n++) {
+      for (const [dq, B, C] of points) {
+        const plain = (l: CubicLevel) => [l.label, l.S, l.irrep, l.energy, l.parent];
+        const fast = cubicLevels(n, dq, B, C, 'oct', false);
+        const full = cubicLevels(n, dq, B, C, 'oct', true);
+        expect(fast.levels.map(plain)).toEqual(full.levels.map(plain));
+      }
+    }
+  });
+
+  it('groundSpin (eigenvalues of the k = 0 and 2 blocks alone) equals the S of the labelled ground level along a Dq scan', () => {
+    for (let n = 1; n <= 9; n++) {
+      for (let dq = -3000; dq <= 4000; dq += 137) {
+        expect(groundSpin(n, dq, 800, 3700)).toBe(cubicLevels(n, dq, 800, 3700, 'oct').ground.S);
+      }
+    }
   });
 
   it('labels are the same set at Dq and Dq + 1 cm⁻¹, and each moves by less than 60 cm⁻¹', () => {
