@@ -8,7 +8,7 @@
 
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { bilinear, clusterSorted, column, type SymmetricEigen, symmetricEigen } from '../numeric/eigen.js';
-import { symmetricEigenvalues } from '../numeric/eigenvalues.js';
+import { tridiagonalQlValues } from '../numeric/tridiagonalQl.js';
 import { type CubicInput, checkCubicInput, cubicLevels } from './cubic.js';
 import {
   c2Character,
@@ -145,7 +145,7 @@ export function spinOrbitEnergies(
   const pool: { cls: number; value: number }[] = [];
   let scale = 1;
   for (const b of blocks) {
-    for (const value of symmetricEigenvalues(blockHamiltonian(b, dqOct, B, C, zeta), b.masks.length)) {
+    for (const value of tridiagonalQlValues(blockHamiltonian(b, dqOct, B, C, zeta), b.masks.length)) {
       pool.push({ cls: b.cls, value });
       scale = Math.max(scale, Math.abs(value));
     }
