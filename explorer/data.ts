@@ -40,15 +40,10 @@ export interface ExplorerData {
 }
 
 /** The parameters of the view, as the controls and the permalink hold them. */
-export interface ExplorerParams {
-  readonly sample: number;
-  readonly n: number;
-  readonly geometry: Geometry;
-  readonly dq: number;
-  readonly B: number;
-  readonly cOverB: number;
-  readonly zeta: number;
-}
+export type ExplorerParams = { readonly sample: number } & Pick<
+  ExplorerSample,
+  'n' | 'geometry' | 'dq' | 'B' | 'cOverB' | 'zeta'
+>;
 
 /** One slider's range and step. */
 export interface ParamRange {
