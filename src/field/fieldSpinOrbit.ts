@@ -5,14 +5,16 @@
  * point symmetry is left to block by. Time reversal is: for even n, H is real over a basis of
  * time-reversal-even states, of the same size; for odd n (Kramers) it is diagonalised as the real
  * symmetric [[A, −B], [B, A]] of twice the size, whose spectrum is H's with every eigenvalue twice
- * (ml-matrix has no Hermitian solver). The levels are named by what survives in low symmetry: their degeneracy (Kramers
- * doublets for odd n), the spin–orbit-free level they come from, and, where the field is near
- * cubic, the double-group level of the nearest cubic field (weights of the eigenvectors).
+ * (ml-matrix has no Hermitian solver). The levels are named by their degeneracy (Kramers
+ * doublets for odd n), the spin–orbit-free level they come from, where the field is near cubic
+ * the double-group level of the nearest cubic field (weights of the eigenvectors), and, given the
+ * point group, their irreps in its double group (doubleGroupLabels.ts).
  */
 
 import { microstates, spinOrbital } from '../atom/microstates.js';
 import { type OneBodyTerm, oneBodyMatrix } from '../atom/operators.js';
 import { clusterSorted, column, symmetricEigen } from '../numeric/eigen.js';
+import { type ComplexVector, levelLabel, spaceCharacters, spinOrbitSymmetry } from './doubleGroupLabels.js';
 import { type DeterminantBlock, determinantBlock } from './hamiltonian.js';
 import {
   checkFieldInput,
@@ -21,6 +23,7 @@ import {
   type FieldInput,
   type FieldResult,
 } from './lowSymmetrySolver.js';
+import type { PointGroup } from './pointGroups.js';
 import { fieldInComplexBasis } from './realOrbitals.js';
 import { checkZeta, spinOrbitTerms } from './spinOrbit.js';
 
@@ -59,6 +62,13 @@ export interface FieldSpinOrbitLevel {
   readonly parent?: SpinOrbitParent;
   /** The cubic double-group level it lies in most, where that reference was given. */
   readonly cubicParent?: SpinOrbitParent;
+  /**
+   * Its irreps in the point group's double group, where the group was given and is tabulated:
+   * for odd n a spinor irrep in Bethe's Γ notation (`Γ7g`, `Γ4`, `Γ5+Γ6` for a time-reversal
+   * pair), for even n the single-valued irrep of the total state (`B2g`, `E`); irreps joined by
+   * `+` where levels fall together; `?` where the characters fit no sum of irreps.
+   */
+  readonly pointGroupLabel?: string;
 }
 
 /** Levels with spin–orbit coupling in a general field. */
@@ -71,6 +81,8 @@ export interface FieldSpinOrbitResult {
   readonly kramers: boolean;
   /** Energy of the ground level on the Hamiltonian's own scale (the levels are measured from it), cm⁻¹. */
   readonly groundEnergy: number;
+  /** The point group whose irreps label the levels (`pointGroupLabel`), where there is one. */
+  readonly pointGroup?: string;
   readonly levels: readonly FieldSpinOrbitLevel[];
 }
 
@@ -80,6 +92,8 @@ export interface FieldSpinOrbitOptions {
   readonly spinFree?: SpinOrbitReference;
   /** Name each level by the levels of this (cubic, with ζ) reference. */
   readonly cubic?: SpinOrbitReference;
+  /** Label each level by the irreps of this group's double group (the field must have its symmetry). */
+  readonly group?: PointGroup;
 }
 
 interface FullBasis {
@@ -273,6 +287,29 @@ function embeddedLevels(input: FieldSpinOrbitInput, withVectors: boolean): Embed
   }));
 }
 
+/** A level's states over the determinants, and how often each comes (2 in the embedded form of odd n). */
+function complexStates(n: number, level: EmbeddedLevel): { vectors: ComplexVector[]; copies: number } {
+  const size = fullBasis(n).block.masks.length;
+  if (n % 2 === 1) {
+    const vectors = level.vectors.map((v) => ({ re: v.subarray(0, size), im: v.subarray(size) }));
+    return { vectors, copies: 2 };
+  }
+  const basis = timeEvenBasis(n);
+  const vectors = level.vectors.map((c) => {
+    const re = new Float64Array(size);
+    const im = new Float64Array(size);
+    basis.forEach((u, k) => {
+      const x = c[k] as number;
+      for (const e of u) {
+        re[e.index] = (re[e.index] as number) + x * e.re;
+        im[e.index] = (im[e.index] as number) + x * e.im;
+      }
+    });
+    return { re, im };
+  });
+  return { vectors, copies: 1 };
+}
+
 /** Fraction of `level` in the span of `ref` (for odd n, real traces of the embedded projectors, whose ratio is the complex one). */
 function weightIn(level: EmbeddedLevel, ref: EmbeddedLevel): number {
   let w = 0;
@@ -315,8 +352,9 @@ function bestParent(level: EmbeddedLevel, refs: readonly { level: EmbeddedLevel;
 }
 
 /**
- * Levels of dⁿ in a general field with spin–orbit coupling, each with its degeneracy and, where
- * references are given, the spin–orbit-free and cubic levels it lies in most.
+ * Levels of dⁿ in a general field with spin–orbit coupling, each with its degeneracy, where
+ * references are given the spin–orbit-free and cubic levels it lies in most, and where a point
+ * group is given its irreps in that group's double group.
  * @throws InputError for n outside 1…9, a bad B, C or ζ, or a field that is not a finite
  * symmetric 5×5 matrix.
  */
@@ -326,7 +364,10 @@ export function solveFieldSpinOrbit(
 ): FieldSpinOrbitResult {
   checkFieldInput(input);
   checkZeta(input.zeta);
-  const named = options.spinFree !== undefined || options.cubic !== undefined;
+  const symmetry = options.group
+    ? spinOrbitSymmetry(fullBasis(input.n).block, input.n, options.group)
+    : undefined;
+  const named = options.spinFree !== undefined || options.cubic !== undefined || symmetry !== undefined;
   const levels = embeddedLevels(input, named);
   const spinFree = options.spinFree ? labelledReference(input, options.spinFree) : [];
   const cubic = options.cubic ? labelledReference(input, options.cubic) : [];
@@ -338,15 +379,22 @@ export function solveFieldSpinOrbit(
     zeta: input.zeta,
     kramers: input.n % 2 === 1,
     groundEnergy: ground,
+    ...(symmetry ? { pointGroup: symmetry.group } : {}),
     levels: levels.map((level, i) => {
       const parent = spinFree.length > 0 ? bestParent(level, spinFree) : undefined;
       const cubicParent = cubic.length > 0 ? bestParent(level, cubic) : undefined;
+      let pointGroupLabel: string | undefined;
+      if (symmetry) {
+        const { vectors, copies } = complexStates(input.n, level);
+        pointGroupLabel = levelLabel(symmetry, spaceCharacters(symmetry, vectors, copies));
+      }
       return {
         index: i + 1,
         energy: level.energy - ground,
         degeneracy: level.degeneracy,
         ...(parent ? { parent } : {}),
         ...(cubicParent ? { cubicParent } : {}),
+        ...(pointGroupLabel ? { pointGroupLabel } : {}),
       };
     }),
   };
