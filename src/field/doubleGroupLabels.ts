@@ -5,6 +5,11 @@
  * (Γ7g, Γ4, Γ5+Γ6, …), even n the single-valued irreps of the total state (B2g, E, …). Each
  * operation is taken as the SU(2) element of its proper part whose rotation angle is at most π
  * (spinorRotation), which is the element the tables of characterTables.ts are written for.
+ * The states are first turned into the group's standard frame (principal axis z, reference axis
+ * x), where every operation but the cubic threefold ones maps a determinant onto one determinant
+ * (rotations about z are diagonal over |m_l m_s⟩, twofold ones about axes in the xy plane send m
+ * to −m), so one dense rotation of the states replaces one per class. Conjugation keeps the trace
+ * of the SU(2) element, so the element chosen in the frame is the one chosen outside it.
  */
 
 import { rotateDeterminants } from '../atom/determinantRotation.js';
@@ -17,6 +22,7 @@ import {
 } from './characterTables.js';
 import { spinorRotation } from './doubleGroup.js';
 import type { PointGroup } from './pointGroups.js';
+import { cross } from './realOrbitals.js';
 
 /** A state over the determinants: real and imaginary parts of its coefficients. */
 export interface ComplexVector {
@@ -38,8 +44,10 @@ export interface SpinOrbitSymmetry {
   readonly table: GroupCharacters;
   /** The irreps the levels reduce to: spinor irreps for odd n, single-valued ones for even n. */
   readonly irreps: readonly GroupIrrep[];
-  /** One operation of each class over the determinants. */
+  /** One operation of each class over the determinants, in the standard frame. */
   readonly operations: readonly SparseOperator[];
+  /** The rotation into the standard frame over the determinants (N×N, re and im), or null where the frames agree. */
+  readonly frame: { readonly re: Float64Array; readonly im: Float64Array } | null;
 }
 
 /** Entries smaller than this are dropped from an operation's matrix (they are rounding). */
@@ -63,19 +71,36 @@ function sparse(re: Float64Array, im: Float64Array, size: number): SparseOperato
   return { columns, re: res, im: ims };
 }
 
+/** Entries of a one-electron matrix smaller than this are rounding of a zero (cos π/2 and the like). */
+const ONE_ELECTRON_CUTOFF = 1e-14;
+
 /**
- * ⟨D′|R|D⟩ over the block for an operation given by its 3×3 matrix: the spinor rotation of its
- * proper part on every electron. rotateDeterminants gives the real part only; the imaginary part
- * is the real part for U·e^{−iπ/2n}, as R scales by e^{−iπ/2} = −i when each of the n electrons
- * gets that phase.
+ * ⟨D′|R|D⟩ over the block (re and im, row-major) for a proper rotation given by its 3×3 matrix:
+ * its spinor rotation on every electron. rotateDeterminants gives the real part only; the
+ * imaginary part is the real part for U·e^{−iπ/2n}, as R scales by e^{−iπ/2} = −i when each of
+ * the n electrons gets that phase.
  */
-function operationOnDeterminants(block: BasisBlock, n: number, matrix: readonly number[], det: number) {
-  const u = spinorRotation(matrix.map((x) => det * x));
+function rotationOnDeterminants(block: BasisBlock, n: number, matrix: readonly number[]) {
+  const clean = (x: number) => (Math.abs(x) < ONE_ELECTRON_CUTOFF ? 0 : x);
+  const u = spinorRotation(matrix).map((row) => row.map((x) => ({ re: clean(x.re), im: clean(x.im) })));
   const c = Math.cos(-Math.PI / (2 * n));
   const s = Math.sin(-Math.PI / (2 * n));
   const turned = u.map((row) => row.map((x) => ({ re: x.re * c - x.im * s, im: x.re * s + x.im * c })));
-  const size = block.masks.length;
-  return sparse(rotateDeterminants(block, u, 10), rotateDeterminants(block, turned, 10), size);
+  return { re: rotateDeterminants(block, u, 10), im: rotateDeterminants(block, turned, 10) };
+}
+
+/** F R Fᵀ for 3×3 row-major matrices. */
+function conjugated(f: readonly number[], r: readonly number[]): number[] {
+  const out: number[] = [];
+  for (let i = 0; i < 3; i++) {
+    for (let j = 0; j < 3; j++) {
+      let sum = 0;
+      for (let a = 0; a < 3; a++)
+        for (let b = 0; b < 3; b++) sum += (f[3 * i + a] ?? 0) * (r[3 * a + b] ?? 0) * (f[3 * j + b] ?? 0);
+      out.push(sum);
+    }
+  }
+  return out;
 }
 
 /**
@@ -91,12 +116,50 @@ export function spinOrbitSymmetry(
   if (!table) return undefined;
   const irreps = n % 2 === 1 ? table.spinors : table.irreps;
   if (irreps.length === 0) return undefined;
+  // Rows x, y = z × x, z: lab coordinates to the standard frame's, a proper rotation.
+  const f = [...group.xAxis, ...cross(group.zAxis, group.xAxis), ...group.zAxis];
+  const size = block.masks.length;
   const operations = table.representatives.map((i) => {
     const op = group.operations[i];
     if (!op) throw new Error(`point group ${group.name}: no operation ${i}`);
-    return operationOnDeterminants(block, n, op.matrix, op.det);
+    const m = rotationOnDeterminants(
+      block,
+      n,
+      conjugated(
+        f,
+        op.matrix.map((x) => op.det * x),
+      ),
+    );
+    return sparse(m.re, m.im, size);
   });
-  return { group: group.name, table, irreps, operations };
+  const identity = f.every((x, k) => Math.abs(x - (k % 4 === 0 ? 1 : 0)) < 1e-12);
+  const frame = identity ? null : rotationOnDeterminants(block, n, f);
+  return { group: group.name, table, irreps, operations, frame };
+}
+
+/** The state turned into the standard frame: w = D(F) z. */
+function inFrame(symmetry: SpinOrbitSymmetry, z: ComplexVector): ComplexVector {
+  const { frame } = symmetry;
+  if (!frame) return z;
+  const size = z.re.length;
+  const re = new Float64Array(size);
+  const im = new Float64Array(size);
+  for (let i = 0; i < size; i++) {
+    let wr = 0;
+    let wi = 0;
+    const offset = i * size;
+    for (let j = 0; j < size; j++) {
+      const fr = frame.re[offset + j] as number;
+      const fi = frame.im[offset + j] as number;
+      const xr = z.re[j] as number;
+      const xi = z.im[j] as number;
+      wr += fr * xr - fi * xi;
+      wi += fr * xi + fi * xr;
+    }
+    re[i] = wr;
+    im[i] = wi;
+  }
+  return { re, im };
 }
 
 /** Re⟨z|R|z⟩ for a sparse R. */
@@ -122,16 +185,10 @@ function expectation(op: SparseOperator, z: ComplexVector): number {
   return sum;
 }
 
-/**
- * The real characters of the group's classes over the space spanned by orthonormal `vectors`
- * (each entered `copies` times, as the embedded real form of odd n gives each state twice).
- */
-export function spaceCharacters(
-  symmetry: SpinOrbitSymmetry,
-  vectors: readonly ComplexVector[],
-  copies = 1,
-): number[] {
-  return symmetry.operations.map((op) => vectors.reduce((s, z) => s + expectation(op, z), 0) / copies);
+/** The real characters of the group's classes over the space spanned by orthonormal `vectors`. */
+export function spaceCharacters(symmetry: SpinOrbitSymmetry, vectors: readonly ComplexVector[]): number[] {
+  const turned = vectors.map((z) => inFrame(symmetry, z));
+  return symmetry.operations.map((op) => turned.reduce((s, w) => s + expectation(op, w), 0));
 }
 
 /**

@@ -287,12 +287,46 @@ function embeddedLevels(input: FieldSpinOrbitInput, withVectors: boolean): Embed
   }));
 }
 
-/** A level's states over the determinants, and how often each comes (2 in the embedded form of odd n). */
-function complexStates(n: number, level: EmbeddedLevel): { vectors: ComplexVector[]; copies: number } {
+/**
+ * An orthonormal basis of the complex span of `states`, `count` long: Gram–Schmidt over the complex
+ * inner product (the embedded real vectors of a level of odd n give each state twice, as z and iz).
+ */
+function complexBasis(states: readonly ComplexVector[], count: number): ComplexVector[] {
+  const out: ComplexVector[] = [];
+  for (const z of states) {
+    if (out.length === count) break;
+    const re = Float64Array.from(z.re);
+    const im = Float64Array.from(z.im);
+    for (const q of out) {
+      // c = ⟨q|r⟩; r −= c q
+      let cr = 0;
+      let ci = 0;
+      for (let i = 0; i < re.length; i++) {
+        cr += (q.re[i] as number) * (re[i] as number) + (q.im[i] as number) * (im[i] as number);
+        ci += (q.re[i] as number) * (im[i] as number) - (q.im[i] as number) * (re[i] as number);
+      }
+      for (let i = 0; i < re.length; i++) {
+        const qr = q.re[i] as number;
+        const qi = q.im[i] as number;
+        re[i] = (re[i] as number) - (cr * qr - ci * qi);
+        im[i] = (im[i] as number) - (cr * qi + ci * qr);
+      }
+    }
+    let norm = 0;
+    for (let i = 0; i < re.length; i++) norm += (re[i] as number) ** 2 + (im[i] as number) ** 2;
+    if (norm < 0.25) continue;
+    const scale = 1 / Math.sqrt(norm);
+    out.push({ re: re.map((x) => x * scale), im: im.map((x) => x * scale) });
+  }
+  return out;
+}
+
+/** An orthonormal basis of a level's states over the determinants. */
+function complexStates(n: number, level: EmbeddedLevel): ComplexVector[] {
   const size = fullBasis(n).block.masks.length;
   if (n % 2 === 1) {
-    const vectors = level.vectors.map((v) => ({ re: v.subarray(0, size), im: v.subarray(size) }));
-    return { vectors, copies: 2 };
+    const states = level.vectors.map((v) => ({ re: v.subarray(0, size), im: v.subarray(size) }));
+    return complexBasis(states, level.degeneracy);
   }
   const basis = timeEvenBasis(n);
   const vectors = level.vectors.map((c) => {
@@ -307,7 +341,7 @@ function complexStates(n: number, level: EmbeddedLevel): { vectors: ComplexVecto
     });
     return { re, im };
   });
-  return { vectors, copies: 1 };
+  return vectors;
 }
 
 /** Fraction of `level` in the span of `ref` (for odd n, real traces of the embedded projectors, whose ratio is the complex one). */
@@ -385,8 +419,7 @@ export function solveFieldSpinOrbit(
       const cubicParent = cubic.length > 0 ? bestParent(level, cubic) : undefined;
       let pointGroupLabel: string | undefined;
       if (symmetry) {
-        const { vectors, copies } = complexStates(input.n, level);
-        pointGroupLabel = levelLabel(symmetry, spaceCharacters(symmetry, vectors, copies));
+        pointGroupLabel = levelLabel(symmetry, spaceCharacters(symmetry, complexStates(input.n, level)));
       }
       return {
         index: i + 1,

@@ -1,9 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import type { Ligand } from '../../src/field/angularOverlap.js';
-import { groupCharacters } from '../../src/field/characterTables.js';
+import { type GroupCharacters, groupCharacters } from '../../src/field/characterTables.js';
 import { solveDistortedSpinOrbit } from '../../src/field/distortedComplex.js';
 import { polar, presetLigands } from '../../src/field/geometries.js';
 import { pointGroup } from '../../src/field/pointGroups.js';
+import { apply3, axisRotation } from '../../src/field/realOrbitals.js';
 
 const BONDS = {
   L: { eSigma: 6000, ePi: 1000 },
@@ -124,4 +125,161 @@ describe('spinor character tables (characterTables.ts) against the orthogonality
       });
     });
   }
+});
+
+/**
+ * Compatibility of O* with D4* (z a fourfold axis) and D3* (z a threefold axis), Koster, Dimmock,
+ * Wheeler & Statz, Properties of the Thirty-Two Point Groups (1963), compatibility tables; the
+ * single-valued part is the usual correlation table (Cotton, Chemical Applications of Group
+ * Theory, 3rd ed., 1990, appendix IIB). Every irrep with g, as d states are gerade.
+ */
+const O_TO_D4: Record<string, string[]> = {
+  Γ1: ['A1g'],
+  Γ2: ['B1g'],
+  Γ3: ['A1g', 'B1g'],
+  Γ4: ['A2g', 'Eg'],
+  Γ5: ['B2g', 'Eg'],
+  Γ6: ['Γ6g'],
+  Γ7: ['Γ7g'],
+  Γ8: ['Γ6g', 'Γ7g'],
+};
+const O_TO_D3: Record<string, string[]> = {
+  Γ6: ['Γ4g'],
+  Γ7: ['Γ4g'],
+  Γ8: ['Γ4g', 'Γ5g+Γ6g'],
+};
+
+/**
+ * For each cubic level (by its label in solveSpinOrbit, e.g. `Γ8(2)`), the sorted labels of the
+ * lower-symmetry levels whose cubic parent it is; cubic levels that fall together are left out.
+ */
+function descent(levels: readonly { pointGroupLabel?: string; cubicParent?: { label: string } }[]) {
+  const out = new Map<string, string[]>();
+  for (const l of levels) {
+    const parent = l.cubicParent?.label;
+    if (!parent || parent.includes('/')) continue;
+    out.set(parent, [...(out.get(parent) ?? []), l.pointGroupLabel ?? 'none'].sort());
+  }
+  return out;
+}
+
+function expectDescent(
+  levels: readonly { pointGroupLabel?: string; cubicParent?: { label: string } }[],
+  table: Record<string, string[]>,
+): void {
+  const map = descent(levels);
+  expect(map.size).toBeGreaterThan(3);
+  for (const [parent, labels] of map) {
+    const irrep = parent.replace(/\(\d+\)$/, '');
+    expect({ parent, labels }).toEqual({ parent, labels: [...(table[irrep] ?? ['?'])].sort() });
+  }
+}
+
+const SLIGHTLY_ELONGATED = {
+  kind: 'aom' as const,
+  ligands: presetLigands('elongated-octahedron'),
+  parameters: { eq: { eSigma: 6000, ePi: 1000 }, ax: { eSigma: 5900, ePi: 980 } },
+};
+
+describe('double-group labels: descent from the cubic levels', () => {
+  it('solveDistortedSpinOrbit splits each O* level of a slightly elongated d³ and d⁷ octahedron into the D4* irreps Γ6→Γ6, Γ7→Γ7, Γ8→Γ6+Γ7', () => {
+    for (const n of [3, 7]) {
+      const r = solveDistortedSpinOrbit({ n, B: 700, C: 3000, zeta: 300, field: SLIGHTLY_ELONGATED });
+      expect(r.group).toBe('D4h');
+      expectDescent(r.spinOrbit.levels, O_TO_D4);
+    }
+  });
+
+  it('solveDistortedSpinOrbit splits each O* level of a slightly trigonal d³ field into the D3* irreps Γ6→Γ4, Γ7→Γ4, Γ8→Γ4+Γ5+Γ6', () => {
+    const r = solveDistortedSpinOrbit({
+      n: 3,
+      B: 700,
+      C: 3000,
+      zeta: 300,
+      field: { kind: 'trigonal', dq: 1500, dSigma: 40, dTau: 25 },
+    });
+    expect(r.group).toBe('D3d');
+    expectDescent(r.spinOrbit.levels, O_TO_D3);
+  });
+
+  it('solveDistortedSpinOrbit labels even n by the single-valued irreps of the total state: d² and d⁸ descend O → D4 (Γ5 → B2g + Eg for ³A2g of d⁸ with ζ)', () => {
+    for (const n of [2, 8]) {
+      const r = solveDistortedSpinOrbit({ n, B: 700, C: 3000, zeta: 300, field: SLIGHTLY_ELONGATED });
+      expectDescent(r.spinOrbit.levels, O_TO_D4);
+    }
+    const d8 = solveDistortedSpinOrbit({ n: 8, B: 700, C: 3000, zeta: 300, field: SLIGHTLY_ELONGATED });
+    const ground = d8.spinOrbit.levels.filter((l) => l.cubicParent?.label === 'Γ5(1)');
+    expect(ground.map((l) => l.pointGroupLabel).sort()).toEqual(['B2g', 'Eg']);
+    expect(
+      ground.every((l) => l.parent?.label.startsWith('3A2g') || l.parent?.label.startsWith('3B1g')),
+    ).toBe(true);
+  });
+});
+
+/** The dimension of a level label such as `Γ6g`, `2Γ7`, `Γ5+Γ6` or `A1g+B2g` in a table. */
+function labelDimension(table: GroupCharacters, label: string): number {
+  const names = new Map([...table.irreps, ...table.spinors].map((g) => [g.name, g.dimension]));
+  let rest = label;
+  let sum = 0;
+  // Longest names first, so that a pair `Γ5+Γ6` is read whole.
+  const ordered = [...names.keys()].sort((a, b) => b.length - a.length);
+  while (rest.length > 0) {
+    const m = /^(\d*)/.exec(rest);
+    const count = m?.[1] ? Number(m[1]) : 1;
+    rest = rest.slice(m?.[1]?.length ?? 0);
+    const name = ordered.find((x) => rest.startsWith(x));
+    if (!name) throw new Error(`label ${label}: no irrep at ${rest}`);
+    sum += count * (names.get(name) ?? 0);
+    rest = rest.slice(name.length).replace(/^\+/, '');
+  }
+  return sum;
+}
+
+describe('double-group labels: dimensions and frames', () => {
+  it('solveDistortedSpinOrbit labels every level of d¹…d⁴, d⁷…d⁹ in an elongated octahedron by irreps whose dimensions add to its degeneracy, C(10, n) in all, odd n one Kramers irrep each', () => {
+    const field = {
+      kind: 'aom' as const,
+      ligands: presetLigands('elongated-octahedron'),
+      parameters: { eq: { eSigma: 6000, ePi: 1000 }, ax: { eSigma: 4000, ePi: 600 } },
+    };
+    const table = groupCharacters(pointGroup(field.ligands));
+    if (!table) throw new Error('no D4h table');
+    const states = [10, 45, 120, 210, 252, 210, 120, 45, 10];
+    // d⁵ and d⁶ (252 and 210 states over the full basis) are left out to keep the suite fast.
+    for (const n of [1, 2, 3, 4, 7, 8, 9]) {
+      const r = solveDistortedSpinOrbit({ n, B: 700, C: 3000, zeta: 400, field });
+      let total = 0;
+      for (const l of r.spinOrbit.levels) {
+        const label = l.pointGroupLabel ?? '?';
+        expect(labelDimension(table, label)).toBe(l.degeneracy);
+        if (n % 2 === 1) expect(['Γ6g', 'Γ7g']).toContain(label);
+        total += l.degeneracy;
+      }
+      expect(total).toBe(states[n - 1]);
+    }
+  });
+
+  it('solveDistortedSpinOrbit gives the same labels for a rotated copy of the ligands (D4h d³ and d⁸, D3h d³, D3 d²)', () => {
+    const turn = axisRotation([0.3, -0.5, 1], 0.83);
+    const cases = [
+      { n: 3, ligands: presetLigands('elongated-octahedron') },
+      { n: 8, ligands: presetLigands('elongated-octahedron') },
+      { n: 3, ligands: presetLigands('trigonal-bipyramid') },
+      { n: 2, ligands: TWISTED_PRISM },
+    ];
+    for (const c of cases) {
+      const labels = (ligands: Ligand[]) =>
+        solveDistortedSpinOrbit({
+          n: c.n,
+          B: 700,
+          C: 3000,
+          zeta: 400,
+          field: { kind: 'aom', ligands, parameters: BONDS },
+        }).spinOrbit.levels.map((l) => l.pointGroupLabel);
+      const turned = c.ligands.map((l) => ({ ...l, direction: apply3(turn, l.direction) }));
+      const a = labels(c.ligands);
+      expect(a).not.toContain('?');
+      expect(labels(turned)).toEqual(a);
+    }
+  });
 });
