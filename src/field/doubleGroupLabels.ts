@@ -22,7 +22,7 @@ import {
 } from './characterTables.js';
 import { spinorRotation } from './doubleGroup.js';
 import type { PointGroup } from './pointGroups.js';
-import { cross } from './realOrbitals.js';
+import { cross, dot } from './realOrbitals.js';
 
 /** A state over the determinants: real and imaginary parts of its coefficients. */
 export interface ComplexVector {
@@ -103,6 +103,20 @@ function conjugated(f: readonly number[], r: readonly number[]): number[] {
   return out;
 }
 
+/** Rows x, y = z × x, z of the group's standard frame: lab coordinates to the frame's, a proper rotation. */
+export function standardFrame(group: PointGroup): number[] {
+  return [...group.xAxis, ...cross(group.zAxis, group.xAxis), ...group.zAxis];
+}
+
+/** The order of the group's highest rotation about z, counting the proper parts of S_n and σh. */
+export function principalOrder(group: PointGroup): number {
+  let order = 1;
+  for (const op of group.operations) {
+    if (Math.abs(dot(op.axis, group.zAxis)) > 1 - 1e-6) order = Math.max(order, op.order);
+  }
+  return order;
+}
+
 /**
  * The operations of a point group on all determinants of dⁿ (the `block`), or undefined where the
  * group has no table here (for odd n: no spinor table).
@@ -116,8 +130,7 @@ export function spinOrbitSymmetry(
   if (!table) return undefined;
   const irreps = n % 2 === 1 ? table.spinors : table.irreps;
   if (irreps.length === 0) return undefined;
-  // Rows x, y = z × x, z: lab coordinates to the standard frame's, a proper rotation.
-  const f = [...group.xAxis, ...cross(group.zAxis, group.xAxis), ...group.zAxis];
+  const f = standardFrame(group);
   const size = block.masks.length;
   const operations = table.representatives.map((i) => {
     const op = group.operations[i];
@@ -185,9 +198,16 @@ function expectation(op: SparseOperator, z: ComplexVector): number {
   return sum;
 }
 
-/** The real characters of the group's classes over the space spanned by orthonormal `vectors`. */
-export function spaceCharacters(symmetry: SpinOrbitSymmetry, vectors: readonly ComplexVector[]): number[] {
-  const turned = vectors.map((z) => inFrame(symmetry, z));
+/**
+ * The real characters of the group's classes over the space spanned by orthonormal `vectors`,
+ * given over the lab frame's determinants or (`standard`) already over the group's frame's.
+ */
+export function spaceCharacters(
+  symmetry: SpinOrbitSymmetry,
+  vectors: readonly ComplexVector[],
+  frame: 'lab' | 'standard' = 'lab',
+): number[] {
+  const turned = frame === 'lab' ? vectors.map((z) => inFrame(symmetry, z)) : vectors;
   return symmetry.operations.map((op) => turned.reduce((s, w) => s + expectation(op, w), 0));
 }
 

@@ -1,10 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import type { Ligand } from '../../src/field/angularOverlap.js';
 import { type GroupCharacters, groupCharacters } from '../../src/field/characterTables.js';
-import { solveDistortedSpinOrbit } from '../../src/field/distortedComplex.js';
+import { groupOf, solveDistorted, solveDistortedSpinOrbit } from '../../src/field/distortedComplex.js';
+import { solveFieldSpinOrbit, spinFreeReference } from '../../src/field/fieldSpinOrbit.js';
 import { polar, presetLigands } from '../../src/field/geometries.js';
 import { pointGroup } from '../../src/field/pointGroups.js';
 import { apply3, axisRotation } from '../../src/field/realOrbitals.js';
+import { expectClose } from '../helpers.js';
 
 const BONDS = {
   L: { eSigma: 6000, ePi: 1000 },
@@ -236,7 +238,7 @@ function labelDimension(table: GroupCharacters, label: string): number {
 }
 
 describe('double-group labels: dimensions and frames', () => {
-  it('solveDistortedSpinOrbit labels every level of d¹…d⁴, d⁷…d⁹ in an elongated octahedron by irreps whose dimensions add to its degeneracy, C(10, n) in all, odd n one Kramers irrep each', () => {
+  it('solveDistortedSpinOrbit labels every level of d¹…d⁹ in an elongated octahedron by irreps whose dimensions add to its degeneracy, C(10, n) in all, odd n one Kramers irrep each', () => {
     const field = {
       kind: 'aom' as const,
       ligands: presetLigands('elongated-octahedron'),
@@ -245,8 +247,7 @@ describe('double-group labels: dimensions and frames', () => {
     const table = groupCharacters(pointGroup(field.ligands));
     if (!table) throw new Error('no D4h table');
     const states = [10, 45, 120, 210, 252, 210, 120, 45, 10];
-    // d⁵ and d⁶ (252 and 210 states over the full basis) are left out to keep the suite fast.
-    for (const n of [1, 2, 3, 4, 7, 8, 9]) {
+    for (let n = 1; n <= 9; n++) {
       const r = solveDistortedSpinOrbit({ n, B: 700, C: 3000, zeta: 400, field });
       let total = 0;
       for (const l of r.spinOrbit.levels) {
@@ -280,6 +281,43 @@ describe('double-group labels: dimensions and frames', () => {
       const a = labels(c.ligands);
       expect(a).not.toContain('?');
       expect(labels(turned)).toEqual(a);
+    }
+  });
+});
+
+describe('solveFieldSpinOrbit blocked by 2M_J mod 2k in the group frame', () => {
+  it('solveFieldSpinOrbit with a group gives the levels, parents and labels of the full matrix (blocked: false) to 1e-7 cm⁻¹, for D4h (turned), D3d, D3h and C2v', () => {
+    const turn = axisRotation([0.3, -0.5, 1], 0.83);
+    const cases = [
+      {
+        n: 3,
+        ligands: presetLigands('elongated-octahedron').map((l) => ({
+          ...l,
+          direction: apply3(turn, l.direction),
+        })),
+      },
+      { n: 2, ligands: presetLigands('trigonal-antiprism') },
+      { n: 3, ligands: presetLigands('trigonal-bipyramid') },
+      { n: 3, ligands: presetLigands('cis-MA4B2') },
+    ];
+    for (const c of cases) {
+      const field = { kind: 'aom' as const, ligands: c.ligands, parameters: BONDS };
+      const base = solveDistorted({ n: c.n, B: 700, C: 3000, field });
+      const options = { spinFree: spinFreeReference(base.field, base), group: groupOf(field) };
+      const input = { n: c.n, field: base.field, B: 700, C: 3000, zeta: 500 };
+      const fast = solveFieldSpinOrbit(input, options).levels;
+      const slow = solveFieldSpinOrbit(input, { ...options, blocked: false }).levels;
+      expect(fast.length).toBe(slow.length);
+      fast.forEach((l, i) => {
+        const s = slow[i];
+        expectClose(l.energy, s?.energy ?? Number.NaN, 0, 1e-7);
+        expect([l.degeneracy, l.pointGroupLabel, l.parent?.label]).toEqual([
+          s?.degeneracy,
+          s?.pointGroupLabel,
+          s?.parent?.label,
+        ]);
+        expectClose(l.parent?.weight, s?.parent?.weight ?? Number.NaN, 0, 1e-8);
+      });
     }
   });
 });
