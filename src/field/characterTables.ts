@@ -200,8 +200,15 @@ const C2V_TABLE: CharacterTable = {
   ],
 };
 
+/**
+ * C2*, Cs*: the two one-dimensional spinor irreps Γ3, Γ4 (χ = ±i on the twofold element) are
+ * complex conjugates, kept together by time reversal (Koster 1963; the numbering from memory).
+ */
+const BINARY_SPINORS: CharacterTable['spinors'] = [['Γ3+Γ4', [2, 0]]];
+
 const C2_TABLE: CharacterTable = {
   n: 2,
+  spinors: BINARY_SPINORS,
   classes: [E, { order: 2 }],
   irreps: [
     ['A', [1, 1]],
@@ -211,6 +218,7 @@ const C2_TABLE: CharacterTable = {
 
 const CS_TABLE: CharacterTable = {
   n: 1,
+  spinors: BINARY_SPINORS,
   classes: [E, { det: -1, order: 2 }],
   irreps: [
     ["A'", [1, 1]],
@@ -234,8 +242,17 @@ const S4_TABLE: CharacterTable = {
   irreps: CYCLIC4_IRREPS,
 };
 
+/**
+ * C3*: Γ5, Γ6 (χ(C3) = e^{±iπ/3}) complex conjugates kept together by time reversal, their sum
+ * D^½; Γ4 (χ(C3) = −1) real, so time reversal doubles it: a Kramers doublet 2Γ4 (Koster 1963;
+ * the numbering from memory).
+ */
 const C3_TABLE: CharacterTable = {
   n: 3,
+  spinors: [
+    ['Γ5+Γ6', [2, 1]],
+    ['Γ4', [1, -1]],
+  ],
   classes: [E, { order: 3 }],
   irreps: [
     ['A', [1, 1]],

@@ -36,6 +36,39 @@ const RECTANGULAR: Ligand[] = [
   { kind: 'C', direction: [0, 0, -1] },
 ];
 
+/** Ligands with only a twofold axis z: C2; with their inversion images too: C2h. */
+const TWOFOLD_ONLY: Ligand[] = [
+  { kind: 'A', direction: [1, 0.2, 0.3] },
+  { kind: 'A', direction: [-1, -0.2, 0.3] },
+  { kind: 'B', direction: [0.3, 1, -0.2] },
+  { kind: 'B', direction: [-0.3, -1, -0.2] },
+];
+const TWOFOLD_CENTRED: Ligand[] = TWOFOLD_ONLY.flatMap((l) => [
+  l,
+  { ...l, direction: [-l.direction[0], -l.direction[1], -l.direction[2]] },
+]);
+
+/** Ligands with only the mirror plane xz: Cs. */
+const MIRROR_ONLY: Ligand[] = [
+  { kind: 'A', direction: [1, 0, 0] },
+  { kind: 'B', direction: [0, 0, 1] },
+  { kind: 'C', direction: [0, 1, 0] },
+  { kind: 'C', direction: [0, -1, 0] },
+  { kind: 'L', direction: [-1, 0, -0.5] },
+];
+
+/** Two kinds of ligand above and below, turned against each other: C3; a propeller and its inversion image: S6. */
+const THREEFOLD_ONLY: Ligand[] = [0, 120, 240].flatMap((phi) => [
+  polar('A', 60, phi + 10),
+  polar('B', 120, phi + 50),
+]);
+const THREEFOLD_CENTRED: Ligand[] = [0, 120, 240].flatMap((phi) => [
+  polar('A', 60, phi + 10),
+  polar('A', 120, phi + 190),
+  polar('B', 80, phi + 40),
+  polar('B', 100, phi + 220),
+]);
+
 /** One ligand set of each group with the double-group levels of d¹ with ζ. */
 const CASES: { group: string; ligands: Ligand[]; d1: Record<string, number> }[] = [
   // Oh: t2g ⊗ Γ6 = Γ7 + Γ8, eg ⊗ Γ6 = Γ8 (Koster 1963, product table of O).
@@ -55,6 +88,13 @@ const CASES: { group: string; ligands: Ligand[]; d1: Record<string, number> }[] 
   // C2v, D2h: one spinor irrep Γ5, so five Kramers doublets Γ5 (Koster 1963).
   { group: 'C2v', ligands: presetLigands('cis-MA4B2'), d1: { Γ5: 5 } },
   { group: 'D2h', ligands: RECTANGULAR, d1: { Γ5g: 5 } },
+  // C2, Cs, C2h: the one time-reversal pair Γ3+Γ4 (Koster 1963).
+  { group: 'C2', ligands: TWOFOLD_ONLY, d1: { 'Γ3+Γ4': 5 } },
+  { group: 'Cs', ligands: MIRROR_ONLY, d1: { 'Γ3+Γ4': 5 } },
+  { group: 'C2h', ligands: TWOFOLD_CENTRED, d1: { 'Γ3g+Γ4g': 5 } },
+  // C3: a + 2e; A ⊗ (Γ5+Γ6) = Γ5+Γ6, E ⊗ (Γ5+Γ6) = 2Γ4 + Γ5+Γ6 (characters e^{±iπ/3}·e^{±2πi/3}).
+  { group: 'C3', ligands: THREEFOLD_ONLY, d1: { 'Γ5+Γ6': 3, '2Γ4': 2 } },
+  { group: 'S6', ligands: THREEFOLD_CENTRED, d1: { 'Γ5g+Γ6g': 3, '2Γ4g': 2 } },
 ];
 
 function labelCounts(levels: readonly { pointGroupLabel?: string }[]): Record<string, number> {
@@ -96,6 +136,11 @@ const ROTATION_ORDER: Record<string, number> = {
   D3h: 12,
   C2v: 4,
   D2h: 4,
+  C2: 2,
+  Cs: 2,
+  C2h: 2,
+  C3: 3,
+  S6: 3,
 };
 
 describe('spinor character tables (characterTables.ts) against the orthogonality relations', () => {
