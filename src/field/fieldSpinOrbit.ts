@@ -565,8 +565,9 @@ function bestParent(level: Level, refs: readonly { level: Level; label: string }
 }
 
 /**
- * The solver for a solve and its references: block by block in the group's frame when the group
- * has a rotation about its principal axis and every field has it, else over all determinants.
+ * The solver for a solve and its references: block by block in the group's frame by the highest
+ * rotation about its principal axis that every field has (a cubic reference of a D3h complex has
+ * the C3 but not the C6 of the proper parts of S3), else over all determinants.
  */
 function levelSolver(
   fields: readonly Float64Array[],
@@ -575,8 +576,10 @@ function levelSolver(
   const full = { levelsOf: fullLevels, frame: 'lab' as const };
   if (!group) return full;
   const frame = standardFrame(group);
-  const order = principalOrder(group);
-  if (!fields.every((f) => axialField(f, frame, order) !== undefined)) return full;
+  const highest = principalOrder(group);
+  let order = highest;
+  while (order >= 2 && (highest % order !== 0 || !fields.every((f) => axialField(f, frame, order)))) order--;
+  if (order < 2) return full;
   return {
     levelsOf: (input, withVectors) =>
       axialLevels(
