@@ -75,10 +75,12 @@ function spinOrbitJson(result: DistortedResult): Record<string, unknown> {
     spinOrbit: {
       zeta: so.zeta,
       kramers: so.kramers,
+      pointGroup: so.pointGroup ?? null,
       levels: so.levels.map((l) => ({
         index: l.index,
         energy: l.energy,
         degeneracy: l.degeneracy,
+        pointGroupLabel: l.pointGroupLabel ?? null,
         parent: l.parent ?? null,
         cubicParent: l.cubicParent ?? null,
       })),
@@ -92,17 +94,36 @@ function spinOrbitLines(result: DistortedResult): string[] {
   if (!so) return [];
   const weight = (p: { label: string; weight: number } | undefined, name: (s: string) => string) =>
     p ? `${p.label.split('/').map(name).join('/')} ${fixed(100 * p.weight)}%` : '—';
+  const group = so.pointGroup;
   const row = (l: FieldSpinOrbitLevel) => [
     String(l.index),
     fixed(l.energy, 0),
     String(l.degeneracy),
+    ...(group ? [l.pointGroupLabel ?? '?'] : []),
     weight(l.parent, unicodeGroupLabel),
     weight(l.cubicParent, (s) => s),
   ];
+  const headers = [
+    '#',
+    'cm⁻¹',
+    'degeneracy',
+    ...(group ? [`in ${group}`] : []),
+    'level without ζ',
+    'cubic parent with ζ',
+  ];
+  const pairs = so.levels.some((l) => /Γ5g?\+Γ6/.test(l.pointGroupLabel ?? ''));
+  const notation = !group
+    ? []
+    : so.kramers
+      ? [
+          `Levels in ${group}: spinor irreps of the double group ${group}* in Bethe's Γ notation (Koster et al. 1963)${pairs ? '; Γ5+Γ6 is a pair of complex-conjugate irreps kept degenerate by time reversal' : ''}.`,
+        ]
+      : [`Levels in ${group}: irreps of the total (orbital × spin) state.`];
   return [
     '',
     `With spin–orbit coupling, ζ = ${fixed(so.zeta)} cm⁻¹${so.kramers ? ' (odd electron count: every level a Kramers doublet at least)' : ''}:`,
-    table(['#', 'cm⁻¹', 'degeneracy', 'level without ζ', 'cubic parent with ζ'], so.levels.map(row)),
+    table(headers, so.levels.map(row)),
+    ...notation,
   ];
 }
 

@@ -1,12 +1,12 @@
 /**
  * Where the levels of a distorted complex can mislead, in words a report can carry: an orbitally
  * degenerate ground state (Jahn–Teller), open axial positions (d–s mixing, which the angular
- * overlap model here leaves out), spin–orbit coupling (left out, or named only in part), and bands in the
+ * overlap model here leaves out), spin–orbit coupling (left out, or named only in part where the double group is not tabulated), and bands in the
  * charge-transfer region. Thresholds are rules of thumb (common practice, no source).
  */
 
 import type { Ligand } from '../field/angularOverlap.js';
-import type { DistortedResult } from '../field/distortedComplex.js';
+import type { DistortedResult, DistortedSpinOrbitResult } from '../field/distortedComplex.js';
 import { CHARGE_TRANSFER_ONSET } from './cautions.js';
 
 /** One caution about a distorted complex. */
@@ -57,11 +57,13 @@ export function distortedCautions(
       message:
         'spin–orbit coupling is left out (give ζ to add it): levels split further (strongly for 4d and 5d ions), and spin-forbidden bands borrow intensity where levels of different spin come close',
     });
-  } else if (result.cubic.misfit > SPIN_ORBIT_PARENT_MISFIT) {
+  } else if (
+    result.cubic.misfit > SPIN_ORBIT_PARENT_MISFIT &&
+    (result as DistortedSpinOrbitResult).spinOrbit.pointGroup === undefined
+  ) {
     out.push({
       code: 'spin-orbit',
-      message:
-        "with spin–orbit coupling the levels are named only by their degeneracy, the level without ζ they lie in most and, where the weight is high, the cubic double-group level: the point group's double-group irreps are not worked out here",
+      message: `with spin–orbit coupling the levels are named only by their degeneracy, the level without ζ they lie in most and, where the weight is high, the cubic double-group level: the double group of ${result.group} is not tabulated here`,
     });
   }
   if (result.levels.some((l) => l.spinAllowed && l.energy > CHARGE_TRANSFER_ONSET)) {

@@ -27,14 +27,24 @@ interface CharacterTable {
   readonly classes: readonly ClassRule[];
   /** Irrep name and its character on each class. */
   readonly irreps: readonly (readonly [string, readonly number[]])[];
+  /** Spinor irreps: name and character on the ω ≤ π element of each class (none: not tabulated here). */
+  readonly spinors?: readonly (readonly [string, readonly number[]])[];
   /** The principal order n, for the families perp0 / perp1 of axes at kπ/n from x (k even / odd). */
   readonly n: number;
 }
 
 const E: ClassRule = { order: 1 };
 
+/** O*: Γ6 = D^½, Γ7 = Γ6 ⊗ A2, Γ8 = Γ6 ⊗ E (Koster 1963). */
+const CUBIC_SPINORS: CharacterTable['spinors'] = [
+  ['Γ6', [2, 1, 0, Math.SQRT2, 0]],
+  ['Γ7', [2, 1, 0, -Math.SQRT2, 0]],
+  ['Γ8', [4, -1, 0, 0, 0]],
+];
+
 const O_TABLE: CharacterTable = {
   n: 4,
+  spinors: CUBIC_SPINORS,
   classes: [E, { order: 3 }, { order: 2, axis: 'fourfold' }, { order: 4 }, { order: 2, axis: 'notFourfold' }],
   irreps: [
     ['A1', [1, 1, 1, 1, 1]],
@@ -58,8 +68,15 @@ const FOURFOLD_IRREPS: CharacterTable['irreps'] = [
   ['E', [2, 0, -2, 0, 0]],
 ];
 
+/** D4*, C4v*, D2d*: Γ6 = D^½, Γ7 = Γ6 ⊗ B1 (Koster 1963); zero on every twofold class. */
+const FOURFOLD_SPINORS: CharacterTable['spinors'] = [
+  ['Γ6', [2, Math.SQRT2, 0, 0, 0]],
+  ['Γ7', [2, -Math.SQRT2, 0, 0, 0]],
+];
+
 const D4_TABLE: CharacterTable = {
   n: 4,
+  spinors: FOURFOLD_SPINORS,
   classes: [
     E,
     { order: 4 },
@@ -72,6 +89,7 @@ const D4_TABLE: CharacterTable = {
 
 const C4V_TABLE: CharacterTable = {
   n: 4,
+  spinors: FOURFOLD_SPINORS,
   classes: [
     E,
     { order: 4 },
@@ -84,6 +102,7 @@ const C4V_TABLE: CharacterTable = {
 
 const D2D_TABLE: CharacterTable = {
   n: 4,
+  spinors: FOURFOLD_SPINORS,
   classes: [
     E,
     { det: -1, order: 4 },
@@ -100,16 +119,37 @@ const THREEFOLD_IRREPS: CharacterTable['irreps'] = [
   ['E', [2, -1, 0]],
 ];
 
-const D3_TABLE: CharacterTable = { n: 3, classes: [E, { order: 3 }, { order: 2 }], irreps: THREEFOLD_IRREPS };
+/**
+ * D3*, C3v*: Γ4 = D^½; Γ5, Γ6 one-dimensional with χ(C3) = −1, χ(C2) = ±i, complex conjugates
+ * kept degenerate by time reversal, merged (Koster 1963).
+ */
+const THREEFOLD_SPINORS: CharacterTable['spinors'] = [
+  ['Γ4', [2, 1, 0]],
+  ['Γ5+Γ6', [2, -2, 0]],
+];
+
+const D3_TABLE: CharacterTable = {
+  n: 3,
+  classes: [E, { order: 3 }, { order: 2 }],
+  irreps: THREEFOLD_IRREPS,
+  spinors: THREEFOLD_SPINORS,
+};
 
 const C3V_TABLE: CharacterTable = {
   n: 3,
+  spinors: THREEFOLD_SPINORS,
   classes: [E, { det: 1, order: 3 }, { det: -1, order: 2 }],
   irreps: THREEFOLD_IRREPS,
 };
 
+/** D3h*: Γ7 = D^½ (χ(S3) = 2cos(π/6) = √3), Γ8 = Γ7 ⊗ A1″, Γ7 ⊗ E′ = Γ8 + Γ9 (Koster 1963). */
 const D3H_TABLE: CharacterTable = {
   n: 3,
+  spinors: [
+    ['Γ7', [2, 1, 0, 0, Math.sqrt(3), 0]],
+    ['Γ8', [2, 1, 0, 0, -Math.sqrt(3), 0]],
+    ['Γ9', [2, -2, 0, 0, 0, 0]],
+  ],
   classes: [
     E,
     { det: 1, order: 3 },
@@ -128,8 +168,12 @@ const D3H_TABLE: CharacterTable = {
   ],
 };
 
+/** D2*, C2v*: the one spinor irrep Γ5 = D^½, zero on every twofold class (Koster 1963). */
+const TWOFOLD_SPINORS: CharacterTable['spinors'] = [['Γ5', [2, 0, 0, 0]]];
+
 const D2_TABLE: CharacterTable = {
   n: 2,
+  spinors: TWOFOLD_SPINORS,
   classes: [E, { order: 2, axis: 'z' }, { order: 2, axis: 'perp1' }, { order: 2, axis: 'perp0' }],
   irreps: [
     ['A', [1, 1, 1, 1]],
@@ -141,6 +185,7 @@ const D2_TABLE: CharacterTable = {
 
 const C2V_TABLE: CharacterTable = {
   n: 2,
+  spinors: TWOFOLD_SPINORS,
   classes: [
     E,
     { det: 1, order: 2 },
@@ -155,8 +200,15 @@ const C2V_TABLE: CharacterTable = {
   ],
 };
 
+/**
+ * C2*, Cs*: the two one-dimensional spinor irreps Γ3, Γ4 (χ = ±i on the twofold element) are
+ * complex conjugates, kept together by time reversal (Koster 1963; the numbering from memory).
+ */
+const BINARY_SPINORS: CharacterTable['spinors'] = [['Γ3+Γ4', [2, 0]]];
+
 const C2_TABLE: CharacterTable = {
   n: 2,
+  spinors: BINARY_SPINORS,
   classes: [E, { order: 2 }],
   irreps: [
     ['A', [1, 1]],
@@ -166,6 +218,7 @@ const C2_TABLE: CharacterTable = {
 
 const CS_TABLE: CharacterTable = {
   n: 1,
+  spinors: BINARY_SPINORS,
   classes: [E, { det: -1, order: 2 }],
   irreps: [
     ["A'", [1, 1]],
@@ -189,8 +242,17 @@ const S4_TABLE: CharacterTable = {
   irreps: CYCLIC4_IRREPS,
 };
 
+/**
+ * C3*: Γ5, Γ6 (χ(C3) = e^{±iπ/3}) complex conjugates kept together by time reversal, their sum
+ * D^½; Γ4 (χ(C3) = −1) real, so time reversal doubles it: a Kramers doublet 2Γ4 (Koster 1963;
+ * the numbering from memory).
+ */
 const C3_TABLE: CharacterTable = {
   n: 3,
+  spinors: [
+    ['Γ5+Γ6', [2, 1]],
+    ['Γ4', [1, -1]],
+  ],
   classes: [E, { order: 3 }],
   irreps: [
     ['A', [1, 1]],
@@ -247,13 +309,17 @@ export interface GroupIrrep {
   readonly name: string;
   /** Dimension over the reals (2 for a merged complex pair). */
   readonly dimension: number;
-  /** χ on each class, in the order of {@link GroupCharacters.classSizes}. */
+  /** χ on each class, in the order of {@link GroupCharacters.classSizes} (for a spinor irrep, on the ω ≤ π element). */
   readonly characters: readonly number[];
+  /** A merged time-reversal pair of complex-conjugate one-dimensional spinor irreps (`Γ5+Γ6`). */
+  readonly pair?: boolean;
 }
 
 /** The character table of a detected group, tied to its operations. */
 export interface GroupCharacters {
   readonly irreps: readonly GroupIrrep[];
+  /** The spinor irreps of the double group (odd electron counts with ζ); empty where not tabulated. */
+  readonly spinors: readonly GroupIrrep[];
   /** Number of the group's operations in each class. */
   readonly classSizes: readonly number[];
   /** Index (into `PointGroup.operations`) of one operation of each class. */
@@ -315,7 +381,16 @@ export function groupCharacters(group: PointGroup): GroupCharacters | undefined 
     dimension: characters[0] ?? 1,
     characters,
   }));
-  return { irreps, classSizes, representatives };
+  const spinors = (table.spinors ?? []).map(([name, characters]) => ({
+    name: name
+      .split('+')
+      .map((part) => `${part}${suffix}`)
+      .join('+'),
+    dimension: characters[0] ?? 1,
+    characters,
+    ...(name.includes('+') ? { pair: true } : {}),
+  }));
+  return { irreps, spinors, classSizes, representatives };
 }
 
 /**

@@ -189,13 +189,14 @@ export function orbitalLevels(field: Float64Array, group: PointGroup): OrbitalLe
 
 /** A distorted complex's levels without and with spin–orbit coupling. */
 export interface DistortedSpinOrbitResult extends DistortedResult {
-  /** The levels with ζ: degeneracy, spin–orbit-free parent, cubic double-group parent when near cubic. */
+  /** The levels with ζ: degeneracy, spin–orbit-free parent, cubic double-group parent when near cubic, irreps in the double group of `group`. */
   readonly spinOrbit: FieldSpinOrbitResult;
 }
 
 /**
  * Levels of a distorted complex with spin–orbit coupling ζ, besides those without: each named by
- * its degeneracy, the level without ζ it lies in most and, for small distortions (weight ≥
+ * its degeneracy, its irreps in the double group of the complex's point group (spinor irreps such
+ * as Γ7g for odd n), the level without ζ it lies in most and, for small distortions (weight ≥
  * {@link PARENT_MIN_WEIGHT}), the double-group level of the nearest cubic field with the same ζ.
  * @throws InputError as {@link solveDistorted}, and for ζ outside 0…MAX_ZETA.
  */
@@ -227,7 +228,7 @@ export function solveDistortedSpinOrbit(
   }
   const solved = solveFieldSpinOrbit(
     { n, field: base.field, B, C, zeta },
-    { spinFree: spinFreeReference(base.field, base), ...(cubic ? { cubic } : {}) },
+    { spinFree: spinFreeReference(base.field, base), group: groupOf(spec), ...(cubic ? { cubic } : {}) },
   );
   const levels = solved.levels.map((l) => {
     if (!l.cubicParent || l.cubicParent.weight >= PARENT_MIN_WEIGHT) return l;

@@ -155,14 +155,18 @@ function det3(m: readonly number[]): number {
   return a * (e * i - f * h) - b * (d * i - f * g) + c * (d * h - e * g);
 }
 
+/** sin β below which a rotation counts as one about z (β = 0 or π): rounding in a computed matrix stays far below it. */
+const AXIAL_SIN_BETA = 1e-9;
+
 /**
  * Euler angles (z-y-z, active: R = R_z(α) R_y(β) R_z(γ)) of a rotation matrix, with γ = 0 where
- * β = 0 or π leaves only one of α, γ defined.
+ * β = 0 or π leaves only one of α, γ defined. β comes from atan2, not acos, so a rotation about z
+ * carrying rounding (r₃₃ = 1 − 10⁻¹⁶) is still seen as one.
  */
 export function eulerAngles(m: readonly number[]): [number, number, number] {
   const r = (i: number, j: number) => m[(i - 1) * 3 + (j - 1)] ?? 0;
-  const beta = Math.acos(Math.max(-1, Math.min(1, r(3, 3))));
-  if (Math.abs(Math.sin(beta)) > 1e-12)
+  const beta = Math.atan2(Math.hypot(r(1, 3), r(2, 3)), r(3, 3));
+  if (Math.sin(beta) > AXIAL_SIN_BETA)
     return [Math.atan2(r(2, 3), r(1, 3)), beta, Math.atan2(r(3, 2), -r(3, 1))];
   if (r(3, 3) > 0) return [Math.atan2(r(2, 1), r(1, 1)), 0, 0];
   return [Math.atan2(-r(2, 1), -r(1, 1)), Math.PI, 0];

@@ -111,6 +111,9 @@ describe('the commands with a geometry, in process', () => {
     expect(json.spinOrbit.kramers).toBe(true);
     expect(json.spinOrbit.levels).toHaveLength(5);
     expect(json.spinOrbit.levels[0].parent.label).toBe('2B1g');
+    // ²B1g ⊗ D^½ = Γ7 in D4* (Koster, Dimmock, Wheeler & Statz 1963, product table of D4).
+    expect(json.spinOrbit.pointGroup).toBe('D4h');
+    expect(json.spinOrbit.levels[0].pointGroupLabel).toBe('Γ7g');
     expect(json.cautions.join(' ')).not.toContain('spin–orbit coupling is left out');
     const text = await runInProcess(
       words(
@@ -119,6 +122,8 @@ describe('the commands with a geometry, in process', () => {
       dir,
     );
     expect(text.stdout).toContain('With spin–orbit coupling, ζ = 600 cm⁻¹');
+    expect(text.stdout).toContain('in D4h');
+    expect(text.stdout).toContain('spinor irreps of the double group D4h*');
     const bad = await runInProcess(
       words('levels --d 3 --B 700 --shape octahedron --bond 7000 --zeta -5'),
       dir,
