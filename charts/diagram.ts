@@ -202,7 +202,53 @@ function tickStep(span: number): { stepSize?: number } {
   return span <= 120 ? { stepSize: 10 } : {};
 }
 
-/** One chart.js dataset per curve, each segment styled by the spin region of its middle. */
+/** How a stretch of curve is drawn. */
+interface LineStyle {
+  readonly color: string;
+  readonly width: number;
+}
+
+/** A stretch of one curve drawn in one style: sweep points `from` to `to`, both included. */
+interface StyleRun extends LineStyle {
+  readonly from: number;
+  readonly to: number;
+}
+
+/**
+ * A curve cut into runs of one style, each segment styled by the spin region of its middle;
+ * neighbouring runs share their end point, so the line stays unbroken.
+ */
+function styleRuns(
+  diagram: CorrelationDiagram,
+  curve: DiagramCurve,
+  segmentRegion: readonly number[],
+): StyleRun[] {
+  const xs = diagram.deltaOverB;
+  const style = (i: number): LineStyle => {
+    const r = segmentRegion[i] ?? 0;
+    return allowedIn(diagram, curve, r, ((xs[i] ?? 0) + (xs[i + 1] ?? 0)) / 2)
+      ? { color: regionColor(diagram, r), width: STYLE.allowedWidth }
+      : { color: STYLE.forbidden, width: STYLE.forbiddenWidth };
+  };
+  const runs: StyleRun[] = [];
+  let from = 0;
+  let current = style(0);
+  for (let i = 1; i < xs.length - 1; i++) {
+    const next = style(i);
+    if (next.color === current.color && next.width === current.width) continue;
+    runs.push({ ...current, from, to: i });
+    from = i;
+    current = next;
+  }
+  runs.push({ ...current, from, to: Math.max(from + 1, xs.length - 1) });
+  return runs;
+}
+
+/**
+ * The curves as chart.js datasets: one per run of one style (a curve changes style where it
+ * turns spin-allowed or forbidden), with fixed colours and widths, since chart.js styling each
+ * segment by a function costs more than drawing the whole figure.
+ */
 function curveDatasets(diagram: CorrelationDiagram): ChartDataset[] {
   const xs = diagram.deltaOverB;
   const segmentRegion = xs.slice(1).map((x, i) => regionIndex(diagram, ((xs[i] ?? 0) + x) / 2));
@@ -210,30 +256,28 @@ function curveDatasets(diagram: CorrelationDiagram): ChartDataset[] {
   const curves = [...diagram.curves].sort(
     (a, b) => Number(everAllowed(diagram, b)) - Number(everAllowed(diagram, a)),
   );
-  return curves.map((curve) => {
-    const style = (i: number) => {
-      const r = segmentRegion[i] ?? 0;
-      return allowedIn(diagram, curve, r, ((xs[i] ?? 0) + (xs[i + 1] ?? 0)) / 2)
-        ? { color: regionColor(diagram, r), width: STYLE.allowedWidth }
-        : { color: STYLE.forbidden, width: STYLE.forbiddenWidth };
-    };
-    return {
-      label: curve.label,
-      data: xs.map((x, i) => ({ x, y: curve.values[i] ?? Number.NaN })),
-      showLine: true,
-      pointRadius: 0,
-      pointHoverRadius: 0,
-      borderColor: style(0).color,
-      borderWidth: style(0).width,
-      borderCapStyle: 'round',
-      borderJoinStyle: 'round',
-      tension: 0,
-      segment: {
-        borderColor: (ctx: { p0DataIndex: number }) => style(ctx.p0DataIndex).color,
-        borderWidth: (ctx: { p0DataIndex: number }) => style(ctx.p0DataIndex).width,
-      },
-    } as ChartDataset<'scatter'>;
-  });
+  return curves.flatMap((curve) =>
+    styleRuns(diagram, curve, segmentRegion)
+      .map(
+        (run) =>
+          ({
+            label: curve.label,
+            data: xs
+              .slice(run.from, run.to + 1)
+              .map((x, k) => ({ x, y: curve.values[run.from + k] ?? Number.NaN })),
+            showLine: true,
+            pointRadius: 0,
+            pointHoverRadius: 0,
+            borderColor: run.color,
+            borderWidth: run.width,
+            borderCapStyle: 'round',
+            borderJoinStyle: 'round',
+            tension: 0,
+          }) as ChartDataset<'scatter'>,
+      )
+      // Within a curve, too, later datasets are drawn first: reversed, its runs are drawn from left to right.
+      .reverse(),
+  );
 }
 
 /**
