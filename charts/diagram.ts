@@ -841,8 +841,15 @@ function topExit(
 /** A curve's E/B at Δ/B = x, by linear interpolation between the sweep's points. */
 function valueAt(diagram: CorrelationDiagram, curve: DiagramCurve, x: number): number {
   const xs = diagram.deltaOverB;
+  // The first interval whose right end reaches x (else the last), by bisection: the label
+  // layout asks for thousands of values.
   let i = 0;
-  while (i + 2 < xs.length && (xs[i + 1] ?? 0) < x) i++;
+  let last = Math.max(0, xs.length - 2);
+  while (i < last) {
+    const mid = (i + last) >> 1;
+    if ((xs[mid + 1] ?? 0) < x) i = mid + 1;
+    else last = mid;
+  }
   const x0 = xs[i] ?? 0;
   const x1 = xs[i + 1] ?? x0;
   const a = curve.values[i] ?? 0;
