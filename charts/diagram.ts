@@ -214,33 +214,46 @@ interface StyleRun extends LineStyle {
   readonly to: number;
 }
 
-/**
- * A curve cut into runs of one style, each segment styled by the spin region of its middle;
- * neighbouring runs share their end point, so the line stays unbroken.
- */
-function styleRuns(
-  diagram: CorrelationDiagram,
-  curve: DiagramCurve,
-  segmentRegion: readonly number[],
-): StyleRun[] {
+/** A segment between neighbouring sweep points: Δ/B of its middle, and the spin and strong colour of the region there. */
+interface Segment {
+  readonly mid: number;
+  readonly S: number | undefined;
+  readonly color: string;
+}
+
+/** The segments of the sweep, each with the spin region of its middle. */
+function sweepSegments(diagram: CorrelationDiagram): Segment[] {
   const xs = diagram.deltaOverB;
+  const colors = diagram.regions.map((_, r) => regionColor(diagram, r));
+  return xs.slice(1).map((x, i) => {
+    const mid = ((xs[i] ?? 0) + x) / 2;
+    const r = regionIndex(diagram, mid);
+    return { mid, S: diagram.regions[r]?.S, color: colors[r] ?? STYLE.allowed };
+  });
+}
+
+/**
+ * A curve cut into runs of one style, each segment strong where the curve is spin-allowed in
+ * the region of its middle; neighbouring runs share their end point, so the line stays unbroken.
+ */
+function styleRuns(curve: DiagramCurve, segments: readonly Segment[]): StyleRun[] {
   const style = (i: number): LineStyle => {
-    const r = segmentRegion[i] ?? 0;
-    return allowedIn(diagram, curve, r, ((xs[i] ?? 0) + (xs[i + 1] ?? 0)) / 2)
-      ? { color: regionColor(diagram, r), width: STYLE.allowedWidth }
+    const s = segments[i];
+    return s !== undefined && s.S === spinAt(curve, s.mid)
+      ? { color: s.color, width: STYLE.allowedWidth }
       : { color: STYLE.forbidden, width: STYLE.forbiddenWidth };
   };
   const runs: StyleRun[] = [];
   let from = 0;
   let current = style(0);
-  for (let i = 1; i < xs.length - 1; i++) {
+  for (let i = 1; i < segments.length; i++) {
     const next = style(i);
     if (next.color === current.color && next.width === current.width) continue;
     runs.push({ ...current, from, to: i });
     from = i;
     current = next;
   }
-  runs.push({ ...current, from, to: Math.max(from + 1, xs.length - 1) });
+  runs.push({ ...current, from, to: Math.max(from + 1, segments.length) });
   return runs;
 }
 
@@ -251,13 +264,13 @@ function styleRuns(
  */
 function curveDatasets(diagram: CorrelationDiagram): ChartDataset[] {
   const xs = diagram.deltaOverB;
-  const segmentRegion = xs.slice(1).map((x, i) => regionIndex(diagram, ((xs[i] ?? 0) + x) / 2));
+  const segments = sweepSegments(diagram);
   // chart.js draws the first dataset on top: the spin-allowed curves go first.
   const curves = [...diagram.curves].sort(
     (a, b) => Number(everAllowed(diagram, b)) - Number(everAllowed(diagram, a)),
   );
   return curves.flatMap((curve) =>
-    styleRuns(diagram, curve, segmentRegion)
+    styleRuns(curve, segments)
       .map(
         (run) =>
           ({
