@@ -24,7 +24,7 @@
 
 import { Matrix, solve } from 'ml-matrix';
 import { sgg } from 'ml-savitzky-golay-generalized';
-import { covariance, fitCurve, type GradientModel } from '../numeric/leastSquares.js';
+import { type CurveModel, covariance, fitCurve } from '../numeric/leastSquares.js';
 import { FOUR_LN2 } from './gaussianBands.js';
 
 /** The baseline fitted with the bands. */
@@ -374,30 +374,43 @@ function componentBounds(c: Component | Candidate, box: Box): [number[], number[
   ];
 }
 
-/** The model: baseline parameters (offset, slope about `xMid`), then (centre, height, FWHM) per band. */
-function bandsModel(nb: number, xMid: number): GradientModel {
-  return (p, x, g) => {
-    let v = 0;
-    if (nb >= 1) {
-      v += p[0] as number;
-      g[0] = 1;
+/**
+ * The model: baseline parameters (offset, slope about `xMid`), then (centre, height, FWHM) per
+ * band. Band by band over all points, so each band's constants are worked out once; every
+ * point's value still sums the baseline and then the bands in order.
+ */
+export function bandsModel(nb: number, xMid: number): CurveModel {
+  return (p, x, values, gradients) => {
+    const P = p.length;
+    const n = x.length;
+    values.fill(0);
+    for (let i = 0, at = 0; i < n; i++, at += P) {
+      const xi = x[i] as number;
+      if (nb >= 1) {
+        values[i] = (values[i] as number) + (p[0] as number);
+        gradients[at] = 1;
+      }
+      if (nb === 2) {
+        values[i] = (values[i] as number) + (p[1] as number) * (xi - xMid);
+        gradients[at + 1] = xi - xMid;
+      }
     }
-    if (nb === 2) {
-      v += (p[1] as number) * (x - xMid);
-      g[1] = x - xMid;
-    }
-    for (let j = nb; j < p.length; j += 3) {
+    for (let j = nb; j < P; j += 3) {
       const c = p[j] as number;
       const h = p[j + 1] as number;
       const w = p[j + 2] as number;
-      const d = x - c;
-      const e = Math.exp((-FOUR_LN2 * d * d) / (w * w));
-      v += h * e;
-      g[j] = (2 * FOUR_LN2 * h * e * d) / (w * w);
-      g[j + 1] = e;
-      g[j + 2] = (2 * FOUR_LN2 * h * e * d * d) / (w * w * w);
+      const ww = w * w;
+      const www = w * w * w;
+      const k = 2 * FOUR_LN2 * h;
+      for (let i = 0, at = 0; i < n; i++, at += P) {
+        const d = (x[i] as number) - c;
+        const e = Math.exp((-FOUR_LN2 * d * d) / ww);
+        values[i] = (values[i] as number) + h * e;
+        gradients[at + j] = (k * e * d) / ww;
+        gradients[at + j + 1] = e;
+        gradients[at + j + 2] = (k * e * d * d) / www;
+      }
     }
-    return v;
   };
 }
 
