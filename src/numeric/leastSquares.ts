@@ -496,7 +496,32 @@ function gradientNormalEquations(
       if (v !== 0) gj += -v * (r[i] as number);
     }
     g[j] = gj;
-    for (let k = j; k < np; k++) {
+    // Four entries of the row at a time (each its own sum, in the same order), so each value
+    // of column j is read once for four products.
+    let k = j;
+    for (; k + 3 < np; k += 4) {
+      const c0 = k * n;
+      const c1 = c0 + n;
+      const c2 = c1 + n;
+      const c3 = c2 + n;
+      let s0 = 0;
+      let s1 = 0;
+      let s2 = 0;
+      let s3 = 0;
+      for (let i = 0; i < n; i++) {
+        const v = columns[cj + i] as number;
+        if (v === 0) continue;
+        s0 += v * (columns[c0 + i] as number);
+        s1 += v * (columns[c1 + i] as number);
+        s2 += v * (columns[c2 + i] as number);
+        s3 += v * (columns[c3 + i] as number);
+      }
+      a[j * np + k] = s0;
+      a[j * np + k + 1] = s1;
+      a[j * np + k + 2] = s2;
+      a[j * np + k + 3] = s3;
+    }
+    for (; k < np; k++) {
       const ck = k * n;
       let s = 0;
       for (let i = 0; i < n; i++) {
