@@ -286,12 +286,13 @@ function minimise<J>(
   start: readonly number[],
   lower: readonly number[],
   upper: readonly number[],
-  residuals: (p: readonly number[]) => readonly number[],
+  /** The residuals at p, in a new array each call (the iteration keeps them). */
+  residuals: (p: readonly number[]) => number[],
   jacobian: JacobianForm<J>,
   o: Required<LeastSquaresOptions>,
 ): Minimum<J> {
   let p = [...start];
-  let r = [...residuals(p)];
+  let r = residuals(p);
   let ss = sumSquares(r);
   let J = jacobian.at(p, r);
   let mu = o.initialDamping;
@@ -323,7 +324,7 @@ function minimise<J>(
       );
       const step = trial.map((x, j) => x - (p[j] ?? 0));
       if (isSmallStep(step, p, o.stepTolerance)) return finish('small-step');
-      const rt = [...residuals(trial)];
+      const rt = residuals(trial);
       const sst = sumSquares(rt);
       const predicted = predictedDecrease(A, g, step);
       const actual = ss - sst;
@@ -376,7 +377,7 @@ export function levenbergMarquardt(
   let evaluations = 0;
   const residuals = (p: readonly number[]) => {
     evaluations++;
-    return problem.residuals(p);
+    return [...problem.residuals(p)];
   };
   const m = minimise(
     clamped(problem.start, lower, upper),
@@ -434,7 +435,8 @@ export function inverseNormalMatrix(
 
 /**
  * A model of a whole curve: fills `values[i]` with its value at `x[i]` and
- * `gradients[i·P + k]` with ∂value/∂p[k] there (P = p.length), every entry, each call.
+ * `gradients[k·n + i]` with ∂value/∂p[k] there (n = x.length; one column of the Jacobian
+ * after another), every entry, each call.
  */
 export type CurveModel = (
   p: Float64Array,
@@ -470,22 +472,19 @@ export interface CurveFitResult {
 }
 
 /**
- * JᵀJ and g = Jᵀr for J = −G, the model gradients G stored row after row (`np` to a row): each
- * entry is the same sum, term for term in the same order, as {@link normalEquations} forms on the
- * rows of J ((−a)(−b) = ab exactly), so the steps are bit-identical. The loops run entry by entry
- * over a column-major copy, so each sum stays in a register: the fit of a spectrum forms these
- * sums thousands of times over hundreds of points.
+ * JᵀJ and g = Jᵀr for J = −G, the model gradients G stored column after column: each entry is
+ * the same sum, term for term in the same order, as {@link normalEquations} forms on the rows of
+ * J ((−a)(−b) = ab exactly), so the steps are bit-identical. The loops run entry by entry down
+ * the columns, so each sum stays in a register: the fit of a spectrum forms these sums
+ * thousands of times over hundreds of points.
  */
 function gradientNormalEquations(
-  G: Float64Array,
+  columns: Float64Array,
   np: number,
   r: readonly number[],
   ss: number,
 ): NormalEquations {
   const n = r.length;
-  const columns = new Float64Array(n * np);
-  for (let i = 0, at = 0; i < n; i++, at += np)
-    for (let j = 0; j < np; j++) columns[j * n + i] = G[at + j] as number;
   const a = new Float64Array(np * np);
   const g = new Array<number>(np);
   for (let j = 0; j < np; j++) {
@@ -589,14 +588,16 @@ export function fitCurve(
     { at: jacobian, normal: (G, r, ss) => gradientNormalEquations(G, P, r, ss) },
     o,
   );
-  // JᵀJ at the solution, summed as before the flat Jacobian: row by row, all of each row's pairs.
+  // JᵀJ at the solution, each entry summed over the points in order, as from the rows of J.
   const curvature = new Float64Array(P * P);
-  for (let at = 0; at < n * P; at += P) {
-    for (let j = 0; j < P; j++) {
-      const a = -(m.J[at + j] as number);
-      if (a === 0) continue;
-      for (let k = 0; k < P; k++)
-        curvature[j * P + k] = (curvature[j * P + k] as number) + a * -(m.J[at + k] as number);
+  for (let j = 0; j < P; j++) {
+    for (let k = 0; k < P; k++) {
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const a = -(m.J[j * n + i] as number);
+        if (a !== 0) s += a * -(m.J[k * n + i] as number);
+      }
+      curvature[j * P + k] = s;
     }
   }
   return {

@@ -384,15 +384,15 @@ export function bandsModel(nb: number, xMid: number): CurveModel {
     const P = p.length;
     const n = x.length;
     values.fill(0);
-    for (let i = 0, at = 0; i < n; i++, at += P) {
+    for (let i = 0; i < n; i++) {
       const xi = x[i] as number;
       if (nb >= 1) {
         values[i] = (values[i] as number) + (p[0] as number);
-        gradients[at] = 1;
+        gradients[i] = 1;
       }
       if (nb === 2) {
         values[i] = (values[i] as number) + (p[1] as number) * (xi - xMid);
-        gradients[at + 1] = xi - xMid;
+        gradients[n + i] = xi - xMid;
       }
     }
     for (let j = nb; j < P; j += 3) {
@@ -402,13 +402,14 @@ export function bandsModel(nb: number, xMid: number): CurveModel {
       const ww = w * w;
       const www = w * w * w;
       const k = 2 * FOUR_LN2 * h;
-      for (let i = 0, at = 0; i < n; i++, at += P) {
+      const [dc, dh, dw] = [j * n, (j + 1) * n, (j + 2) * n];
+      for (let i = 0; i < n; i++) {
         const d = (x[i] as number) - c;
         const e = Math.exp((-FOUR_LN2 * d * d) / ww);
         values[i] = (values[i] as number) + h * e;
-        gradients[at + j] = (k * e * d) / ww;
-        gradients[at + j + 1] = e;
-        gradients[at + j + 2] = (k * e * d * d) / www;
+        gradients[dc + i] = (k * e * d) / ww;
+        gradients[dh + i] = e;
+        gradients[dw + i] = (k * e * d * d) / www;
       }
     }
   };

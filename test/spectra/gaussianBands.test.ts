@@ -76,7 +76,9 @@ function pointByPoint(model: (p: Float64Array, v: number, g: Float64Array) => nu
     const g = new Float64Array(p.length);
     for (let i = 0; i < x.length; i++) {
       values[i] = model(p, x[i] as number, g);
-      gradients.set(g, i * p.length);
+      g.forEach((v, k) => {
+        gradients[k * x.length + i] = v;
+      });
     }
   };
 }
@@ -183,7 +185,7 @@ describe('fitCurve', () => {
         residuals: (p) => Array.from(curve(p).values, (v, i) => (y[i] as number) - v),
         jacobian: (p) => {
           const { gradients } = curve(p);
-          return x.map((_, i) => p.map((_, k) => -(gradients[i * p.length + k] as number)));
+          return x.map((_, i) => p.map((_, k) => -(gradients[k * x.length + i] as number)));
         },
       },
       { maxIterations: 60, reductionTolerance: 1e-12, holdAtBounds: true },
@@ -228,7 +230,7 @@ describe('bandsModel', () => {
         scratch,
       );
       x.forEach((_, i) => {
-        expect(gradients[i * p.length + k]).toBeCloseTo(
+        expect(gradients[k * x.length + i]).toBeCloseTo(
           ((up[i] as number) - (down[i] as number)) / (2 * h),
           7,
         );
