@@ -22,8 +22,8 @@
  * extremum of its own in the first derivative, the very bands d–d spectra are full of.
  */
 
-import { Matrix, solve } from 'ml-matrix';
 import { sgg } from 'ml-savitzky-golay-generalized';
+import { qrLeastSquares } from '../numeric/householderQr.js';
 import { type CurveModel, covariance, fitCurve } from '../numeric/leastSquares.js';
 import { FOUR_LN2 } from './gaussianBands.js';
 
@@ -267,17 +267,20 @@ function initialComponents(
   const nb = baselineCount(ctx.baselineKind);
   const cols = nb + candidates.length;
   if (cols === 0) return { b: [], components: [] };
-  const a = new Matrix(ctx.x.length, cols);
-  for (let i = 0; i < ctx.x.length; i++) {
+  const m = ctx.x.length;
+  const a = new Float64Array(m * cols);
+  for (let i = 0; i < m; i++) {
     const x = ctx.x[i] as number;
-    if (nb >= 1) a.set(i, 0, 1);
-    if (nb === 2) a.set(i, 1, x - ctx.xMid);
+    if (nb >= 1) a[i] = 1;
+    if (nb === 2) a[m + i] = x - ctx.xMid;
     candidates.forEach((c, k) => {
       const u = (x - c.c) / c.w;
-      a.set(i, nb + k, Math.exp(-FOUR_LN2 * u * u));
+      a[(nb + k) * m + i] = Math.exp(-FOUR_LN2 * u * u);
     });
   }
-  const coef = solve(a, Matrix.columnVector(Array.from(ctx.y))).getColumn(0);
+  const solution = qrLeastSquares(a, m, cols, ctx.y);
+  if (!solution) throw new Error('starting heights: the candidate band shapes are linearly dependent');
+  const coef = Array.from(solution);
   return {
     b: coef.slice(0, nb),
     components: candidates.map((c, k) => ({
