@@ -115,7 +115,11 @@ function forwardJacobian(
 
 const sumSquares = (r: readonly number[]) => r.reduce((s, x) => s + x * x, 0);
 
-/** The normal equations of a step: JᵀJ (row-major, both triangles), g = Jᵀr, and the largest cosine between r and a column of J. */
+/**
+ * The normal equations of a step: JᵀJ (row-major, both triangles), g = Jᵀr, and the largest
+ * cosine between r and a column of J, which is zero at a stationary point whatever the scale of
+ * the parameters.
+ */
 interface NormalEquations {
   readonly A: Float64Array;
   readonly g: number[];
