@@ -202,38 +202,95 @@ function tickStep(span: number): { stepSize?: number } {
   return span <= 120 ? { stepSize: 10 } : {};
 }
 
-/** One chart.js dataset per curve, each segment styled by the spin region of its middle. */
+/** How a stretch of curve is drawn. */
+interface LineStyle {
+  readonly color: string;
+  readonly width: number;
+}
+
+/** A stretch of one curve drawn in one style: sweep points `from` to `to`, both included. */
+interface StyleRun extends LineStyle {
+  readonly from: number;
+  readonly to: number;
+}
+
+/** A segment between neighbouring sweep points: Δ/B of its middle, and the spin and strong colour of the region there. */
+interface Segment {
+  readonly mid: number;
+  readonly S: number | undefined;
+  readonly color: string;
+}
+
+/** The segments of the sweep, each with the spin region of its middle. */
+function sweepSegments(diagram: CorrelationDiagram): Segment[] {
+  const xs = diagram.deltaOverB;
+  const colors = diagram.regions.map((_, r) => regionColor(diagram, r));
+  return xs.slice(1).map((x, i) => {
+    const mid = ((xs[i] ?? 0) + x) / 2;
+    const r = regionIndex(diagram, mid);
+    return { mid, S: diagram.regions[r]?.S, color: colors[r] ?? STYLE.allowed };
+  });
+}
+
+/**
+ * A curve cut into runs of one style, each segment strong where the curve is spin-allowed in
+ * the region of its middle; neighbouring runs share their end point, so the line stays unbroken.
+ */
+function styleRuns(curve: DiagramCurve, segments: readonly Segment[]): StyleRun[] {
+  const style = (i: number): LineStyle => {
+    const s = segments[i];
+    return s !== undefined && s.S === spinAt(curve, s.mid)
+      ? { color: s.color, width: STYLE.allowedWidth }
+      : { color: STYLE.forbidden, width: STYLE.forbiddenWidth };
+  };
+  const runs: StyleRun[] = [];
+  let from = 0;
+  let current = style(0);
+  for (let i = 1; i < segments.length; i++) {
+    const next = style(i);
+    if (next.color === current.color && next.width === current.width) continue;
+    runs.push({ ...current, from, to: i });
+    from = i;
+    current = next;
+  }
+  runs.push({ ...current, from, to: Math.max(from + 1, segments.length) });
+  return runs;
+}
+
+/**
+ * The curves as chart.js datasets: one per run of one style (a curve changes style where it
+ * turns spin-allowed or forbidden), with fixed colours and widths, since chart.js styling each
+ * segment by a function costs more than drawing the whole figure.
+ */
 function curveDatasets(diagram: CorrelationDiagram): ChartDataset[] {
   const xs = diagram.deltaOverB;
-  const segmentRegion = xs.slice(1).map((x, i) => regionIndex(diagram, ((xs[i] ?? 0) + x) / 2));
+  const segments = sweepSegments(diagram);
   // chart.js draws the first dataset on top: the spin-allowed curves go first.
   const curves = [...diagram.curves].sort(
     (a, b) => Number(everAllowed(diagram, b)) - Number(everAllowed(diagram, a)),
   );
-  return curves.map((curve) => {
-    const style = (i: number) => {
-      const r = segmentRegion[i] ?? 0;
-      return allowedIn(diagram, curve, r, ((xs[i] ?? 0) + (xs[i + 1] ?? 0)) / 2)
-        ? { color: regionColor(diagram, r), width: STYLE.allowedWidth }
-        : { color: STYLE.forbidden, width: STYLE.forbiddenWidth };
-    };
-    return {
-      label: curve.label,
-      data: xs.map((x, i) => ({ x, y: curve.values[i] ?? Number.NaN })),
-      showLine: true,
-      pointRadius: 0,
-      pointHoverRadius: 0,
-      borderColor: style(0).color,
-      borderWidth: style(0).width,
-      borderCapStyle: 'round',
-      borderJoinStyle: 'round',
-      tension: 0,
-      segment: {
-        borderColor: (ctx: { p0DataIndex: number }) => style(ctx.p0DataIndex).color,
-        borderWidth: (ctx: { p0DataIndex: number }) => style(ctx.p0DataIndex).width,
-      },
-    } as ChartDataset<'scatter'>;
-  });
+  return curves.flatMap((curve) =>
+    styleRuns(curve, segments)
+      .map(
+        (run) =>
+          ({
+            label: curve.label,
+            data: xs
+              .slice(run.from, run.to + 1)
+              .map((x, k) => ({ x, y: curve.values[run.from + k] ?? Number.NaN })),
+            showLine: true,
+            pointRadius: 0,
+            pointHoverRadius: 0,
+            borderColor: run.color,
+            borderWidth: run.width,
+            borderCapStyle: 'round',
+            borderJoinStyle: 'round',
+            tension: 0,
+          }) as ChartDataset<'scatter'>,
+      )
+      // Within a curve, too, later datasets are drawn first: reversed, its runs are drawn from left to right.
+      .reverse(),
+  );
 }
 
 /**
@@ -797,8 +854,15 @@ function topExit(
 /** A curve's E/B at Δ/B = x, by linear interpolation between the sweep's points. */
 function valueAt(diagram: CorrelationDiagram, curve: DiagramCurve, x: number): number {
   const xs = diagram.deltaOverB;
+  // The first interval whose right end reaches x (else the last), by bisection: the label
+  // layout asks for thousands of values.
   let i = 0;
-  while (i + 2 < xs.length && (xs[i + 1] ?? 0) < x) i++;
+  let last = Math.max(0, xs.length - 2);
+  while (i < last) {
+    const mid = (i + last) >> 1;
+    if ((xs[mid + 1] ?? 0) < x) i = mid + 1;
+    else last = mid;
+  }
   const x0 = xs[i] ?? 0;
   const x1 = xs[i + 1] ?? x0;
   const a = curve.values[i] ?? 0;

@@ -79,6 +79,27 @@ const whiteBackground: Plugin = {
   },
 };
 
+/** Built-in chart.js plugins that draw nothing when hidden. */
+const HIDEABLE = new Set(['legend', 'title', 'subtitle', 'tooltip']);
+
+/**
+ * The plugin options with the built-in legend, title and tooltip left out entirely where a figure
+ * hides them (`display: false`, `enabled: false`), and decimation (figures draw every point) too:
+ * a hidden legend still builds an entry for every dataset each time the chart updates.
+ */
+function withoutHidden(plugins: object | undefined): Record<string, unknown> {
+  const out: Record<string, unknown> = { decimation: false };
+  for (const [id, value] of Object.entries(plugins ?? {})) {
+    const hidden =
+      HIDEABLE.has(id) &&
+      typeof value === 'object' &&
+      value !== null &&
+      (value.display === false || value.enabled === false);
+    out[id] = hidden ? false : value;
+  }
+  return out;
+}
+
 /**
  * Renders a chart.js configuration to the bytes of a PNG, SVG or PDF file. Animation and
  * responsiveness are switched off; a white background is drawn.
@@ -92,7 +113,15 @@ export function renderChart(config: ChartConfiguration, options: FigureOptions):
   const { width, height, printWidth, pngScale } = layoutOf(options);
   const withDefaults = (ratio: number): ChartConfiguration => ({
     ...config,
-    options: { ...config.options, animation: false, responsive: false, devicePixelRatio: ratio },
+    options: {
+      ...config.options,
+      plugins: withoutHidden(config.options?.plugins) as NonNullable<
+        ChartConfiguration['options']
+      >['plugins'],
+      animation: false,
+      responsive: false,
+      devicePixelRatio: ratio,
+    },
     plugins: [whiteBackground, ...(config.plugins ?? [])],
   });
   if (options.format === 'png') {

@@ -5,6 +5,8 @@
  * its neighbours (Ramer–Douglas–Peucker: D. H. Douglas and T. K. Peucker, Cartographica 10,
  * 112–122, 1973), a path made only of quadratic pieces around a square box becomes a `<circle>`,
  * and path coordinates keep one decimal (a tenth of a pixel, finer than any print shows).
+ * Skia writes a clip path and a group for every clipped drawing call; neighbouring groups with
+ * the same clip rectangle (the curves of a diagram, one dataset each) become one group.
  */
 
 /** Largest distance, px, of a dropped polyline point from the simplified line. */
@@ -73,9 +75,40 @@ function circle(d: string): { cx: number; cy: number; r: number } | undefined {
   return { cx: Math.min(...xs) + w / 2, cy: Math.min(...ys) + h / 2, r: w / 2 };
 }
 
-/** An SVG with its paths simplified and its round markers written as circles (see the module comment). */
+/** A group clipped to a rectangle, holding no group of its own (the first `</g>` closes it). */
+const CLIP_GROUP =
+  /<clipPath id="([^"]+)">(<rect [^>]*\/>)<\/clipPath><g clip-path="url\(#\1\)">(.*?)<\/g>/gs;
+
+/** An SVG whose neighbouring groups clipped to the same rectangle are joined into the first of them. */
+export function mergeClipGroups(svg: string): string {
+  let out = '';
+  let copied = 0;
+  let open: { head: string; rect: string; body: string; end: number } | undefined;
+  const close = () => {
+    if (open) out += `${open.head}${open.body}</g>`;
+    open = undefined;
+  };
+  for (const m of svg.matchAll(CLIP_GROUP)) {
+    const [whole, , rect = '', body = ''] = m;
+    if (body.includes('<g')) continue;
+    if (open && open.end === m.index && open.rect === rect) {
+      open.body += body;
+      open.end += whole.length;
+      copied = open.end;
+      continue;
+    }
+    close();
+    out += svg.slice(copied, m.index);
+    open = { head: whole.slice(0, whole.length - body.length - 4), rect, body, end: m.index + whole.length };
+    copied = open.end;
+  }
+  close();
+  return out + svg.slice(copied);
+}
+
+/** An SVG with its paths simplified, its round markers written as circles and its clip groups joined (see the module comment). */
 export function compactShapes(svg: string): string {
-  return svg.replace(
+  return mergeClipGroups(svg).replace(
     /<path ([^>]*?)d="([^"]*)"([^>]*?)\/>/g,
     (whole, before: string, d: string, after: string) => {
       const round = circle(d);

@@ -116,12 +116,36 @@ function forwardJacobian(
 const sumSquares = (r: readonly number[]) => r.reduce((s, x) => s + x * x, 0);
 
 /**
- * JᵀJ and the gradient g = Jᵀr, with the largest cosine between r and a column of J, which is
- * zero at a stationary point whatever the scale of the parameters. Plain loops: spectra give
+ * The normal equations of a step: JᵀJ (row-major, both triangles), g = Jᵀr, and the largest
+ * cosine between r and a column of J, which is zero at a stationary point whatever the scale of
+ * the parameters.
+ */
+interface NormalEquations {
+  readonly A: Float64Array;
+  readonly g: number[];
+  readonly cosine: number;
+}
+
+/** The normal equations from JᵀJ's upper triangle and g (see {@link NormalEquations}). */
+function completed(a: Float64Array, g: number[], np: number, ss: number): NormalEquations {
+  for (let j = 0; j < np; j++) for (let k = j + 1; k < np; k++) a[k * np + j] = a[j * np + k] as number;
+  const rNorm = Math.sqrt(ss);
+  const cosine = Math.max(
+    ...g.map((gj, j) => Math.abs(gj) / (Math.sqrt(a[j * np + j] as number) * rNorm || 1)),
+  );
+  return { A: a, g, cosine };
+}
+
+/**
+ * JᵀJ and the gradient g = Jᵀr of a Jacobian given as rows. Plain loops: spectra give
  * thousands of residuals, and building ml-matrix objects of that size each iteration cost more
  * than the sums themselves.
  */
-function normalEquations(J: readonly (readonly number[])[], r: readonly number[], ss: number) {
+function normalEquations(
+  J: readonly (readonly number[])[],
+  r: readonly number[],
+  ss: number,
+): NormalEquations {
   const np = J[0]?.length ?? 0;
   const a = new Float64Array(np * np);
   const g = new Array<number>(np).fill(0);
@@ -135,17 +159,7 @@ function normalEquations(J: readonly (readonly number[])[], r: readonly number[]
       for (let k = j; k < np; k++) a[j * np + k] = (a[j * np + k] as number) + v * (row[k] as number);
     }
   }
-  const A = new Matrix(np, np);
-  for (let j = 0; j < np; j++) {
-    for (let k = j; k < np; k++) {
-      const v = a[j * np + k] as number;
-      A.set(j, k, v);
-      A.set(k, j, v);
-    }
-  }
-  const rNorm = Math.sqrt(ss);
-  const cosine = Math.max(...g.map((gj, j) => Math.abs(gj) / (Math.sqrt(A.get(j, j)) * rNorm || 1)));
-  return { A, g, cosine };
+  return completed(a, g, np, ss);
 }
 
 /**
@@ -153,18 +167,15 @@ function normalEquations(J: readonly (readonly number[])[], r: readonly number[]
  * damped matrix is not positive definite (the damping must grow).
  */
 function dampedStep(
-  A: Matrix,
+  A: Float64Array,
   g: readonly number[],
   mu: number,
   scale: readonly number[],
   held: ReadonlySet<number>,
 ): number[] | undefined {
   const np = g.length;
-  const damped = new Float64Array(np * np);
-  for (let j = 0; j < np; j++) {
-    for (let k = 0; k < np; k++) damped[j * np + k] = A.get(j, k);
-    damped[j * np + j] = A.get(j, j) + mu * (scale[j] ?? 1);
-  }
+  const damped = Float64Array.from(A);
+  for (let j = 0; j < np; j++) damped[j * np + j] = (A[j * np + j] as number) + mu * (scale[j] ?? 1);
   for (const j of held) {
     for (let k = 0; k < np; k++) {
       damped[j * np + k] = 0;
@@ -243,60 +254,63 @@ function isSmallStep(step: readonly number[], p: readonly number[], tolerance: n
 }
 
 /** Predicted decrease of the linear model ‖r + J·step‖²: −(2gᵀs + sᵀAs). */
-function predictedDecrease(A: Matrix, g: readonly number[], step: readonly number[]): number {
-  const As = A.mmul(Matrix.columnVector(step)).to1DArray();
-  return -step.reduce((s, sj, j) => s + sj * (2 * (g[j] ?? 0) + (As[j] ?? 0)), 0);
+function predictedDecrease(A: Float64Array, g: readonly number[], step: readonly number[]): number {
+  const np = step.length;
+  let decrease = 0;
+  for (let j = 0; j < np; j++) {
+    let As = 0;
+    for (let k = 0; k < np; k++) As += (A[j * np + k] as number) * (step[k] as number);
+    decrease += (step[j] as number) * (2 * (g[j] ?? 0) + As);
+  }
+  return -decrease;
+}
+
+/** A Jacobian in some storage, with how to take the normal equations from it. */
+interface JacobianForm<J> {
+  /** The Jacobian at p, given r(p). */
+  readonly at: (p: readonly number[], r: readonly number[]) => J;
+  readonly normal: (J: J, r: readonly number[], ss: number) => NormalEquations;
+}
+
+/** Where the iteration ended. */
+interface Minimum<J> {
+  readonly p: number[];
+  readonly r: number[];
+  readonly ss: number;
+  readonly J: J;
+  readonly iterations: number;
+  readonly reason: StopReason;
 }
 
 /**
- * Minimises Σ rᵢ(p)² from `problem.start` within the bounds.
- * @throws InputError for an empty start or bounds of the wrong length.
+ * The Levenberg–Marquardt iteration from `start` (already in the box), whatever the Jacobian's
+ * storage: {@link levenbergMarquardt} keeps it as rows, {@link fitCurve} in one flat array.
  */
-export function levenbergMarquardt(
-  problem: LeastSquaresProblem,
-  options: LeastSquaresOptions = {},
-): LeastSquaresResult {
-  const o = { ...LEAST_SQUARES_DEFAULTS, ...options };
-  const np = problem.start.length;
-  ensure(np > 0, 'least squares: expected at least one parameter');
-  const lower = problem.lower ?? problem.start.map(() => Number.NEGATIVE_INFINITY);
-  const upper = problem.upper ?? problem.start.map(() => Number.POSITIVE_INFINITY);
-  ensure(lower.length === np && upper.length === np, 'least squares: bounds must match the parameters');
-  const clamp = (p: readonly number[]) =>
-    p.map((x, j) => Math.min(Math.max(x, lower[j] ?? x), upper[j] ?? x));
-  let evaluations = 0;
-  const residuals = (p: readonly number[]) => {
-    evaluations++;
-    return problem.residuals(p);
-  };
-  const jacobianOf = (p: readonly number[], r: readonly number[]) =>
-    problem.jacobian ? problem.jacobian(p, r) : forwardJacobian(residuals, p, r);
-
-  let p = clamp(problem.start);
-  let r = [...residuals(p)];
+function minimise<J>(
+  start: readonly number[],
+  lower: readonly number[],
+  upper: readonly number[],
+  /** The residuals at p, in a new array each call (the iteration keeps them). */
+  residuals: (p: readonly number[]) => number[],
+  jacobian: JacobianForm<J>,
+  o: Required<LeastSquaresOptions>,
+): Minimum<J> {
+  let p = [...start];
+  let r = residuals(p);
   let ss = sumSquares(r);
-  let J = jacobianOf(p, r);
+  let J = jacobian.at(p, r);
   let mu = o.initialDamping;
   let nu = 2;
   let iterations = 0;
-  const finish = (reason: StopReason): LeastSquaresResult => ({
-    parameters: p,
-    residuals: r,
-    sumOfSquares: ss,
-    jacobian: J,
-    iterations,
-    evaluations,
-    converged: reason !== 'iteration-limit' && reason !== 'no-descent',
-    reason,
-  });
+  const finish = (reason: StopReason): Minimum<J> => ({ p, r, ss, J, iterations, reason });
 
   while (iterations < o.maxIterations) {
     if (ss <= o.exactSumOfSquares) return finish('exact-fit');
     iterations++;
-    const { A, g, cosine } = normalEquations(J, r, ss);
+    const { A, g, cosine } = jacobian.normal(J, r, ss);
     if (cosine <= o.gradientTolerance) return finish('small-gradient');
     // Marquardt's scaling; a parameter no residual depends on gets a unit scale instead of zero.
-    const scale = g.map((_, j) => A.get(j, j) || 1);
+    const scale = g.map((_, j) => (A[j * g.length + j] as number) || 1);
     const held = o.holdAtBounds ? heldAtBounds(p, g, lower, upper) : NONE_HELD;
     let accepted = false;
     while (!accepted) {
@@ -307,10 +321,14 @@ export function levenbergMarquardt(
         if (mu > 1e16) return finish('no-descent');
         continue;
       }
-      const trial = clamp(p.map((x, j) => x + (delta[j] ?? 0)));
+      const trial = clamped(
+        p.map((x, j) => x + (delta[j] ?? 0)),
+        lower,
+        upper,
+      );
       const step = trial.map((x, j) => x - (p[j] ?? 0));
       if (isSmallStep(step, p, o.stepTolerance)) return finish('small-step');
-      const rt = [...residuals(trial)];
+      const rt = residuals(trial);
       const sst = sumSquares(rt);
       const predicted = predictedDecrease(A, g, step);
       const actual = ss - sst;
@@ -320,7 +338,7 @@ export function levenbergMarquardt(
         p = trial;
         r = rt;
         ss = sst;
-        J = jacobianOf(p, r);
+        J = jacobian.at(p, r);
         mu *= Math.max(1 / 3, 1 - (2 * rho - 1) ** 3);
         nu = 2;
         accepted = true;
@@ -334,6 +352,58 @@ export function levenbergMarquardt(
     }
   }
   return finish(ss <= o.exactSumOfSquares ? 'exact-fit' : 'iteration-limit');
+}
+
+/** The bounds of a problem, each −∞/+∞ where not given, checked against the parameters. */
+function boundsOf(np: number, lower?: readonly number[], upper?: readonly number[]) {
+  ensure(np > 0, 'least squares: expected at least one parameter');
+  const lo = lower ?? new Array<number>(np).fill(Number.NEGATIVE_INFINITY);
+  const hi = upper ?? new Array<number>(np).fill(Number.POSITIVE_INFINITY);
+  ensure(lo.length === np && hi.length === np, 'least squares: bounds must match the parameters');
+  return { lower: lo, upper: hi };
+}
+
+/** `p` moved into the box. */
+function clamped(p: readonly number[], lower: readonly number[], upper: readonly number[]): number[] {
+  return p.map((x, j) => Math.min(Math.max(x, lower[j] ?? x), upper[j] ?? x));
+}
+
+/**
+ * Minimises Σ rᵢ(p)² from `problem.start` within the bounds.
+ * @throws InputError for an empty start or bounds of the wrong length.
+ */
+export function levenbergMarquardt(
+  problem: LeastSquaresProblem,
+  options: LeastSquaresOptions = {},
+): LeastSquaresResult {
+  const o = { ...LEAST_SQUARES_DEFAULTS, ...options };
+  const { lower, upper } = boundsOf(problem.start.length, problem.lower, problem.upper);
+  let evaluations = 0;
+  const residuals = (p: readonly number[]) => {
+    evaluations++;
+    return [...problem.residuals(p)];
+  };
+  const m = minimise(
+    clamped(problem.start, lower, upper),
+    lower,
+    upper,
+    residuals,
+    {
+      at: (p, r) => (problem.jacobian ? problem.jacobian(p, r) : forwardJacobian(residuals, p, r)),
+      normal: normalEquations,
+    },
+    o,
+  );
+  return {
+    parameters: m.p,
+    residuals: m.r,
+    sumOfSquares: m.ss,
+    jacobian: m.J,
+    iterations: m.iterations,
+    evaluations,
+    converged: m.reason !== 'iteration-limit' && m.reason !== 'no-descent',
+    reason: m.reason,
+  };
 }
 
 /**
@@ -368,10 +438,16 @@ export function inverseNormalMatrix(
 }
 
 /**
- * A model of one curve point: returns its value at `x` and fills `gradient[k]` with
- * ∂value/∂p[k] (`gradient` has the length of p).
+ * A model of a whole curve: fills `values[i]` with its value at `x[i]` and
+ * `gradients[k·n + i]` with ∂value/∂p[k] there (n = x.length; one column of the Jacobian
+ * after another), every entry, each call.
  */
-export type GradientModel = (p: Float64Array, x: number, gradient: Float64Array) => number;
+export type CurveModel = (
+  p: Float64Array,
+  x: ArrayLike<number>,
+  values: Float64Array,
+  gradients: Float64Array,
+) => void;
 
 /** Options of {@link fitCurve}. */
 export interface CurveFitOptions {
@@ -400,82 +476,140 @@ export interface CurveFitResult {
 }
 
 /**
- * Fits y ≈ model(p, x) by {@link levenbergMarquardt}, with the model's analytic gradient as the
- * Jacobian: the form the band decomposition of spectra needs.
+ * JᵀJ and g = Jᵀr for J = −G, the model gradients G stored column after column: each entry is
+ * the same sum, term for term in the same order, as {@link normalEquations} forms on the rows of
+ * J ((−a)(−b) = ab exactly), so the steps are bit-identical. The loops run entry by entry down
+ * the columns, so each sum stays in a register: the fit of a spectrum forms these sums
+ * thousands of times over hundreds of points.
+ */
+function gradientNormalEquations(
+  columns: Float64Array,
+  np: number,
+  r: readonly number[],
+  ss: number,
+): NormalEquations {
+  const n = r.length;
+  const a = new Float64Array(np * np);
+  const g = new Array<number>(np);
+  for (let j = 0; j < np; j++) {
+    const cj = j * n;
+    let gj = 0;
+    for (let i = 0; i < n; i++) {
+      const v = columns[cj + i] as number;
+      if (v !== 0) gj += -v * (r[i] as number);
+    }
+    g[j] = gj;
+    // Four entries of the row at a time (each its own sum, in the same order), so each value
+    // of column j is read once for four products.
+    let k = j;
+    for (; k + 3 < np; k += 4) {
+      const c0 = k * n;
+      const c1 = c0 + n;
+      const c2 = c1 + n;
+      const c3 = c2 + n;
+      let s0 = 0;
+      let s1 = 0;
+      let s2 = 0;
+      let s3 = 0;
+      for (let i = 0; i < n; i++) {
+        const v = columns[cj + i] as number;
+        if (v === 0) continue;
+        s0 += v * (columns[c0 + i] as number);
+        s1 += v * (columns[c1 + i] as number);
+        s2 += v * (columns[c2 + i] as number);
+        s3 += v * (columns[c3 + i] as number);
+      }
+      a[j * np + k] = s0;
+      a[j * np + k + 1] = s1;
+      a[j * np + k + 2] = s2;
+      a[j * np + k + 3] = s3;
+    }
+    for (; k < np; k++) {
+      const ck = k * n;
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const v = columns[cj + i] as number;
+        if (v !== 0) s += v * (columns[ck + i] as number);
+      }
+      a[j * np + k] = s;
+    }
+  }
+  return completed(a, g, np, ss);
+}
+
+/**
+ * Fits y ≈ model(p, x) by the iteration of {@link levenbergMarquardt}, with the model's analytic
+ * gradient as the Jacobian: the form the band decomposition of spectra needs.
+ * @throws InputError for an empty start or bounds of the wrong length.
  */
 export function fitCurve(
   x: ArrayLike<number>,
   y: ArrayLike<number>,
-  model: GradientModel,
+  model: CurveModel,
   p0: ArrayLike<number>,
   options: CurveFitOptions = {},
 ): CurveFitResult {
   const P = p0.length;
   const n = x.length;
-  const g = new Float64Array(P);
+  const values = new Float64Array(n);
   // The model gives its gradient with every value, so each evaluation keeps it: the Jacobian
   // asked for next, at the point just evaluated, is then read back instead of computed again.
+  // Two buffers take turns, so a trial point never overwrites the Jacobian in use.
+  const buffers = [new Float64Array(n * P), new Float64Array(n * P)];
+  let current = 0;
   let lastQ: Float64Array | undefined;
-  let lastGradients = new Float64Array(0);
-  const evaluate = (q: Float64Array, r: number[] | undefined, gradients: Float64Array) => {
-    for (let i = 0; i < n; i++) {
-      g.fill(0);
-      const v = model(q, x[i] as number, g);
-      if (r) r[i] = (y[i] as number) - v;
-      gradients.set(g, i * P);
-    }
+  const evaluate = (q: Float64Array, r: number[] | undefined) => {
+    model(q, x, values, buffers[1 - current] as Float64Array);
+    if (r) for (let i = 0; i < n; i++) r[i] = (y[i] as number) - (values[i] as number);
+    lastQ = q;
   };
   const residuals = (p: readonly number[]) => {
-    const q = Float64Array.from(p);
     const r = new Array<number>(n);
-    lastGradients = new Float64Array(n * P);
-    evaluate(q, r, lastGradients);
-    lastQ = q;
+    evaluate(Float64Array.from(p), r);
     return r;
   };
-  const jacobian = (p: readonly number[]) => {
-    const q = Float64Array.from(p);
-    let gradients = lastGradients;
-    if (!lastQ || q.some((v, k) => v !== lastQ?.[k])) {
-      gradients = new Float64Array(n * P);
-      evaluate(q, undefined, gradients);
-    }
-    const rows: number[][] = [];
-    for (let i = 0; i < n; i++) {
-      const row = new Array<number>(P);
-      for (let k = 0; k < P; k++) row[k] = -(gradients[i * P + k] as number);
-      rows.push(row);
-    }
-    return rows;
+  const jacobian = (p: readonly number[]): Float64Array => {
+    if (!lastQ || p.some((v, k) => v !== lastQ?.[k])) evaluate(Float64Array.from(p), undefined);
+    current = 1 - current;
+    return buffers[current] as Float64Array;
   };
-  const result = levenbergMarquardt(
-    {
-      start: Array.from(p0),
-      residuals,
-      jacobian,
-      ...(options.min ? { lower: Array.from(options.min) } : {}),
-      ...(options.max ? { upper: Array.from(options.max) } : {}),
-    },
-    {
-      maxIterations: options.maxIterations ?? LEAST_SQUARES_DEFAULTS.maxIterations,
-      reductionTolerance: options.relativeTolerance ?? CURVE_FIT_TOLERANCE,
-      holdAtBounds: options.holdAtBounds ?? LEAST_SQUARES_DEFAULTS.holdAtBounds,
-    },
+  const { lower, upper } = boundsOf(
+    P,
+    options.min ? Array.from(options.min) : undefined,
+    options.max ? Array.from(options.max) : undefined,
   );
+  const o = {
+    ...LEAST_SQUARES_DEFAULTS,
+    maxIterations: options.maxIterations ?? LEAST_SQUARES_DEFAULTS.maxIterations,
+    reductionTolerance: options.relativeTolerance ?? CURVE_FIT_TOLERANCE,
+    holdAtBounds: options.holdAtBounds ?? LEAST_SQUARES_DEFAULTS.holdAtBounds,
+  };
+  const m = minimise(
+    clamped(Array.from(p0), lower, upper),
+    lower,
+    upper,
+    residuals,
+    { at: jacobian, normal: (G, r, ss) => gradientNormalEquations(G, P, r, ss) },
+    o,
+  );
+  // JᵀJ at the solution, each entry summed over the points in order, as from the rows of J.
   const curvature = new Float64Array(P * P);
-  for (const row of result.jacobian) {
-    for (let j = 0; j < P; j++) {
-      const a = row[j] ?? 0;
-      if (a === 0) continue;
-      for (let k = 0; k < P; k++) curvature[j * P + k] = (curvature[j * P + k] as number) + a * (row[k] ?? 0);
+  for (let j = 0; j < P; j++) {
+    for (let k = 0; k < P; k++) {
+      let s = 0;
+      for (let i = 0; i < n; i++) {
+        const a = -(m.J[j * n + i] as number);
+        if (a !== 0) s += a * -(m.J[k * n + i] as number);
+      }
+      curvature[j * P + k] = s;
     }
   }
   return {
-    p: Float64Array.from(result.parameters),
-    chi2: result.sumOfSquares,
+    p: Float64Array.from(m.p),
+    chi2: m.ss,
     curvature,
-    iterations: result.iterations,
-    reason: result.reason,
+    iterations: m.iterations,
+    reason: m.reason,
   };
 }
 

@@ -140,7 +140,7 @@ function accumulate(n: number, d: Float64Array, vt: Float64Array): void {
 }
 
 /** √(a² + b²) without overflow, as JAMA writes it. */
-function hypotenuse(a: number, b: number): number {
+export function hypotenuse(a: number, b: number): number {
   if (Math.abs(a) > Math.abs(b)) {
     const r = b / a;
     return Math.abs(a) * Math.sqrt(1 + r * r);

@@ -22,9 +22,9 @@
  * extremum of its own in the first derivative, the very bands d–d spectra are full of.
  */
 
-import { Matrix, solve } from 'ml-matrix';
 import { sgg } from 'ml-savitzky-golay-generalized';
-import { covariance, fitCurve, type GradientModel } from '../numeric/leastSquares.js';
+import { qrLeastSquares } from '../numeric/householderQr.js';
+import { type CurveModel, covariance, fitCurve } from '../numeric/leastSquares.js';
 import { FOUR_LN2 } from './gaussianBands.js';
 
 /** The baseline fitted with the bands. */
@@ -267,17 +267,20 @@ function initialComponents(
   const nb = baselineCount(ctx.baselineKind);
   const cols = nb + candidates.length;
   if (cols === 0) return { b: [], components: [] };
-  const a = new Matrix(ctx.x.length, cols);
-  for (let i = 0; i < ctx.x.length; i++) {
+  const m = ctx.x.length;
+  const a = new Float64Array(m * cols);
+  for (let i = 0; i < m; i++) {
     const x = ctx.x[i] as number;
-    if (nb >= 1) a.set(i, 0, 1);
-    if (nb === 2) a.set(i, 1, x - ctx.xMid);
+    if (nb >= 1) a[i] = 1;
+    if (nb === 2) a[m + i] = x - ctx.xMid;
     candidates.forEach((c, k) => {
       const u = (x - c.c) / c.w;
-      a.set(i, nb + k, Math.exp(-FOUR_LN2 * u * u));
+      a[(nb + k) * m + i] = Math.exp(-FOUR_LN2 * u * u);
     });
   }
-  const coef = solve(a, Matrix.columnVector(Array.from(ctx.y))).getColumn(0);
+  const solution = qrLeastSquares(a, m, cols, ctx.y);
+  if (!solution) throw new Error('starting heights: the candidate band shapes are linearly dependent');
+  const coef = Array.from(solution);
   return {
     b: coef.slice(0, nb),
     components: candidates.map((c, k) => ({
@@ -374,30 +377,44 @@ function componentBounds(c: Component | Candidate, box: Box): [number[], number[
   ];
 }
 
-/** The model: baseline parameters (offset, slope about `xMid`), then (centre, height, FWHM) per band. */
-function bandsModel(nb: number, xMid: number): GradientModel {
-  return (p, x, g) => {
-    let v = 0;
-    if (nb >= 1) {
-      v += p[0] as number;
-      g[0] = 1;
+/**
+ * The model: baseline parameters (offset, slope about `xMid`), then (centre, height, FWHM) per
+ * band. Band by band over all points, so each band's constants are worked out once; every
+ * point's value still sums the baseline and then the bands in order.
+ */
+export function bandsModel(nb: number, xMid: number): CurveModel {
+  return (p, x, values, gradients) => {
+    const P = p.length;
+    const n = x.length;
+    values.fill(0);
+    for (let i = 0; i < n; i++) {
+      const xi = x[i] as number;
+      if (nb >= 1) {
+        values[i] = (values[i] as number) + (p[0] as number);
+        gradients[i] = 1;
+      }
+      if (nb === 2) {
+        values[i] = (values[i] as number) + (p[1] as number) * (xi - xMid);
+        gradients[n + i] = xi - xMid;
+      }
     }
-    if (nb === 2) {
-      v += (p[1] as number) * (x - xMid);
-      g[1] = x - xMid;
-    }
-    for (let j = nb; j < p.length; j += 3) {
+    for (let j = nb; j < P; j += 3) {
       const c = p[j] as number;
       const h = p[j + 1] as number;
       const w = p[j + 2] as number;
-      const d = x - c;
-      const e = Math.exp((-FOUR_LN2 * d * d) / (w * w));
-      v += h * e;
-      g[j] = (2 * FOUR_LN2 * h * e * d) / (w * w);
-      g[j + 1] = e;
-      g[j + 2] = (2 * FOUR_LN2 * h * e * d * d) / (w * w * w);
+      const ww = w * w;
+      const www = w * w * w;
+      const k = 2 * FOUR_LN2 * h;
+      const [dc, dh, dw] = [j * n, (j + 1) * n, (j + 2) * n];
+      for (let i = 0; i < n; i++) {
+        const d = (x[i] as number) - c;
+        const e = Math.exp((-FOUR_LN2 * d * d) / ww);
+        values[i] = (values[i] as number) + h * e;
+        gradients[dc + i] = (k * e * d) / ww;
+        gradients[dh + i] = e;
+        gradients[dw + i] = (k * e * d * d) / www;
+      }
     }
-    return v;
   };
 }
 

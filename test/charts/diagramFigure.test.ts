@@ -120,11 +120,23 @@ describe('diagramChart: labels in the figure', () => {
     expect(labels).toContainEqual(expect.objectContaining({ text: '5Eg' }));
   });
 
-  it('draws the crossover diagram as one curve per state, allowed curves first', () => {
-    const config = diagramChart(d6);
-    expect(config.data.datasets).toHaveLength(d6.curves.length);
-    const first = config.data.datasets[0] as ChartDataset<'scatter'>;
-    expect(d6.regions.some((r) => r.S === d6.curves.find((c) => c.label === first.label)?.S)).toBe(true);
+  it('diagramChart draws each curve as runs of one style joined end to end, allowed curves first', () => {
+    const datasets = diagramChart(d6).data.datasets as ChartDataset<'scatter'>[];
+    // Each curve's runs stand together, once, and every curve is drawn.
+    const order = datasets.map((d) => d.label).filter((l, i, all) => l !== all[i - 1]);
+    expect(order).toHaveLength(d6.curves.length);
+    expect(new Set(order)).toEqual(new Set(d6.curves.map((c) => c.label)));
+    const first = datasets[0];
+    expect(d6.regions.some((r) => r.S === d6.curves.find((c) => c.label === first?.label)?.S)).toBe(true);
+    // ⁵T₂g is spin-allowed on the high-spin side only: two runs, drawn left to right (the
+    // later dataset first), meeting at one sweep point, with the whole curve's points.
+    const runs = datasets.filter((d) => d.label === '5T2g').reverse();
+    expect(runs.map((d) => d.borderColor)).toEqual(['#1d4e89', '#9aa7b4']);
+    const [left, right] = runs.map((d) => d.data as { x: number; y: number }[]);
+    expect(left?.at(-1)).toEqual(right?.[0]);
+    expect((left?.length ?? 0) + (right?.length ?? 0) - 1).toBe(d6.deltaOverB.length);
+    // The sweep has a point at the crossover, where the style changes.
+    expect(left?.at(-1)?.x).toBeCloseTo(d6.crossings[0]?.deltaOverB ?? 0, 9);
   });
 
   it('titles the figure with dⁿ, the geometry and C/B (none for d¹ and d⁹), and the ion if named', () => {
@@ -155,7 +167,7 @@ describe('withSample: the sample on the diagram', () => {
       { x: 19000 / 1050, y: 16500 / 1050 },
       { x: 19000 / 1050, y: 23000 / 1050 },
     ]);
-    expect(config.data.datasets).toHaveLength(d6.curves.length + 1);
+    expect(config.data.datasets).toHaveLength(diagramChart(d6).data.datasets.length + 1);
   });
 
   it('raises the E/B axis to show a band above its top, and leaves it otherwise', () => {

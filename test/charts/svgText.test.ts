@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { renderDiagram } from '../../charts/diagram.js';
 import { groupedNumber, tickText } from '../../charts/numbers.js';
 import { renderChart } from '../../charts/render.js';
-import { compactShapes } from '../../charts/svgShapes.js';
+import { compactShapes, mergeClipGroups } from '../../charts/svgShapes.js';
 import { editableSvg, SVG_FONT_FAMILY } from '../../charts/svgText.js';
 import { formulaHtml, formulaRuns, formulaTextHtml } from '../../charts/typeset.js';
 import { sweepDiagram } from '../../src/index.js';
@@ -55,6 +55,38 @@ describe('compactShapes', () => {
       .map((p, k) => `Q${pts[k]} ${p}`)
       .join('')}Z`;
     expect(compactShapes(`<path fill="#123" d="${d}"/>`)).toBe('<circle fill="#123" cx="10" cy="20" r="3"/>');
+  });
+});
+
+describe('mergeClipGroups', () => {
+  const group = (id: string, rect: string, body: string) =>
+    `<clipPath id="${id}"><rect ${rect}/></clipPath><g clip-path="url(#${id})">${body}</g>`;
+
+  it('joins neighbouring groups with the same clip rectangle and keeps the others apart', () => {
+    const svg = [
+      '<svg>',
+      group('a', 'width="5"', '<path d="M0 0L1 1"/>'),
+      group('b', 'width="5"', '<path d="M1 1L2 2"/>'),
+      group('c', 'width="9"', '<path d="M2 2L3 3"/>'),
+      '<text>x</text>',
+      group('d', 'width="9"', '<path d="M3 3L4 4"/>'),
+      '</svg>',
+    ].join('');
+    expect(mergeClipGroups(svg)).toBe(
+      [
+        '<svg>',
+        group('a', 'width="5"', '<path d="M0 0L1 1"/><path d="M1 1L2 2"/>'),
+        group('c', 'width="9"', '<path d="M2 2L3 3"/>'),
+        '<text>x</text>',
+        group('d', 'width="9"', '<path d="M3 3L4 4"/>'),
+        '</svg>',
+      ].join(''),
+    );
+  });
+
+  it('leaves a clip group holding a group of its own as it is', () => {
+    const svg = `<svg>${group('a', 'width="5"', '<g><path d="M0 0"/></g>')}${group('b', 'width="5"', '<path d="M1 1"/>')}</svg>`;
+    expect(mergeClipGroups(svg)).toBe(svg);
   });
 });
 
