@@ -27,7 +27,7 @@ function asBits(b: AdaptedBlock) {
 }
 
 describe('stored cubic bases', () => {
-  it('STORED_CUBIC_BASES decodes to what buildAdaptedBlocks builds, bit for bit, for d1 to d9 (else run npm run generate:basis)', () => {
+  it('STORED_CUBIC_BASES decodes to what buildAdaptedBlocks builds, bit for bit, for d1 to d9 (else run npm run generate:data)', () => {
     expect(STORED_CUBIC_BASES).toHaveLength(9);
     for (let n = 1; n <= 9; n++) {
       const stored = STORED_CUBIC_BASES[n - 1];
