@@ -3,13 +3,16 @@
  * turned into the one-line `termsplit: …` form, and the run that maps input errors to exit code 2
  * and anything else to exit code 1.
  *
- * Commands are loaded lazily: when the first word names a command, only that command's module is
- * imported (a start-up of a text command then loads no figure or reader code); for help, the
- * version, no words or an unknown word every command is registered, in the order of `COMMANDS`.
+ * Commands are loaded lazily: when the first word names a command (or the second, after `help`),
+ * only that command's module is imported (a start-up of a text command then loads no figure or
+ * reader code); for help, the version, no words or an unknown word no command module is loaded:
+ * each command stands in the program as its name and summary (commandSummaries.ts), which is all
+ * the top-level help shows.
  */
 
-import { Command, CommanderError } from 'commander';
+import { Command, CommanderError, Help } from 'commander';
 import { InputError } from '../src/core/errors.js';
+import { COMMAND_SUMMARIES, type CommandName } from './commandSummaries.js';
 import { messageLine } from './format.js';
 import type { Io } from './io.js';
 import { VERSION } from './version.js';
@@ -23,7 +26,7 @@ export const EXIT_INPUT = 2;
 type Register = (program: Command, io: Io) => void;
 
 /** Every command, in the order help lists them, and how to load its module. */
-const COMMANDS: ReadonlyMap<string, () => Promise<Register>> = new Map([
+const COMMANDS: ReadonlyMap<string, () => Promise<Register>> = new Map<CommandName, () => Promise<Register>>([
   ['terms', async () => (await import('./commands/terms.js')).registerTerms],
   ['levels', async () => (await import('./commands/levels.js')).registerLevels],
   ['ions', async () => (await import('./commands/ions.js')).registerIons],
@@ -39,23 +42,49 @@ const COMMANDS: ReadonlyMap<string, () => Promise<Register>> = new Map([
 
 /**
  * The command-line program writing to `io`: with only the command `argv` names when its first
- * word is a command, else with every command.
+ * word (or, after `help`, its second) is a command, else with every command as its summary.
  */
 export async function buildProgram(io: Io, argv: readonly string[] = []): Promise<Command> {
-  const program = new Command('termsplit')
+  const program = baseProgram(io);
+  const named = COMMANDS.get((argv[0] === 'help' ? argv[1] : argv[0]) ?? '');
+  if (named) (await named())(program, io);
+  else addSummaries(program);
+  for (const c of program.commands) c.exitOverride().configureOutput(output(io));
+  return program;
+}
+
+/** The program with every command module loaded and registered (for tests of the whole set). */
+export async function buildFullProgram(io: Io): Promise<Command> {
+  const program = baseProgram(io);
+  const registers = await Promise.all([...COMMANDS.values()].map((load) => load()));
+  for (const register of registers) register(program, io);
+  for (const c of program.commands) c.exitOverride().configureOutput(output(io));
+  return program;
+}
+
+function baseProgram(io: Io): Command {
+  return new Command('termsplit')
     .description(
       'Ligand-field analysis of transition-metal ions: terms, cubic levels, diagrams, fits, spin state.',
     )
     .version(VERSION)
     .configureOutput(output(io))
     .exitOverride();
-  const named = COMMANDS.get(argv[0] ?? '');
-  const registers = await Promise.all(
-    (named !== undefined ? [named] : [...COMMANDS.values()]).map((load) => load()),
-  );
-  for (const register of registers) register(program, io);
-  for (const c of program.commands) c.exitOverride().configureOutput(output(io));
-  return program;
+}
+
+/**
+ * Every command as its name and description only, listed with the usage the command declares
+ * (commander would write `[options]` and the arguments only for a command that has them).
+ */
+function addSummaries(program: Command): void {
+  for (const [name, { description }] of Object.entries(COMMAND_SUMMARIES))
+    program.command(name).description(description);
+  program.configureHelp({
+    subcommandTerm: (cmd) => {
+      const summary = COMMAND_SUMMARIES[cmd.name() as CommandName];
+      return summary ? `${cmd.name()} ${summary.usage}` : Help.prototype.subcommandTerm.call(new Help(), cmd);
+    },
+  });
 }
 
 /**

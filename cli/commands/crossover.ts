@@ -44,6 +44,7 @@ import { solveCubic } from '../../src/field/cubic.js';
 import { unicodeConfiguration, unicodeLabel } from '../../src/field/labels.js';
 import { solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
 import type { FitSolution } from '../../src/fit/fitTypes.js';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
 import { fixed, ionText, jsonText, table, unicodeIons } from '../format.js';
 import { type Io, progress } from '../io.js';
@@ -79,9 +80,7 @@ export interface CrossoverCommandOptions {
 export function registerCrossover(program: Command, io: Io): void {
   program
     .command('crossover')
-    .description(
-      'high-spin/low-spin crossover of dⁿ: where it lies, which side a sample is on, LFSE and pairing, spin-only moments, map',
-    )
+    .description(COMMAND_SUMMARIES.crossover.description)
     .argument('[config]', 'd-electron configuration such as d6 (optional with --ion)')
     .option('--ion <name>', 'the metal ion, e.g. Co3+ (gives n, and B and C/B when not given)')
     .option('--B <cm-1>', 'Racah B of the complex, cm⁻¹, optionally ±σ (default: the free-ion B of --ion)')

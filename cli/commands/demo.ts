@@ -5,6 +5,7 @@
 
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import { packageRoot } from '../files.js';
 import { jsonText } from '../format.js';
 import type { Io } from '../io.js';
@@ -21,7 +22,7 @@ export const DEFAULT_DEMO_DIR = 'termsplit-demo';
 export function registerDemo(program: Command, io: Io): void {
   program
     .command('demo')
-    .description('run the whole job on the built-in invented demo series and write its report')
+    .description(COMMAND_SUMMARIES.demo.description)
     .option('-o, --output <dir>', `report folder (default: ./${DEFAULT_DEMO_DIR})`)
     .option('--json', 'print the report as one JSON object on stdout')
     .action(async (opts: { output?: string; json?: boolean }) => {

@@ -40,6 +40,7 @@ import {
 import { parseEnergyList } from '../../src/core/units.js';
 import { DOUBLE_GROUP_NOTATION } from '../../src/field/doubleGroup.js';
 import { unicodeLabel, unicodeTerm } from '../../src/field/labels.js';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import type { DistortionDiagramOptions } from '../distorted.js';
 import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFilesAtomic } from '../files.js';
@@ -87,9 +88,7 @@ export interface DiagramOptions {
 export function registerDiagram(program: Command, io: Io): void {
   const command = program
     .command('diagram')
-    .description(
-      'correlation (Tanabe–Sugano-style) diagram of dⁿ at a chosen C/B, or the levels of a distorted complex along a distortion (--distort with a geometry): figure and curve data',
-    )
+    .description(COMMAND_SUMMARIES.diagram.description)
     .argument('[config]', 'the d configuration, e.g. d6 (optional with --ion)')
     .option('--ion <name>', 'the metal ion, e.g. Fe2+ (gives n and the free-ion C/B)')
     .option(...GEOMETRY_OPTION)

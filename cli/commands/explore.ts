@@ -13,6 +13,7 @@ import { DEFAULT_ENERGY_UNIT } from '../../src/core/defaults.js';
 import { InputError } from '../../src/core/errors.js';
 import { B_LIMIT, DQ_LIMIT } from '../../src/core/limits.js';
 import { parseEnergyList, parseUnit } from '../../src/core/units.js';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import { writeFileAtomic } from '../files.js';
 import { jsonText, messageLine } from '../format.js';
 import type { Io } from '../io.js';
@@ -56,9 +57,7 @@ export interface ExploreOptions {
 export function registerExplore(program: Command, io: Io): void {
   program
     .command('explore')
-    .description(
-      'write an interactive page (one self-contained HTML file): sliders for Dq, B, C/B and ζ, the correlation diagram, the levels and the sample’s bands and spectrum, live',
-    )
+    .description(COMMAND_SUMMARIES.explore.description)
     .option('--ion <name>', 'the metal ion, e.g. Ni2+ (gives n and the free-ion C/B)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
     .option(...GEOMETRY_OPTION)

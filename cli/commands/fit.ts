@@ -15,6 +15,7 @@ import { parseEnergyList, parseUnit } from '../../src/core/units.js';
 import { fitBands } from '../../src/fit/fitBands.js';
 import type { FitResult } from '../../src/fit/fitTypes.js';
 import { refineFitWithZeta, type ZetaFit } from '../../src/fit/zetaFit.js';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import type { DistortedFitOptions } from '../distorted.js';
 import { addFieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { checkOutputDirectory, writeFileAtomic } from '../files.js';
@@ -65,9 +66,7 @@ export interface FitOptions {
 export function registerFit(program: Command, io: Io): void {
   const command = program
     .command('fit')
-    .description(
-      'fit Dq and Racah B (and C) to observed d–d band maxima, assigning the bands; with a geometry (--shape, --xyz, --tetragonal, --trigonal) fit eσ/eπ or Ds/Dt and B of a distorted complex',
-    )
+    .description(COMMAND_SUMMARIES.fit.description)
     .option('--ion <name>', 'the metal ion, e.g. Ni2+ (gives n, the free-ion B for β and the default C/B)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
     .option(

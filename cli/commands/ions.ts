@@ -5,6 +5,7 @@
 
 import type { Command } from 'commander';
 import { FREE_IONS, freeIonRatio } from '../../src/core/ions.js';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 
@@ -12,7 +13,7 @@ import type { Io } from '../io.js';
 export function registerIons(program: Command, io: Io): void {
   program
     .command('ions')
-    .description('the built-in free-ion Racah parameters and spin–orbit constants, with sources')
+    .description(COMMAND_SUMMARIES.ions.description)
     .option('--json', 'print JSON on stdout')
     .action((opts: { json?: boolean }) => {
       if (opts.json) {

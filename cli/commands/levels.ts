@@ -17,6 +17,7 @@ import { cmToEv, cmToNm } from '../../src/core/units.js';
 import type { CubicLevel } from '../../src/field/cubic.js';
 import { unicodeConfiguration, unicodeLabel, unicodeTerm } from '../../src/field/labels.js';
 import { type SpinOrbitResult, solveSpinOrbit } from '../../src/field/spinOrbitSolver.js';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import { addFieldOptions, type FieldOptions, hasFieldOptions } from '../fieldOptions.js';
 import { writeFileAtomic } from '../files.js';
 import { fixed, ionText, jsonText, listSection, table, unicodeIons } from '../format.js';
@@ -53,9 +54,7 @@ export interface LevelsOptions extends LevelOptions {
 export function registerLevels(program: Command, io: Io): void {
   const command = program
     .command('levels')
-    .description(
-      'levels of dⁿ in an octahedral or tetrahedral field, or in a complex of lower symmetry (--shape, --xyz, --tetragonal, --trigonal), labelled, with predicted band positions',
-    )
+    .description(COMMAND_SUMMARIES.levels.description)
     .option('--ion <name>', 'the metal ion, e.g. Cr3+ (gives n and the free-ion C/B)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
     .option('--dq <cm-1>', 'ligand-field parameter Dq (10Dq = Δ), cm⁻¹')

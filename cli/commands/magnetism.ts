@@ -28,6 +28,7 @@ import {
 } from '../../src/core/limits.js';
 import { unicodeIon, unicodeLabel } from '../../src/field/labels.js';
 import { spinOrbitLevels } from '../../src/field/spinOrbitSolver.js';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import { writeFileAtomic } from '../files.js';
 import { fixed, jsonText } from '../format.js';
 import type { Io } from '../io.js';
@@ -61,9 +62,7 @@ export interface MagnetismOptions extends LevelOptions {
 export function registerMagnetism(program: Command, io: Io): void {
   program
     .command('magnetism')
-    .description(
-      'magnetic moment against temperature with spin–orbit coupling (χ, χT, μ_eff from all states), beside spin-only',
-    )
+    .description(COMMAND_SUMMARIES.magnetism.description)
     .option('--ion <name>', 'the metal ion, e.g. Co2+ (gives n, the free-ion C/B and ζ)')
     .option('--d <n>', 'number of d electrons, 1–9, instead of --ion')
     .option('--dq <cm-1>', 'ligand-field parameter Dq (10Dq = Δ), cm⁻¹')

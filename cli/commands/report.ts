@@ -5,6 +5,7 @@
 
 import type { Command } from 'commander';
 import { JOBS_LIMIT, SHEET_SAMPLES_LIMIT } from '../../src/core/limits.js';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import { INPUT_FILE_MAX_TEXT } from '../files.js';
 import { jsonText } from '../format.js';
 import type { Io } from '../io.js';
@@ -25,9 +26,7 @@ export const DEFAULT_REPORT_DIR = 'termsplit-report';
 export function registerReport(program: Command, io: Io): void {
   program
     .command('report')
-    .description(
-      'fit every sample of a sample sheet and write a report folder (HTML, Markdown, CSV, JSON, figures)',
-    )
+    .description(COMMAND_SUMMARIES.report.description)
     .argument(
       '<sheet>',
       `sample sheet: .json (full form) or .csv (one sample a row); at most ${SHEET_SAMPLES_LIMIT} samples and ${INPUT_FILE_MAX_TEXT} per file`,

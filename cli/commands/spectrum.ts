@@ -51,6 +51,7 @@ import {
   Y_UNIT_CHOICES,
   Y_UNIT_NAMES,
 } from '../../src/spectra/spectrumUnits.js';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import { INPUT_FILE_MAX_TEXT, readTextFile, writeFilesAtomic } from '../files.js';
 import { fixed, ionText, jsonText, messageLine, table } from '../format.js';
 import { type Io, progress } from '../io.js';
@@ -105,9 +106,7 @@ export interface SpectrumOptions {
 export function registerSpectrum(program: Command, io: Io): void {
   program
     .command('spectrum')
-    .description(
-      'find the d–d bands of a measured UV-vis-NIR spectrum (CSV/TSV/text or JCAMP-DX) and draw them',
-    )
+    .description(COMMAND_SUMMARIES.spectrum.description)
     .argument(
       '<file>',
       `the spectrum: delimited text (x and y columns) or JCAMP-DX (.jdx, .dx); at most ${SPECTRUM_ROWS_LIMIT} rows and ${INPUT_FILE_MAX_TEXT}`,

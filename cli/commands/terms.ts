@@ -20,6 +20,7 @@ import { InputError } from '../../src/core/errors.js';
 import { type FreeIon, findIon } from '../../src/core/ions.js';
 import { B_LIMIT, C_LIMIT } from '../../src/core/limits.js';
 import { unicodeTerm } from '../../src/field/labels.js';
+import { COMMAND_SUMMARIES } from '../commandSummaries.js';
 import { fixed, jsonText, table } from '../format.js';
 import type { Io } from '../io.js';
 import { numberOption } from '../options.js';
@@ -39,7 +40,7 @@ interface TermsOptions {
 export function registerTerms(program: Command, io: Io): void {
   program
     .command('terms')
-    .description('microstates, Russell–Saunders terms, Hund ground level and J levels of a configuration')
+    .description(COMMAND_SUMMARIES.terms.description)
     .argument('[config]', 'configuration such as p2, d3, 3d8, f2 (optional with --ion)')
     .option('--B <cm-1>', 'Racah B, for free-ion term energies of a d configuration')
     .option('--C <cm-1>', 'Racah C, with --B')

@@ -2,11 +2,18 @@
  * Where the ground state of dⁿ changes its spin as Dq grows (high-spin → low-spin): each change
  * found on a scan of the ground spin (eigenvalues alone) and then pinned down as a root of
  * E(lowest of one spin) − E(lowest of the other), with the full solver at every step.
+ *
+ * The scan gives the ground spin at every point of its grid, but solves only every
+ * {@link COARSE_STEP}th point, and between two of them, where it cannot prove the spin unchanged,
+ * the midpoint, then each half again: the lowest level of each spin is a concave function of Dq (the least eigenvalue of
+ * a matrix affine in Dq), so it lies above its chord and below the extended chords of its
+ * neighbouring intervals; where the ground spin's upper bound stays below every other spin's
+ * lower bound, no grid point between has another ground spin. The result is that of the full scan.
  */
 
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
-import { type CubicResult, cubicLevels, groundSpin } from '../field/cubic.js';
+import { type CubicResult, cubicLevels, groundSpin, lowestBySpin } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
 import { brentRoot } from '../numeric/roots.js';
 
@@ -75,13 +82,14 @@ export function groundStateCrossings(input: CrossingInput): GroundCrossing[] {
   // Energies and labels are all the search needs: eigenvalues only.
   const solve = (dq: number) => cubicLevels(n, sign * dq, B, C, geometry, false);
   const maxDq = (maxDeltaOverB * B) / 10;
+  const spins = groundSpins(n, sign, B, C, maxDq, scanPoints);
   const out: GroundCrossing[] = [];
   let prevDq = 0;
-  let prevS = groundSpin(n, 0, B, C);
+  let prevS = spins[0];
   for (let i = 1; i <= scanPoints; i++) {
     const dq = (maxDq * i) / scanPoints;
-    // The scan watches the ground spin only (eigenvalues alone); the full solver labels the ends.
-    const curS = groundSpin(n, sign * dq, B, C);
+    // The scan watches the ground spin only; the full solver labels the ends.
+    const curS = spins[i];
     if (curS !== prevS) {
       const prev = solve(prevDq);
       const cur = solve(dq);
@@ -111,4 +119,102 @@ export function groundStateCrossings(input: CrossingInput): GroundCrossing[] {
     prevS = curS;
   }
   return out;
+}
+
+/** Grid points per coarse step of the scan. */
+const COARSE_STEP = 16;
+
+/** Spins 0…5/2 in `lowestBySpin`'s table (index 2S). */
+const SPIN_SLOTS = 6;
+
+/**
+ * The ground spin at Dq = maxDq·i/points, i = 0…points (the same numbers as {@link groundSpin} at
+ * each point), solving the coarse points, and between two of them, where the bounds leave a
+ * doubt, the midpoint, then each half again. `sign` is +1 in an octahedral field, −1 in a
+ * tetrahedral one.
+ */
+export function groundSpins(
+  n: number,
+  sign: number,
+  B: number,
+  C: number,
+  maxDq: number,
+  points: number,
+): number[] {
+  const dqAt = (i: number) => (maxDq * i) / points;
+  const spins = new Array<number>(points + 1);
+  const lows = new Map<number, Float64Array>();
+  const solveAt = (i: number) => {
+    const low = new Float64Array(SPIN_SLOTS);
+    const S = lowestBySpin(n, sign * dqAt(i), B, C, low);
+    lows.set(i, low);
+    if (i > 0) spins[i] = S;
+  };
+  spins[0] = groundSpin(n, 0, B, C);
+  const coarse: number[] = [];
+  for (let i = 0; i < points; i += COARSE_STEP) coarse.push(i);
+  coarse.push(points);
+  for (const i of coarse) solveAt(i);
+  // The largest |∂E/∂Dq| of any level: the e-set count b = 0…min(n, 4) gives −4(n − b) + 6b.
+  const steepest = Math.max(4 * n, 6 * Math.min(n, 4) - 4 * (n - Math.min(n, 4)));
+  const bounds: Bounds = { lows, dqAt, steepest };
+  // Settles the grid points strictly between a and b; left and right are solved points outside.
+  const settle = (left: number | undefined, a: number, b: number, right: number | undefined): void => {
+    if (b - a < 2) return;
+    const S = spins[a] as number;
+    if (S === spins[b] && unchangedBetween(S, [left, a, b, right], bounds)) {
+      for (let i = a + 1; i < b; i++) spins[i] = S;
+      return;
+    }
+    const mid = Math.floor((a + b) / 2);
+    solveAt(mid);
+    settle(left, a, mid, b);
+    settle(a, mid, b, right);
+  };
+  for (let c = 0; c + 1 < coarse.length; c++)
+    settle(coarse[c - 1], coarse[c] as number, coarse[c + 1] as number, coarse[c + 2]);
+  return spins as number[];
+}
+
+/** What the bounds of {@link unchangedBetween} read: the solved points' lowest levels by spin. */
+interface Bounds {
+  readonly lows: ReadonlyMap<number, Float64Array>;
+  readonly dqAt: (i: number) => number;
+  readonly steepest: number;
+}
+
+/**
+ * Whether the lowest level of spin S stays below every other spin's lowest level between solved
+ * grid points a and b (with a margin for rounding): S's upper bound there is the lesser of its
+ * chords extended from the solved points `left` and `right` outside (or of the steepest slope
+ * where there is none), the others' lower bound their chord; both piecewise linear, so compared
+ * at the ends and at the upper bound's corner.
+ */
+function unchangedBetween(
+  S: number,
+  [left, a, b, right]: readonly [number | undefined, number, number, number | undefined],
+  { lows, dqAt, steepest }: Bounds,
+): boolean {
+  const f = (i: number, slot: number) => (lows.get(i) as Float64Array)[slot] as number;
+  const own = 2 * S;
+  const xa = dqAt(a);
+  const xb = dqAt(b);
+  const fa = f(a, own);
+  const fb = f(b, own);
+  // Concave: slope right of a ≤ the chord slope left of a; slope left of b ≥ the chord slope right of b.
+  const slopeA = left !== undefined ? (fa - f(left, own)) / (xa - dqAt(left)) : steepest;
+  const slopeB = right !== undefined ? (f(right, own) - fb) / (dqAt(right) - xb) : -steepest;
+  const upper = (t: number) => Math.min(fa + slopeA * (t - xa), fb + slopeB * (t - xb));
+  const corner = slopeA !== slopeB ? (fb - fa + slopeA * xa - slopeB * xb) / (slopeA - slopeB) : xa;
+  const at = [xa, xb, ...(corner > xa && corner < xb ? [corner] : [])];
+  const margin = 1e-9 * (Math.abs(fa) + Math.abs(fb) + 1);
+  for (let slot = 0; slot < SPIN_SLOTS; slot++) {
+    if (slot === own) continue;
+    const ga = f(a, slot);
+    const gb = f(b, slot);
+    if (ga === Number.POSITIVE_INFINITY) continue;
+    const lower = (t: number) => ga + ((gb - ga) * (t - xa)) / (xb - xa);
+    if (at.some((t) => lower(t) - upper(t) <= margin)) return false;
+  }
+  return true;
 }

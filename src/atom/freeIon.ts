@@ -8,6 +8,8 @@
 import { ensure } from '../core/errors.js';
 import { freeIonBlock } from '../field/hamiltonian.js';
 import { clusterSorted, resolveSubspace, symmetricEigen } from '../numeric/eigen.js';
+import { decodeFloats, encodeFloats } from '../numeric/storedFloats.js';
+import { STORED_D_FREE_ION_PARTS } from './freeIonData.js';
 import { quantumNumbers } from './microstates.js';
 import { casimirMatrix } from './operators.js';
 import { repulsionMatrices, slaterFromRacah } from './repulsion.js';
@@ -30,29 +32,65 @@ export interface FreeIonTerm {
   readonly degeneracy: number;
 }
 
-interface FreeIonParts {
+/** The Slater–Condon parts and Casimirs of the M_L = 0, lowest-M_S block of lⁿ, row-major. */
+export interface FreeIonParts {
   readonly size: number;
+  /** ∂H/∂F², ∂H/∂F⁴, … */
   readonly parts: Float64Array[];
   readonly l2: Float64Array;
   readonly s2: Float64Array;
 }
 
+/** Stored {@link FreeIonParts} of dⁿ: the size, and parts, L² and S² as stored floats. */
+export interface StoredFreeIonParts {
+  readonly size: number;
+  readonly floats: string;
+}
+
 const partsCache = new Map<number, FreeIonParts>();
 
-/** Repulsion matrices and Casimirs of the M_L = 0, lowest-M_S block, built once per (l, n). */
+/**
+ * The parts of lⁿ, once per (l, n): for d shells decoded from the stored copy in freeIonData.ts
+ * (quicker at start-up than building; test/atom/freeIonData.test.ts holds it equal to
+ * {@link buildFreeIonParts}, bit for bit), else built.
+ */
 function freeIonParts(l: number, n: number): FreeIonParts {
   const key = l * 100 + n;
   const cached = partsCache.get(key);
   if (cached) return cached;
+  const stored = l === 2 ? STORED_D_FREE_ION_PARTS[n] : undefined;
+  const parts = (stored && decodeFreeIonParts(l, stored)) ?? buildFreeIonParts(l, n);
+  partsCache.set(key, parts);
+  return parts;
+}
+
+/** Repulsion matrices and Casimirs of the M_L = 0, lowest-M_S block of lⁿ, built. */
+export function buildFreeIonParts(l: number, n: number): FreeIonParts {
   const block = freeIonBlock(l, n);
-  const parts = {
+  return {
     size: block.masks.length,
     parts: repulsionMatrices(l, block),
     l2: casimirMatrix(l, block, false, (m) => quantumNumbers(l, m).ML),
     s2: casimirMatrix(l, block, true, (m) => quantumNumbers(l, m).twoMS / 2),
   };
-  partsCache.set(key, parts);
-  return parts;
+}
+
+/** The parts as stored data (for the generator of freeIonData.ts). */
+export function encodeFreeIonParts(p: FreeIonParts): StoredFreeIonParts {
+  return { size: p.size, floats: encodeFloats([...p.parts, p.l2, p.s2]) };
+}
+
+/** The parts of an lⁿ shell (l Slater parts) from stored data; undefined where they cannot be read. */
+export function decodeFreeIonParts(l: number, stored: StoredFreeIonParts): FreeIonParts | undefined {
+  const take = decodeFloats(stored.floats);
+  if (!take) return undefined;
+  const square = stored.size * stored.size;
+  return {
+    size: stored.size,
+    parts: Array.from({ length: l }, () => take(square)),
+    l2: take(square),
+    s2: take(square),
+  };
 }
 
 function quantum(x: number): number {

@@ -490,9 +490,18 @@ function blockMatrixTransposed(
  * eigenvalues alone (no vectors, no labels): for scans that only watch the ground spin change.
  */
 export function groundSpin(n: number, dqOct: number, B: number, C: number): number {
+  return lowestBySpin(n, dqOct, B, C);
+}
+
+/**
+ * {@link groundSpin}, and the lowest energy of each spin written to `out[2S]` when given (+∞ for
+ * a spin dⁿ lacks; `out` needs length 6).
+ */
+export function lowestBySpin(n: number, dqOct: number, B: number, C: number, out?: Float64Array): number {
   checkMagnitudes(dqOct, B, C);
   let lowest = Number.POSITIVE_INFINITY;
   let S = 0;
+  out?.fill(Number.POSITIVE_INFINITY);
   const ws = workspaceOf(n);
   ws.blocks.forEach((block, bi) => {
     // Every irrep of O has a component with k = 0 (A1, E, T1) or k = 2 (A2, E, T2), so the k = 1
@@ -503,7 +512,9 @@ export function groundSpin(n: number, dqOct: number, B: number, C: number): numb
     blockMatrixTransposed(block, dqOct, B, C, vt);
     tridiagonalQlValuesInPlace(vt, block.size, own, ws.e);
     const v = own[0];
-    if (v !== undefined && v < lowest) {
+    if (v === undefined) return;
+    if (out && v < (out[2 * block.S] as number)) out[2 * block.S] = v;
+    if (v < lowest) {
       lowest = v;
       S = block.S;
     }

@@ -1,5 +1,7 @@
 import { rotateDeterminantsByMinors } from '../atom/determinantRotation.js';
 import { congruence, symmetricEigen } from '../numeric/eigen.js';
+import { decodeAdaptedBlocks } from './cubicBasisCodec.js';
+import { STORED_CUBIC_BASES } from './cubicBasisData.js';
 import { type DeterminantBlock, determinantBlock, determinantClasses } from './hamiltonian.js';
 import { cubicRotations, rotationBlock, rotationOfShell } from './symmetry.js';
 
@@ -9,7 +11,9 @@ import { cubicRotations, rotationBlock, rotationOfShell } from './symmetry.js';
  * and, for k = 0 and 2, parity p = ±1 under the C₂′ rotation about [110] (which maps M_L to −M_L
  * and so keeps those classes). H commutes with S² and C₂′, so it splits into blocks of one
  * (k, S, p): each much smaller than the determinant block, each eigenvector with its S known
- * and its configuration weights read off its components. The basis is built once per n.
+ * and its configuration weights read off its components. The basis is built once per n, or (much
+ * quicker at start-up) decoded from the stored copy in cubicBasisData.ts, which
+ * test/field/cubicBasisData.test.ts holds equal, bit for bit, to what {@link buildAdaptedBlocks} builds.
  */
 export interface AdaptedBlock {
   /** M_L mod 4 (0, 1 or 2). */
@@ -35,10 +39,21 @@ export interface AdaptedBlock {
 
 const cache = new Map<number, AdaptedBlock[]>();
 
-/** The adapted blocks of dⁿ, n = 1…9, cached. */
+/** The adapted blocks of dⁿ, n = 1…9, cached: decoded from the stored copy, else built. */
 export function adaptedBlocks(n: number): AdaptedBlock[] {
   const cached = cache.get(n);
   if (cached) return cached;
+  const stored = STORED_CUBIC_BASES[n - 1];
+  const out = (stored && decodeAdaptedBlocks(n, stored, determinantClasses(n))) ?? buildAdaptedBlocks(n);
+  cache.set(n, out);
+  return out;
+}
+
+/**
+ * The adapted blocks of dⁿ built from the determinants: the reference for the stored copy, and
+ * the path taken where it cannot be read.
+ */
+export function buildAdaptedBlocks(n: number): AdaptedBlock[] {
   const rotations = cubicRotations();
   // The C₂′ with its axis in the xy plane maps M_L to −M_L.
   const c2pRotation = rotations.find((r) => r.cls === 'C2p' && r.matrix[8] === -1);
@@ -90,7 +105,6 @@ export function adaptedBlocks(n: number): AdaptedBlock[] {
       });
     }
   });
-  cache.set(n, out);
   return out;
 }
 

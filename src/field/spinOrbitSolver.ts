@@ -76,7 +76,11 @@ export interface SpinOrbitStates {
   readonly eigs: readonly SymmetricEigen[];
 }
 
-/** Diagonalises every kept M_J block of dⁿ for a signed (octahedral-convention) Dq. */
+/**
+ * Diagonalises every kept M_J block of dⁿ for a signed (octahedral-convention) Dq. The last
+ * result is kept: a caller that wants the moments and the named levels at one point (magnetism)
+ * asks twice with the same numbers, and the states are read, never changed.
+ */
 export function spinOrbitStates(
   n: number,
   dqOct: number,
@@ -84,10 +88,19 @@ export function spinOrbitStates(
   C: number,
   zeta: number,
 ): SpinOrbitStates {
+  const last = lastStates;
+  if (last && last.n === n && last.dqOct === dqOct && last.B === B && last.C === C && last.zeta === zeta)
+    return last.states;
   const blocks = spinOrbitBlocks(n);
   const eigs = blocks.map((b) => symmetricEigen(blockHamiltonian(b, dqOct, B, C, zeta), b.masks.length));
-  return { blocks, eigs };
+  const states = { blocks, eigs };
+  lastStates = { n, dqOct, B, C, zeta, states };
+  return states;
 }
+
+let lastStates:
+  | { n: number; dqOct: number; B: number; C: number; zeta: number; states: SpinOrbitStates }
+  | undefined;
 
 /**
  * Levels of dⁿ in an octahedral or tetrahedral field with spin–orbit coupling, each with its

@@ -4,7 +4,7 @@
  * figure stack (canvas, chart.js), no spectrum reader and no sheet schema until it needs them.
  */
 import { readFileSync } from 'node:fs';
-import { dirname, resolve } from 'node:path';
+import { dirname, relative, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { ROOT } from '../cliRunner.js';
 
@@ -14,6 +14,11 @@ const STATIC_IMPORT =
 
 /** Every package a source file loads, following its relative static imports. */
 function staticPackages(entries: readonly string[]): Set<string> {
+  return staticGraph(entries).packages;
+}
+
+/** The source files (relative to the root) and packages that `entries` load statically. */
+function staticGraph(entries: readonly string[]): { files: Set<string>; packages: Set<string> } {
   const seen = new Set<string>();
   const packages = new Set<string>();
   const stack = entries.map((e) => resolve(ROOT, e));
@@ -30,7 +35,7 @@ function staticPackages(entries: readonly string[]): Set<string> {
         );
     }
   }
-  return packages;
+  return { files: new Set([...seen].map((f) => relative(ROOT, f))), packages };
 }
 
 const FIGURES = ['@napi-rs/canvas', 'chart.js'];
@@ -54,6 +59,17 @@ describe('start-up: what a command loads before it runs', () => {
   it('cli/main.ts with cli/program.ts statically loads commander and no command', () => {
     expect([...staticPackages(['cli/main.ts'])]).toEqual(['commander']);
     expect(readFileSync(resolve(ROOT, 'cli/program.ts'), 'utf8')).not.toMatch(/^import .*commands\//m);
+  });
+
+  it('termsplit --help, --version and no words load no command module and no physics (commandSummaries.ts)', () => {
+    const { files } = staticGraph(['cli/main.ts']);
+    expect(files).toContain('cli/commandSummaries.ts');
+    const heavy = [...files].filter((f) =>
+      /^(cli\/commands|cli\/present|charts|src\/(atom|analysis|field\/(?!labels)|fit|numeric|spectra|sheets))/.test(
+        f,
+      ),
+    );
+    expect(heavy).toEqual([]);
   });
 
   for (const command of TEXT_COMMANDS) {
