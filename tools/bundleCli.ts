@@ -6,13 +6,18 @@
  * own, loaded by its `import()` in cli/program.ts. Run by `npm run build`; the tsc output of src/
  * stays the library.
  */
-import { existsSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, rmSync } from 'node:fs';
 import { dirname, relative, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { type BuildOptions, build, type Metafile } from 'esbuild';
 
-/** Pure-JS packages bundled in: loading them separately costs start-up (ml-matrix's lexer pass). */
-export const BUNDLED_PACKAGES: readonly string[] = ['commander', 'ml-matrix'];
+/**
+ * Packages that stay package imports: @napi-rs/canvas is native code, and dejavu-fonts-ttf is
+ * font files found through require.resolve. Every other dependency is pure JavaScript and is
+ * bundled: loaded separately it costs start-up (ml-matrix's CommonJS lexer pass, the hundreds of
+ * files of ml-spectra-processing), and it still loads only with the command chunk that uses it.
+ */
+export const EXTERNAL_PACKAGES: readonly string[] = ['@napi-rs/canvas', 'dejavu-fonts-ttf'];
 
 /**
  * The worker's and every chunk's folder (relative to the package root), so that
@@ -20,16 +25,8 @@ export const BUNDLED_PACKAGES: readonly string[] = ['commander', 'ml-matrix'];
  */
 export const CHUNK_DIR = 'dist/cli/bundle';
 
-/**
- * The esbuild options for the package at `root`. Every dependency but BUNDLED_PACKAGES stays a
- * package import: @napi-rs/canvas is native, dejavu-fonts-ttf is font files found through
- * require.resolve, and the others (chart.js, the spectrum readers, zod) load only with the
- * commands that draw or read files.
- */
+/** The esbuild options for the package at `root`. */
 export function cliBundleOptions(root: string): BuildOptions & { metafile: true } {
-  const pkg = JSON.parse(readFileSync(resolve(root, 'package.json'), 'utf8')) as {
-    dependencies: Record<string, string>;
-  };
   return {
     absWorkingDir: root,
     entryPoints: { main: 'cli/main.ts', 'bundle/worker': 'cli/report/worker.ts' },
@@ -41,11 +38,11 @@ export function cliBundleOptions(root: string): BuildOptions & { metafile: true 
     format: 'esm',
     platform: 'node',
     target: 'node20',
-    external: Object.keys(pkg.dependencies).filter((name) => !BUNDLED_PACKAGES.includes(name)),
+    external: [...EXTERNAL_PACKAGES],
     metafile: true,
     legalComments: 'none',
     logLevel: 'warning',
-    // The bundled CommonJS (commander) calls require() for Node's own modules.
+    // Bundled CommonJS (commander) calls require() for Node's own modules.
     banner: {
       js: "import { createRequire as createBundleRequire } from 'node:module'; const require = createBundleRequire(import.meta.url);",
     },
