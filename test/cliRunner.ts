@@ -37,7 +37,7 @@ function newestSource(dir: string): number {
 /** Builds dist/ once if it is missing or older than the sources. */
 export function ensureBuilt(): void {
   const sources = Math.max(
-    ...['src', 'cli', 'charts', 'explorer'].map((d) => newestSource(resolve(ROOT, d))),
+    ...['src', 'cli', 'charts', 'explorer', 'tools'].map((d) => newestSource(resolve(ROOT, d))),
   );
   const bundle = resolve(ROOT, 'dist/explorer/bundle.js');
   const stale = [BIN, bundle].some((f) => !existsSync(f) || statSync(f).mtimeMs < sources);
