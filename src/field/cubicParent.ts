@@ -10,7 +10,13 @@ import type { Ligand } from './angularOverlap.js';
 import { rotatedCubicField, trigonalFrame } from './axialFields.js';
 import { cubicLevels } from './cubic.js';
 import type { Geometry } from './labels.js';
-import { type CubicParent, type Eigenspace, type FieldInput, fieldEigenspaces } from './lowSymmetrySolver.js';
+import {
+  aboveGround,
+  type CubicParent,
+  type Eigenspace,
+  type FieldInput,
+  fieldEigenspaces,
+} from './lowSymmetrySolver.js';
 import type { PointGroup } from './pointGroups.js';
 import { cross, dot, type Mat3, transpose3, unit, type Vec3 } from './realOrbitals.js';
 
@@ -116,12 +122,9 @@ function cubicSpaces(input: FieldInput, reference: CubicReference): { space: Eig
   const spaces = fieldEigenspaces({ ...input, field: reference.field });
   const geometry: Geometry = reference.dq >= 0 ? 'oct' : 'tet';
   const cubic = cubicLevels(input.n, reference.dq, input.B, input.C, geometry);
-  const ground = spaces[0]?.energy ?? 0;
-  let scale = 1;
-  for (const s of spaces) scale = Math.max(scale, Math.abs(s.energy - ground));
-  const tol = 1e-6 * scale;
-  return spaces.map((space) => {
-    const e = space.energy - ground;
+  const { above, tol } = aboveGround(spaces.map((s) => s.energy));
+  return spaces.map((space, i) => {
+    const e = above[i] ?? 0;
     const names = cubic.levels
       .filter((l) => l.S === space.S && Math.abs(l.energy - e) <= tol)
       .map((l) => l.label);

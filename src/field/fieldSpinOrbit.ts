@@ -27,6 +27,7 @@ import {
 } from './doubleGroupLabels.js';
 import { type DeterminantBlock, determinantBlock } from './hamiltonian.js';
 import {
+  aboveGround,
   checkFieldInput,
   DEGENERACY_RELATIVE,
   DEGENERACY_TOLERANCE,
@@ -542,12 +543,9 @@ function labelledReference(
   levelsOf: LevelSolver,
 ): { level: Level; label: string }[] {
   const levels = levelsOf({ ...input, field: reference.field, zeta: reference.zeta }, true);
-  const ground = levels[0]?.energy ?? 0;
-  let scale = 1;
-  for (const l of levels) scale = Math.max(scale, Math.abs(l.energy - ground));
-  const tol = 1e-6 * scale;
-  return levels.map((level) => {
-    const e = level.energy - ground;
+  const { above, tol } = aboveGround(levels.map((l) => l.energy));
+  return levels.map((level, i) => {
+    const e = above[i] ?? 0;
     const names = [
       ...new Set(reference.labels.filter((l) => Math.abs(l.energy - e) <= tol).map((l) => l.label)),
     ];

@@ -93,6 +93,20 @@ export const DEGENERACY_TOLERANCE = 1e-6;
 /** Relative part of the degeneracy tolerance. */
 export const DEGENERACY_RELATIVE = 1e-10;
 
+/** A level matches a reference level whose energy lies within this fraction of the span (≥ 1 cm⁻¹). */
+const REFERENCE_MATCH_RELATIVE = 1e-6;
+
+/**
+ * Each energy above the first (the ground) and the tolerance within which one matches a level of
+ * a reference solve: {@link REFERENCE_MATCH_RELATIVE} of the span of the energies, at least of 1 cm⁻¹.
+ */
+export function aboveGround(energies: readonly number[]): { readonly above: number[]; readonly tol: number } {
+  const ground = energies[0] ?? 0;
+  let scale = 1;
+  for (const e of energies) scale = Math.max(scale, Math.abs(e - ground));
+  return { above: energies.map((e) => e - ground), tol: REFERENCE_MATCH_RELATIVE * scale };
+}
+
 /** Refuses n outside 1…9, a bad B or C, or a field that is not a finite symmetric 5×5 matrix. */
 export function checkFieldInput(input: FieldInput): void {
   const { n, field, B, C } = input;
