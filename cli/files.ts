@@ -4,7 +4,6 @@
  * the package's own folder (for the shipped fixtures).
  */
 
-import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -45,6 +44,19 @@ export function removeTemporaries(): string[] {
   return undone;
 }
 
+let tagsMade = 0;
+
+/**
+ * A tag for temporary names, `<pid>-<count>-<random>`: unique among the processes writing on this
+ * machine (pid and a count; the report recognises a dead run's folders by the pid first) and
+ * unlikely to meet another machine's in a shared folder (the random part). Not from node:crypto:
+ * loading it would cost every command start-up time, and the names need no secrecy.
+ */
+export function uniqueTag(): string {
+  tagsMade++;
+  return `${process.pid}-${tagsMade.toString(36)}-${Math.random().toString(36).slice(2, 8)}`;
+}
+
 /**
  * Writes a file whole or not at all: to a temporary name in the same directory, then renamed,
  * so a failure never leaves a half-written output. Missing parent directories are an error
@@ -62,7 +74,7 @@ export function writeFileAtomic(path: string, data: string | Uint8Array, makeDir
   } else {
     checkOutputDirectory(path);
   }
-  const temp = `${path}.${randomBytes(4).toString('hex')}.tmp`;
+  const temp = `${path}.${uniqueTag()}.tmp`;
   const forget = trackTemporary(temp, `${path} not written`);
   try {
     writeFileSync(temp, data);
@@ -103,7 +115,7 @@ export function writeFilesAtomic(files: readonly { path: string; data: string | 
       if (existsSync(f.path) && statSync(f.path).isDirectory()) {
         throw new InputError(`cannot write ${f.path}: it is a directory`);
       }
-      const temp = `${f.path}.${randomBytes(4).toString('hex')}.tmp`;
+      const temp = `${f.path}.${uniqueTag()}.tmp`;
       temps.push({ temp, path: f.path, forget: trackTemporary(temp, `${f.path} not written`) });
       try {
         writeFileSync(temp, f.data);

@@ -2,7 +2,9 @@
 /**
  * The executable: runs the program on the process's arguments and streams and exits with its code.
  * On SIGINT or SIGTERM it removes the temporary files and folders of unfinished outputs, says
- * what was not written, and exits with 128 + the signal number.
+ * what was not written, and exits with 128 + the signal number. When the reader of stdout goes
+ * away (`termsplit … --json | head`), it stops quietly with 141, the code of a command ended by
+ * SIGPIPE, as other command-line tools do: no stack trace, and no temporary file left behind.
  */
 
 import { removeTemporaries } from './files.js';
@@ -19,5 +21,14 @@ for (const [signal, number] of Object.entries(SIGNAL_NUMBERS)) {
     process.exit(128 + number);
   });
 }
+
+/** SIGPIPE's number: Node ignores the signal, so a closed pipe shows up as EPIPE on write. */
+const SIGPIPE = 13;
+
+process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+  if (e.code !== 'EPIPE') throw e;
+  removeTemporaries();
+  process.exit(128 + SIGPIPE);
+});
 
 process.exitCode = await run(process.argv.slice(2), processIo());

@@ -9,7 +9,6 @@
  * process is gone.
  */
 
-import { randomBytes } from 'node:crypto';
 import {
   existsSync,
   mkdirSync,
@@ -23,7 +22,7 @@ import {
 } from 'node:fs';
 import { basename, dirname, join, sep } from 'node:path';
 import { InputError } from '../../src/core/errors.js';
-import { trackTemporary } from '../files.js';
+import { trackTemporary, uniqueTag } from '../files.js';
 
 /** The marker report.json carries, so that a later run may replace the report. */
 export const REPORT_GENERATOR = 'termsplit report';
@@ -86,7 +85,7 @@ export function reserveReportFolder(dir: string): ReportFolder {
 /** Creates the staging folder and registers it for interrupt clean-up. */
 function staged(dir: string, exists: boolean): { staging: string; dir: string; forget: () => void } {
   const parent = dirname(dir);
-  const tag = `${process.pid}-${randomBytes(4).toString('hex')}`;
+  const tag = uniqueTag();
   // Inside an existing folder, so the final renames stay on one file system and need no write
   // access to its parent (`-o .`); beside a new one, which it then becomes whole.
   const staging = exists
@@ -215,7 +214,7 @@ function replaceListedFiles(dir: string, staging: string, names: readonly string
       );
     }
   }
-  const aside = join(dir, `${ASIDE_MARK}${process.pid}-${randomBytes(4).toString('hex')}`);
+  const aside = join(dir, `${ASIDE_MARK}${uniqueTag()}`);
   const forget = trackTemporary(aside, `the earlier report in ${dir} was being replaced`);
   const movedAside: string[] = [];
   const movedIn: string[] = [];
@@ -292,7 +291,7 @@ function isMarkedReport(dir: string): boolean {
  */
 function isStale(entry: string, marks = [STAGING_MARK, ASIDE_MARK]): boolean {
   const mark = marks.find((m) => entry.startsWith(m));
-  const pid = mark === undefined ? undefined : /^(\d+)-[0-9a-f]+$/.exec(entry.slice(mark.length))?.[1];
+  const pid = mark === undefined ? undefined : /^(\d+)-[0-9a-z-]+$/.exec(entry.slice(mark.length))?.[1];
   return pid !== undefined && !isAlive(Number(pid));
 }
 

@@ -1,9 +1,9 @@
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { VERSION } from '../../cli/version.js';
-import { ensureBuilt, ROOT, runBinary, runInProcess } from '../cliRunner.js';
+import { BIN, ensureBuilt, ROOT, runBinary, runInProcess } from '../cliRunner.js';
 import { expectClose } from '../helpers.js';
 
 describe('termsplit terms', () => {
@@ -163,6 +163,18 @@ describe('termsplit end to end (built binary)', () => {
     expect(r.stdout).toBe('');
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
     expect(r.stderr).not.toMatch(/at .*\.js/);
+  });
+
+  it('a reader that closes the pipe early (`… --json | head`) ends the command quietly with 141, no stack trace', async () => {
+    const child = spawn(process.execPath, [BIN, 'diagram', 'd6', '--json'], { cwd: ROOT });
+    let stderr = '';
+    child.stderr.on('data', (d: Buffer) => {
+      stderr += d.toString();
+    });
+    child.stdout.once('data', () => child.stdout.destroy());
+    const code = await new Promise<number | null>((done) => child.on('close', done));
+    expect(stderr).toBe('');
+    expect(code).toBe(141);
   });
 
   it('node dist/cli/main.js demo (the main command of the README) writes ./termsplit-demo and says the data are invented', () => {
