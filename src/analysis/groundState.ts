@@ -1,7 +1,8 @@
 /**
  * Where the ground state of dⁿ changes its spin as Dq grows (high-spin → low-spin): each change
  * found on a scan of the ground spin (eigenvalues alone) and then pinned down as a root of
- * E(lowest of one spin) − E(lowest of the other), with the full solver at every step.
+ * E(lowest of one spin) − E(lowest of the other), from the exact eigenvalues of the symmetry blocks
+ * at every step (the full solver labels the two ground states).
  *
  * The scan gives the ground spin at every point of its grid, but solves only every
  * {@link COARSE_STEP}th point, and between two of them, where it cannot prove the spin unchanged,
@@ -13,7 +14,7 @@
 
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
-import { type CubicResult, cubicLevels, groundSpin, lowestBySpin } from '../field/cubic.js';
+import { cubicLevels, groundSpin, lowestBySpin } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
 import { brentRoot } from '../numeric/roots.js';
 
@@ -53,11 +54,6 @@ export interface CrossingInput {
 /** Defaults of {@link CrossingInput}. */
 export const CROSSING_DEFAULTS = { maxDeltaOverB: 60, scanPoints: 240, dqTolerance: 1e-7 } as const;
 
-function lowestOfSpin(result: CubicResult, S: number): number {
-  const level = result.levels.find((l) => l.S === S);
-  return level ? level.energy : Number.POSITIVE_INFINITY;
-}
-
 /**
  * Every change of ground-state spin for 0 < Δ/B ≤ maxDeltaOverB, in order of Dq.
  * Empty for dⁿ without one in that range (d¹–d³, d⁸, d⁹; and in Td for real B).
@@ -95,10 +91,12 @@ export function groundStateCrossings(input: CrossingInput): GroundCrossing[] {
       const cur = solve(dq);
       const sLow = prev.ground.S;
       const sHigh = cur.ground.S;
+      // The root needs the lowest level of two spins only: eigenvalues of the blocks, no labels.
+      const low = new Float64Array(SPIN_SLOTS);
       const root = brentRoot(
         (x) => {
-          const r = solve(x);
-          return lowestOfSpin(r, sLow) - lowestOfSpin(r, sHigh);
+          lowestBySpin(n, sign * x, B, C, low);
+          return (low[2 * sLow] as number) - (low[2 * sHigh] as number);
         },
         prevDq,
         dq,
