@@ -13,7 +13,7 @@
 import { DEFAULT_GEOMETRY } from '../core/defaults.js';
 import { ensure } from '../core/errors.js';
 import { DEFAULT_C_OVER_B, MAX_C_OVER_B } from '../core/ions.js';
-import { cubicLevels } from '../field/cubic.js';
+import { cubicCurves, cubicLevels } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
 import { csvText } from '../sheets/csv.js';
 import type { Caution } from './cautions.js';
@@ -186,42 +186,29 @@ export function sweepDiagram(n: number, options: SweepOptions = {}): Correlation
   }).map((c) => ({ deltaOverB: c.deltaOverB, from: c.from, to: c.to, fromS: c.fromS, toS: c.toS }));
   const xs = gridWithCrossings(maxDeltaOverB, points, crossings);
   const sign = geometry === 'oct' ? 1 : -1;
-  const index = new Map<string, number>();
-  const curves: {
-    label: string;
-    symbol: string;
-    S: number;
-    irrep: string;
-    parent: string;
-    values: number[];
-  }[] = [];
-  let strongField = new Map<string, string>();
-  xs.forEach((x, i) => {
-    // Eigenvalues alone, except at the last point, whose strong-field make-up names the curves.
-    const result = cubicLevels(n, (sign * x * B) / 10, B, C, geometry, i === xs.length - 1);
-    if (i === 0) {
-      for (const l of result.levels) {
-        index.set(l.label, curves.length);
-        curves.push({
-          label: l.label,
-          symbol: l.symbol,
-          S: l.S,
-          irrep: l.irrep,
-          parent: l.parent,
-          values: [],
-        });
-      }
-    }
-    if (result.levels.length !== curves.length) {
-      throw new Error(`d${n}: ${result.levels.length} levels at Δ/B = ${x}, ${curves.length} at 0`);
-    }
-    for (const l of result.levels) {
-      const curve = curves[index.get(l.label) ?? -1];
-      if (!curve) throw new Error(`d${n}: level ${l.label} at Δ/B = ${x} has no curve`);
-      curve.values.push(l.energy / B);
-    }
-    if (i === xs.length - 1) strongField = new Map(result.levels.map((l) => [l.label, l.configuration]));
-    options.onProgress?.(i + 1, xs.length);
+  const dqs = xs.map((x) => (sign * x * B) / 10);
+  const byLabel = new Map(
+    cubicCurves(n, dqs, B, C, geometry, options.onProgress).map((c) => [c.label, c] as const),
+  );
+  // The full solver names the curves: in its order at Δ/B = 0 (which settles ties in the sort
+  // below), with the strong-field make-up at the last point.
+  const first = cubicLevels(n, dqs[0] ?? 0, B, C, geometry, false);
+  const last = cubicLevels(n, dqs[dqs.length - 1] ?? 0, B, C, geometry);
+  const strongField = new Map(last.levels.map((l) => [l.label, l.configuration]));
+  if (first.levels.length !== byLabel.size) {
+    throw new Error(`d${n}: ${first.levels.length} levels at Δ/B = 0, ${byLabel.size} curves`);
+  }
+  const curves = first.levels.map((l) => {
+    const curve = byLabel.get(l.label);
+    if (!curve) throw new Error(`d${n}: level ${l.label} has no curve`);
+    return {
+      label: l.label,
+      symbol: l.symbol,
+      S: l.S,
+      irrep: l.irrep,
+      parent: l.parent,
+      values: Array.from(curve.energies, (e) => e / B),
+    };
   });
   // Order by energy just above Δ/B = 0, where the levels of one term have begun to split.
   const order = (c: (typeof curves)[number]) => c.values[1] ?? c.values[0] ?? 0;

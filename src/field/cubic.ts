@@ -522,6 +522,194 @@ export function lowestBySpin(n: number, dqOct: number, B: number, C: number, out
   return S;
 }
 
+/** One level of {@link cubicCurves}: its names and its energy above the ground state at each Dq. */
+export interface CubicCurve {
+  /** As {@link CubicLevel.label}. */
+  readonly label: string;
+  readonly symbol: string;
+  readonly S: number;
+  /** Irrep with parity in Oh (`T1g`), without in Td (`T1`). */
+  readonly irrep: string;
+  readonly parent: string;
+  /** Energy above the ground state at each Dq asked for, cm⁻¹. */
+  readonly energies: Float64Array;
+}
+
+/**
+ * The energy of every level of dⁿ, by label, at each signed, octahedral-convention Dq of
+ * `dqOcts` (B, C fixed): the numbers {@link cubicLevels} gives there (to rounding), for sweeps of
+ * many points. H is diagonalised on one component of each (S, Γ) only — A1, E and T1 from the C₃
+ * parts of the k = 0 blocks, T2 from the k = 2 block that holds nothing else, A2 from the other
+ * k = 2 block with E's values taken out — so every eigenvalue belongs to one (S, Γ) and, since
+ * levels of one ²ˢ⁺¹Γ never cross, its rank names it: no clustering, no vectors, and the k = 1
+ * blocks not at all.
+ * @throws InputError for a Dq, B or C beyond {@link MAX_PARAMETER}.
+ */
+export function cubicCurves(
+  n: number,
+  dqOcts: readonly number[],
+  B: number,
+  C: number,
+  geometry: Geometry,
+  onProgress?: (done: number, total: number) => void,
+): CubicCurve[] {
+  const ws = workspaceOf(n);
+  const sources = irrepSourcesOf(ws);
+  const plan = labelPlan(n, B, C, geometry);
+  const curves = sources.map((source) =>
+    (plan[planSlot(source.S, source.irrep)] ?? []).map((p) => ({
+      ...p,
+      S: source.S,
+      energies: new Float64Array(dqOcts.length),
+    })),
+  );
+  const values = sources.map(() => [] as number[]);
+  dqOcts.forEach((dq, i) => {
+    checkMagnitudes(dq, B, C);
+    let ground = Number.POSITIVE_INFINITY;
+    sources.forEach((source, s) => {
+      const own = sourceValues(source, dq, B, C, ws.e, values);
+      values[s] = own;
+      if (own.length !== curves[s]?.length)
+        throw new Error(
+          `d${n}: ${own.length} levels of ${source.S}:${source.irrep}, ${curves[s]?.length} labels`,
+        );
+      if ((own[0] ?? ground) < ground) ground = own[0] as number;
+    });
+    curves.forEach((list, s) => {
+      const own = values[s] as number[];
+      list.forEach((c, r) => {
+        c.energies[i] = (own[r] as number) - ground;
+      });
+    });
+    onProgress?.(i + 1, dqOcts.length);
+  });
+  return curves.flat();
+}
+
+/** H restricted to a subspace that H keeps: its ∂H/∂B, ∂H/∂C and ∂H/∂Dq, full, and scratch. */
+interface Restriction {
+  readonly size: number;
+  readonly partB: Float64Array;
+  readonly partC: Float64Array;
+  readonly field: Float64Array;
+  readonly scratch: Float64Array;
+  readonly values: Float64Array;
+}
+
+/** Where the levels of one (S, Γ) are read: the restrictions whose eigenvalues are exactly those levels. */
+interface IrrepSource {
+  readonly S: number;
+  readonly irrep: CubicIrrep;
+  readonly parts: readonly Restriction[];
+  /** A2's k = 2 block also holds one component of every E level of its S: index of that E source. */
+  readonly minus: number | undefined;
+}
+
+const IRREP_OF_C3_VALUE: ReadonlyMap<number, CubicIrrep> = new Map([
+  [8, 'A1'],
+  [-4, 'E'],
+  [0, 'T1'],
+]);
+
+const sourceCache = new WeakMap<Workspace, IrrepSource[]>();
+
+/** The (S, Γ) sources of one n, built once. */
+function irrepSourcesOf(ws: Workspace): IrrepSource[] {
+  const cached = sourceCache.get(ws);
+  if (cached) return cached;
+  const found = new Map<string, { S: number; irrep: CubicIrrep; parts: Restriction[] }>();
+  const add = (S: number, irrep: CubicIrrep, part: Restriction) => {
+    const k = `${S}:${irrep}`;
+    const entry = found.get(k) ?? { S, irrep, parts: [] };
+    entry.parts.push(part);
+    found.set(k, entry);
+  };
+  ws.blocks.forEach((block, bi) => {
+    if (block.k === 0) {
+      for (const part of ws.c3Parts[bi] ?? []) {
+        const irrep = IRREP_OF_C3_VALUE.get(part.value);
+        if (!irrep) throw new Error(`C3 class sum value ${part.value} in a k = 0 block`);
+        add(block.S, irrep, restriction(part.size, part.partB, part.partC, part.field));
+      }
+    } else if (block.k === 2) {
+      const field = new Float64Array(block.size * block.size);
+      for (let i = 0; i < block.size; i++) field[i * block.size + i] = block.fieldDiagonal[i] as number;
+      const whole = restriction(block.size, block.partB, block.partC, field);
+      add(block.S, onlyT2(ws, bi) ? 'T2' : 'A2', whole);
+    }
+  });
+  // E before A2, so that A2's E values are known when it is read.
+  const order = (irrep: CubicIrrep) => (irrep === 'A2' ? 1 : 0);
+  const list = [...found.values()].sort((a, b) => order(a.irrep) - order(b.irrep));
+  const sources: IrrepSource[] = list.map((entry) => {
+    const e = list.findIndex((x) => x.S === entry.S && x.irrep === 'E');
+    return { ...entry, minus: entry.irrep === 'A2' && e >= 0 ? e : undefined };
+  });
+  sourceCache.set(ws, sources);
+  return sources;
+}
+
+function restriction(
+  size: number,
+  partB: Float64Array,
+  partC: Float64Array,
+  field: Float64Array,
+): Restriction {
+  return {
+    size,
+    partB,
+    partC,
+    field,
+    scratch: new Float64Array(size * size),
+    values: new Float64Array(size),
+  };
+}
+
+/**
+ * Whether k = 2 block `bi` holds T2 components only: its spectrum then lies within that of the
+ * k = 1 block of its S (which holds one component of each T1 and T2 level), while an A2 or E
+ * level never does; checked at one point of no special Dq, B or C/B.
+ */
+function onlyT2(ws: Workspace, bi: number): boolean {
+  const block = ws.blocks[bi] as AdaptedBlock;
+  const other = ws.blocks.findIndex((b) => b.k === 1 && b.S === block.S);
+  if (other < 0) return false;
+  const at = (b: AdaptedBlock) => symmetricEigen(blockMatrix(b, 1234.5, 1000, 4271.3), b.size).values;
+  const own = at(block);
+  const t = at(ws.blocks[other] as AdaptedBlock);
+  return own.every((v) => t.some((w) => Math.abs(v - w) <= 1e-7 * (Math.abs(v) + 1)));
+}
+
+/** The eigenvalues of one (S, Γ) at one point, ascending. */
+function sourceValues(
+  source: IrrepSource,
+  dq: number,
+  B: number,
+  C: number,
+  e: Float64Array,
+  known: readonly (readonly number[])[],
+): number[] {
+  const out: number[] = [];
+  for (const part of source.parts) {
+    const { size: m, partB, partC, field, scratch: h, values } = part;
+    for (let x = 0; x < m * m; x++)
+      h[x] = B * (partB[x] as number) + C * (partC[x] as number) + dq * (field[x] as number);
+    tridiagonalQlValuesInPlace(h, m, values, e);
+    for (let j = 0; j < m; j++) out.push(values[j] as number);
+  }
+  out.sort((a, b) => a - b);
+  if (source.minus === undefined) return out;
+  // Each E value is in A2's block too: remove its nearest match (both are exact to rounding).
+  for (const v of known[source.minus] ?? []) {
+    let best = 0;
+    for (let j = 1; j < out.length; j++)
+      if (Math.abs((out[j] as number) - v) < Math.abs((out[best] as number) - v)) best = j;
+    out.splice(best, 1);
+  }
+  return out;
+}
+
 /** The label, symbol, irrep name and parent of the i-th lowest level of one (S, irrep). */
 interface PlannedLabel {
   readonly label: string;
