@@ -542,7 +542,7 @@ export interface CubicCurve {
  * parts of the k = 0 blocks, T2 from the k = 2 block that holds nothing else, A2 from the other
  * k = 2 block with E's values taken out — so every eigenvalue belongs to one (S, Γ) and, since
  * levels of one ²ˢ⁺¹Γ never cross, its rank names it: no clustering, no vectors, and the k = 1
- * blocks not at all.
+ * blocks not at all. The curves come grouped by (S, Γ), those of one ²ˢ⁺¹Γ lowest first.
  * @throws InputError for a Dq, B or C beyond {@link MAX_PARAMETER}.
  */
 export function cubicCurves(

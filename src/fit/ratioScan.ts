@@ -1,5 +1,6 @@
-import { type FieldParameters, levelKeys, solveAt } from '../analysis/bandModel.js';
+import type { FieldParameters } from '../analysis/bandModel.js';
 import { ensure } from '../core/errors.js';
+import { type CubicCurve, cubicCurves } from '../field/cubic.js';
 import type { Geometry } from '../field/labels.js';
 
 /**
@@ -27,7 +28,7 @@ export interface ScanOptions {
 
 /** One level at a scan point, with its energy per unit of the scale parameter. */
 export interface ScanLevel {
-  /** Identity key (see {@link levelKeys}). */
+  /** Identity key: symbol and rank among the levels of that symbol, e.g. `4T1g#1` (as `levelKeys` in analysis/bandModel.ts). */
   readonly key: string;
   readonly label: string;
   readonly S: number;
@@ -96,6 +97,17 @@ export function ratioScan(
         const x = minDeltaOverB * (maxDeltaOverB / minDeltaOverB) ** (i / (points - 1));
         return { direction: { dq: x / 10, B: 1, C: cOverB }, deltaOverB: x };
       });
+  // Along the scan only Dq changes: the sweep's fast path gives every level's energy, by label.
+  const { B, C } = directions[0]?.direction ?? { B: 1, C: cOverB };
+  const sign = geometry === 'oct' ? 1 : -1;
+  const curves = cubicCurves(
+    n,
+    directions.map(({ direction }) => sign * direction.dq),
+    B,
+    C,
+    geometry,
+  );
+  const keys = curveKeys(curves);
   const scan: RatioScan = {
     n,
     geometry,
@@ -103,17 +115,12 @@ export function ratioScan(
     scale: single ? 'dq' : 'B',
     minDeltaOverB,
     maxDeltaOverB,
-    points: directions.map(({ direction, deltaOverB }) => {
-      const result = solveAt(n, geometry, direction);
-      const keys = levelKeys(result);
-      const levels = result.levels.map((l, i) => ({
-        key: keys[i] ?? '',
-        label: l.label,
-        S: l.S,
-        energy: l.energy,
-        spinAllowed: l.spinAllowed,
-      }));
-      const [ground, ...excited] = levels;
+    points: directions.map(({ direction, deltaOverB }, i) => {
+      const byEnergy = curves
+        .map((c, j) => ({ key: keys[j] ?? '', label: c.label, S: c.S, energy: c.energies[i] as number }))
+        .sort((a, b) => a.energy - b.energy);
+      const groundS = byEnergy[0]?.S;
+      const [ground, ...excited] = byEnergy.map((l) => ({ ...l, spinAllowed: l.S === groundS }));
       if (!ground) throw new Error(`no levels for d${n}`);
       return { direction, deltaOverB, ground, excited };
     }),
@@ -121,4 +128,17 @@ export function ratioScan(
   if (memo.size >= MEMO_SIZE) memo.delete(memo.keys().next().value ?? '');
   memo.set(key, scan);
   return scan;
+}
+
+/**
+ * Identity keys of the curves (as `levelKeys` in analysis/bandModel.ts gives them for a solved point): the curves
+ * of one symbol come in rank order, and levels of one symbol never cross.
+ */
+function curveKeys(curves: readonly CubicCurve[]): string[] {
+  const seen = new Map<string, number>();
+  return curves.map((c) => {
+    const rank = seen.get(c.symbol) ?? 0;
+    seen.set(c.symbol, rank + 1);
+    return `${c.symbol}#${rank}`;
+  });
 }
