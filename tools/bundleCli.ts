@@ -9,7 +9,7 @@
 import { existsSync, rmSync } from 'node:fs';
 import { dirname, relative, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { type BuildOptions, build, type Metafile } from 'esbuild';
+import { type BuildOptions, build, type Metafile, type Plugin } from 'esbuild';
 
 /**
  * Packages that stay package imports: @napi-rs/canvas is native code, and dejavu-fonts-ttf is
@@ -24,6 +24,27 @@ export const EXTERNAL_PACKAGES: readonly string[] = ['@napi-rs/canvas', 'dejavu-
  * `new URL('./worker.js', import.meta.url)` in cli/report/run.ts finds the worker.
  */
 export const CHUNK_DIR = 'dist/cli/bundle';
+
+/**
+ * commander loads node:child_process when it is loaded, for stand-alone executable subcommands,
+ * which termsplit does not have; that module costs every command about 5 ms of start-up. Within
+ * commander it is replaced by a stand-in that loads the real module on first use.
+ */
+export const lazyChildProcess: Plugin = {
+  name: 'lazy-child-process',
+  setup(b) {
+    b.onResolve({ filter: /^node:child_process$/ }, (args) =>
+      /[\\/]node_modules[\\/]commander[\\/]/.test(args.importer)
+        ? { path: 'child_process', namespace: 'lazy-child-process' }
+        : undefined,
+    );
+    b.onLoad({ filter: /.*/, namespace: 'lazy-child-process' }, () => ({
+      contents:
+        "let real; module.exports = new Proxy({}, { get: (_, key) => (real ??= require('node:child_process'))[key] });",
+      loader: 'js',
+    }));
+  },
+};
 
 /** The esbuild options for the package at `root`. */
 export function cliBundleOptions(root: string): BuildOptions & { metafile: true } {
@@ -40,6 +61,7 @@ export function cliBundleOptions(root: string): BuildOptions & { metafile: true 
     target: 'node20',
     external: [...EXTERNAL_PACKAGES],
     metafile: true,
+    plugins: [lazyChildProcess],
     legalComments: 'none',
     logLevel: 'warning',
     // Bundled CommonJS (commander) calls require() for Node's own modules.

@@ -4,12 +4,15 @@
  * checks that a command that prints text or JSON loads no figure stack (canvas, chart.js), no
  * spectrum reader and no sheet schema until it needs them.
  */
-import { readFileSync } from 'node:fs';
-import { dirname, relative, resolve } from 'node:path';
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join, relative, resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { build, type Metafile } from 'esbuild';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { cliBundleOptions } from '../../tools/bundleCli.js';
-import { ROOT } from '../cliRunner.js';
+import { BIN, ROOT } from '../cliRunner.js';
 
 /** `import … from '…'` and `export … from '…'` that load at run time (not `import type`), and bare `import '…'`. */
 const STATIC_IMPORT =
@@ -161,4 +164,30 @@ describe('start-up of the bundled command line: what each chunk loads before it 
     expect(bundleGraph(meta, [chunkOf('cli/report/analyse.ts')]).packages).toContain('chart.js');
     expect(bundleGraph(meta, [chunkOf('cli/commands/fit.ts')]).packages).toContain('ml-matrix');
   });
+});
+
+describe('start-up of the bundled command line: the built-in modules it loads', () => {
+  // node:child_process (which commander asks for at load) and node:crypto cost about 5 ms each.
+  for (const argv of [['--help'], ['terms', 'd3'], ['diagram', 'd6', '--points', '2', '--json']]) {
+    it(`termsplit ${argv.join(' ')} loads neither node:child_process nor node:crypto`, () => {
+      const dir = mkdtempSync(join(tmpdir(), 'termsplit-modules-'));
+      try {
+        const hook = join(dir, 'loaded.mjs');
+        writeFileSync(
+          hook,
+          "process.on('exit', () => process.stderr.write('\\nLOADED ' + process.moduleLoadList.join(',') + '\\n'));",
+        );
+        const r = spawnSync(process.execPath, ['--import', pathToFileURL(hook).href, BIN, ...argv], {
+          cwd: ROOT,
+          encoding: 'utf8',
+        });
+        expect(r.status).toBe(0);
+        const loaded = /LOADED (.*)/.exec(r.stderr)?.[1]?.split(',') ?? [];
+        expect(loaded).toContain('NativeModule fs');
+        expect(loaded.filter((m) => /\b(child_process|crypto)\b/.test(m))).toEqual([]);
+      } finally {
+        rmSync(dir, { recursive: true, force: true });
+      }
+    });
+  }
 });
