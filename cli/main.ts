@@ -5,6 +5,7 @@
  * what was not written, and exits with 128 + the signal number. When the reader of stdout goes
  * away (`termsplit … --json | head`), it stops quietly with 141, the code of a command ended by
  * SIGPIPE, as other command-line tools do: no stack trace, and no temporary file left behind.
+ * Any other failure to write stdout gets one line and exit code 1.
  */
 
 import { removeTemporaries } from './files.js';
@@ -26,9 +27,10 @@ for (const [signal, number] of Object.entries(SIGNAL_NUMBERS)) {
 const SIGPIPE = 13;
 
 process.stdout.on('error', (e: NodeJS.ErrnoException) => {
-  if (e.code !== 'EPIPE') throw e;
   removeTemporaries();
-  process.exit(128 + SIGPIPE);
+  if (e.code === 'EPIPE') process.exit(128 + SIGPIPE);
+  process.stderr.write(`termsplit: cannot write the output: ${e.message}\n`);
+  process.exit(1);
 });
 
 process.exitCode = await run(process.argv.slice(2), processIo());

@@ -1,5 +1,5 @@
 import { spawn, spawnSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
+import { closeSync, existsSync, openSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { VERSION } from '../../cli/version.js';
@@ -176,6 +176,26 @@ describe('termsplit end to end (built binary)', () => {
     expect(stderr).toBe('');
     expect(code).toBe(141);
   });
+
+  it.skipIf(!existsSync('/dev/full'))(
+    'a full disk under stdout gets one line and exit 1, no stack trace',
+    () => {
+      const full = openSync('/dev/full', 'w');
+      try {
+        const r = spawnSync(process.execPath, [BIN, 'diagram', 'd6', '--json'], {
+          cwd: ROOT,
+          encoding: 'utf8',
+          stdio: ['ignore', full, 'pipe'],
+        });
+        expect(r.status).toBe(1);
+        expect(r.stderr.trim().split('\n')).toEqual([
+          expect.stringMatching(/^termsplit: cannot write the output: ENOSPC/),
+        ]);
+      } finally {
+        closeSync(full);
+      }
+    },
+  );
 
   it('node dist/cli/main.js demo (the main command of the README) writes ./termsplit-demo and says the data are invented', () => {
     // The suite's one demo run, made by test/globalSetup.ts in a fresh folder.
