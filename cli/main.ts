@@ -5,7 +5,8 @@
  * what was not written, and exits with 128 + the signal number. When the reader of stdout goes
  * away (`termsplit … --json | head`), it stops quietly with 141, the code of a command ended by
  * SIGPIPE, as other command-line tools do: no stack trace, and no temporary file left behind.
- * Any other failure to write stdout gets one line and exit code 1.
+ * Any other failure to write stdout gets one line and exit code 1; a closed stderr ends it
+ * silently the same way.
  */
 
 import { removeTemporaries } from './files.js';
@@ -31,6 +32,11 @@ process.stdout.on('error', (e: NodeJS.ErrnoException) => {
   if (e.code === 'EPIPE') process.exit(128 + SIGPIPE);
   process.stderr.write(`termsplit: cannot write the output: ${e.message}\n`);
   process.exit(1);
+});
+// With stderr gone there is no one left to tell: stop the same way, silently.
+process.stderr.on('error', (e: NodeJS.ErrnoException) => {
+  removeTemporaries();
+  process.exit(e.code === 'EPIPE' ? 128 + SIGPIPE : 1);
 });
 
 process.exitCode = await run(process.argv.slice(2), processIo());

@@ -177,6 +177,15 @@ describe('termsplit end to end (built binary)', () => {
     expect(code).toBe(141);
   });
 
+  it('a closed stderr ends the command silently with 141 too, instead of a crash', async () => {
+    const child = spawn(process.execPath, [BIN, 'levels', '--d', '3', '--dq', '1000', '--B', '-5'], {
+      cwd: ROOT,
+    });
+    child.stderr.destroy();
+    const code = await new Promise<number | null>((done) => child.on('close', done));
+    expect(code).toBe(141);
+  });
+
   it.skipIf(!existsSync('/dev/full'))(
     'a full disk under stdout gets one line and exit 1, no stack trace',
     () => {
