@@ -140,6 +140,7 @@ async function magnetismCommand(opts: MagnetismOptions, io: Io): Promise<string>
   const points = susceptibility({ ...base, temperatures });
   const ground = result.ground;
   const spinOnly = ground.S > 0 ? spinOnlyMoment(ground.S) : null;
+  // The JSON names the ground level only; its parentage (a projection on every cubic level) is for the text.
   const soGround = spinOrbitLevels(
     result.n,
     result.geometry === 'oct' ? result.dq : -result.dq,
@@ -147,6 +148,7 @@ async function magnetismCommand(opts: MagnetismOptions, io: Io): Promise<string>
     result.C,
     zeta,
     result.geometry,
+    !opts.json,
   ).ground;
   let figure: string | undefined;
   if (opts.output !== undefined) {

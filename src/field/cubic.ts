@@ -495,9 +495,17 @@ export function groundSpin(n: number, dqOct: number, B: number, C: number): numb
 
 /**
  * {@link groundSpin}, and the lowest energy of each spin written to `out[2S]` when given (+∞ for
- * a spin dⁿ lacks; `out` needs length 6).
+ * a spin dⁿ lacks; `out` needs length 6). With `spins`, only the blocks of those spins are solved
+ * (the others read +∞, and the spin returned is the lower of those): the same numbers for them.
  */
-export function lowestBySpin(n: number, dqOct: number, B: number, C: number, out?: Float64Array): number {
+export function lowestBySpin(
+  n: number,
+  dqOct: number,
+  B: number,
+  C: number,
+  out?: Float64Array,
+  spins?: readonly number[],
+): number {
   checkMagnitudes(dqOct, B, C);
   let lowest = Number.POSITIVE_INFINITY;
   let S = 0;
@@ -506,7 +514,7 @@ export function lowestBySpin(n: number, dqOct: number, B: number, C: number, out
   ws.blocks.forEach((block, bi) => {
     // Every irrep of O has a component with k = 0 (A1, E, T1) or k = 2 (A2, E, T2), so the k = 1
     // blocks hold no level the others lack: the lowest eigenvalue, and its S, is found without them.
-    if (block.k === 1) return;
+    if (block.k === 1 || (spins && !spins.includes(block.S))) return;
     const own = ws.blockValues[bi] as Float64Array;
     const vt = ws.scratch[bi] as Float64Array;
     blockMatrixTransposed(block, dqOct, B, C, vt);
